@@ -1,0 +1,58 @@
+#!/usr/bin/env bash
+# npm start: everything a fresh clone needs to serve Kickpanel on http://127.0.0.1:${PORT:-3000}.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib.sh
+
+ensure_node_modules
+ensure_auth_secret
+export PORT="${PORT:-3000}"
+export HOST="${HOST:-127.0.0.1}"
+export ORIGIN="${ORIGIN:-http://127.0.0.1:$PORT}"
+export BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-64M}"
+export NODE_ENV=production
+
+started_db=0
+if ! bash scripts/db.sh status >/dev/null 2>&1; then
+	bash scripts/db.sh start
+	started_db=1
+fi
+services_pid=""
+server_pid=""
+cleanup() {
+	trap - INT TERM EXIT
+	if [ -n "$server_pid" ] && kill -0 "$server_pid" 2>/dev/null; then
+		kill -TERM "$server_pid" 2>/dev/null || true
+		wait "$server_pid" 2>/dev/null || true
+	fi
+	if [ -n "$services_pid" ] && kill -0 "$services_pid" 2>/dev/null; then
+		kill -TERM "$services_pid" 2>/dev/null || true
+		wait "$services_pid" 2>/dev/null || true
+	fi
+	if [ "$started_db" = 1 ]; then bash scripts/db.sh stop; fi
+	log "stopped"
+}
+trap cleanup INT TERM EXIT
+
+if [ -f scripts/services.ts ]; then
+	npx tsx scripts/services.ts &
+	services_pid=$!
+fi
+npx tsx scripts/migrate.ts
+npx tsx scripts/seed.ts --if-empty
+ensure_build
+
+node build/index.js &
+server_pid=$!
+if wait_for_http "http://127.0.0.1:$PORT/api/health"; then
+	cat <<MSG
+
+  Kickpanel is running at $ORIGIN
+  Sample sign-ins (sample data; change them before real use):
+$(node -e "for (const u of require('./content-seed/users.json')) console.log('    ' + u.role.padEnd(10) + u.email.padEnd(30) + u.password)")
+
+  Ctrl-C stops the server and the database it started.
+
+MSG
+fi
+wait "$server_pid"

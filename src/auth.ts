@@ -1,0 +1,42 @@
+import { SvelteKitAuth, CredentialsSignin } from '@auth/sveltekit';
+import Credentials from '@auth/sveltekit/providers/credentials';
+import { config } from '$lib/server/config';
+import { authenticate } from '$lib/server/services/users';
+import { SESSION_MAX_AGE_SECONDS } from '$lib/server/auth/session';
+
+class WrongCredentials extends CredentialsSignin {
+	code = 'credentials';
+}
+class TooManyAttempts extends CredentialsSignin {
+	code = 'locked';
+}
+
+export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (event) => ({
+	trustHost: config.auth.trustHost,
+	secret: process.env.AUTH_SECRET,
+	basePath: '/auth',
+	session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_SECONDS },
+	pages: { signIn: '/signin', error: '/signin' },
+	logger: { error: () => {}, warn: () => {} },
+	providers: [
+		Credentials({
+			id: 'credentials',
+			name: 'E-mail and password',
+			credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+			async authorize(credentials) {
+				const result = await authenticate(credentials.email, credentials.password, event.getClientAddress());
+				if (!result.ok) throw result.reason === 'locked' ? new TooManyAttempts() : new WrongCredentials();
+				return { id: String(result.user.id), email: result.user.email, name: result.user.name, sessionVersion: result.user.sessionVersion };
+			}
+		})
+	],
+	callbacks: {
+		jwt({ token, user }) {
+			if (user) {
+				token.uid = Number(user.id);
+				token.sv = (user as { sessionVersion?: number }).sessionVersion ?? 1;
+			}
+			return token;
+		}
+	}
+}));

@@ -1,0 +1,36 @@
+import { redirect, type Handle, type ServerInit } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { authHandle } from './auth';
+import { sessionUser } from '$lib/server/auth/session';
+import { closeDb } from '$lib/server/db';
+import { startApp } from '$lib/server/lifecycle';
+
+export const init: ServerInit = async () => {
+	await startApp();
+	process.once('sveltekit:shutdown', () => {
+		void closeDb();
+	});
+};
+
+// Pages anyone may open without signing in; everything else needs an account.
+const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite'];
+
+const loadUser: Handle = async ({ event, resolve }) => {
+	event.locals.user = await sessionUser(event.cookies);
+	event.locals.units = event.locals.user?.units ?? (event.cookies.get('units') === 'imperial' ? 'imperial' : 'metric');
+	const path = event.url.pathname;
+	const isPublic = path === '/signin' || PUBLIC_PREFIXES.some((p) => path.startsWith(p));
+	if (!event.locals.user && !isPublic) {
+		if (path.startsWith('/api/')) {
+			return new Response(JSON.stringify({ message: 'Sign in to use the API.' }), {
+				status: 401,
+				headers: { 'content-type': 'application/json' }
+			});
+		}
+		if (event.request.method === 'GET') redirect(303, `/signin?next=${encodeURIComponent(path + event.url.search)}`);
+		return new Response('Sign in to continue.', { status: 401 });
+	}
+	return resolve(event);
+};
+
+export const handle = sequence(authHandle, loadUser);

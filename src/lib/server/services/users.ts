@@ -1,0 +1,106 @@
+import { z } from 'zod';
+import { db } from '../db';
+import { ROLES, User, type Role } from '../db/models';
+import { hashPassword, MIN_PASSWORD_LENGTH, verifyPassword } from '../auth/password';
+import { clearSignInFailures, recordSignInFailure, signInThrottle } from '../auth/throttle';
+import type { SessionUser } from '../auth/guard';
+import { recordAudit } from './audit';
+
+export const emailSchema = z
+	.string({ error: 'Enter an e-mail address.' })
+	.trim()
+	.toLowerCase()
+	.pipe(z.email({ error: 'Enter a valid e-mail address, like name@example.com.' }));
+
+export const newUserSchema = z.object({
+	email: emailSchema,
+	name: z.string().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.'),
+	password: z
+		.string()
+		.min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters for the password.`)
+		.max(200, 'Keep the password under 200 characters.'),
+	role: z.enum(ROLES, { error: `Choose a role: ${ROLES.join(', ')}.` })
+});
+export type NewUser = z.infer<typeof newUserSchema>;
+
+export class UserError extends Error {
+	constructor(
+		message: string,
+		readonly field?: string
+	) {
+		super(message);
+	}
+}
+
+export function toSessionUser(u: User): SessionUser {
+	return { id: u.id, email: u.email, name: u.name, role: u.role, units: u.units };
+}
+
+export async function createUser(input: NewUser, actorId: number | null): Promise<User> {
+	const data = newUserSchema.parse(input);
+	const passwordHash = await hashPassword(data.password);
+	return db().transaction(async (transaction) => {
+		const existing = await User.findOne({ where: { email: data.email }, transaction });
+		if (existing) throw new UserError('Someone already has an account with that e-mail address.', 'email');
+		const user = await User.create({ email: data.email, name: data.name, role: data.role, passwordHash }, { transaction });
+		await recordAudit({ actorId, action: 'user.create', targetType: 'user', targetId: user.id, details: { role: data.role } }, transaction);
+		return user;
+	});
+}
+
+export function listUsers(): Promise<User[]> {
+	return User.findAll({ order: [['name', 'ASC']] });
+}
+
+export async function changeRole(userId: number, role: Role, actorId: number): Promise<void> {
+	await db().transaction(async (transaction) => {
+		const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!user) throw new UserError('That user no longer exists.');
+		if (user.role === role) return;
+		if (user.id === actorId) throw new UserError('You cannot change your own role; ask another admin.');
+		const from = user.role;
+		await user.update({ role }, { transaction });
+		await recordAudit({ actorId, action: 'user.role', targetType: 'user', targetId: user.id, details: { from, to: role } }, transaction);
+	});
+}
+
+export async function setUserStatus(userId: number, status: 'active' | 'disabled', actorId: number): Promise<void> {
+	await db().transaction(async (transaction) => {
+		const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!user) throw new UserError('That user no longer exists.');
+		if (user.status === status) return;
+		if (user.id === actorId) throw new UserError('You cannot disable your own account.');
+		const from = user.status;
+		await user.update({ status }, { transaction });
+		await recordAudit({ actorId, action: 'user.status', targetType: 'user', targetId: user.id, details: { from, to: status } }, transaction);
+	});
+}
+
+/** The signed-in user for a session, read fresh so a disabled or demoted user loses access at once. */
+export async function activeSessionUser(userId: number, sessionVersion: number): Promise<SessionUser | null> {
+	const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'role', 'status', 'units', 'sessionVersion'] });
+	if (!user || user.status !== 'active' || user.sessionVersion !== sessionVersion) return null;
+	return toSessionUser(user);
+}
+
+export type SignInResult =
+	| { ok: true; user: User }
+	| { ok: false; reason: 'invalid' }
+	| { ok: false; reason: 'locked'; retryAfterSeconds: number };
+
+export async function authenticate(emailInput: unknown, password: unknown, address: string): Promise<SignInResult> {
+	const email = emailSchema.safeParse(emailInput);
+	if (!email.success || typeof password !== 'string' || password.length === 0 || password.length > 200) {
+		return { ok: false, reason: 'invalid' };
+	}
+	const throttle = await signInThrottle(email.data, address);
+	if (throttle.locked) return { ok: false, reason: 'locked', retryAfterSeconds: throttle.retryAfterSeconds };
+	const user = await User.findOne({ where: { email: email.data } });
+	const matches = await verifyPassword(password, user?.passwordHash ?? null);
+	if (!user || !matches || user.status !== 'active') {
+		await recordSignInFailure(email.data, address);
+		return { ok: false, reason: 'invalid' };
+	}
+	await clearSignInFailures(email.data);
+	return { ok: true, user };
+}

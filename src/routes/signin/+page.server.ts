@@ -1,0 +1,42 @@
+import { fail, isRedirect, redirect } from '@sveltejs/kit';
+import { CredentialsSignin } from '@auth/sveltekit';
+import { z } from 'zod';
+import type { Actions, PageServerLoad } from './$types';
+import { signIn } from '../../auth';
+import { safeNext } from '$lib/server/auth/redirects';
+
+const MESSAGES: Record<string, string> = {
+	credentials: 'That e-mail and password do not match an active account. Check both and try again.',
+	locked: 'Too many failed sign-ins for this account or from this device. Wait 15 minutes, or ask an admin to reset your password.'
+};
+
+export const load: PageServerLoad = async ({ locals, url }) => {
+	const next = safeNext(url.searchParams.get('next'));
+	if (locals.user) redirect(303, next);
+	const code = url.searchParams.get('code') ?? (url.searchParams.get('error') ? 'credentials' : null);
+	return { next, message: code ? (MESSAGES[code] ?? MESSAGES.credentials) : null };
+};
+
+const signInForm = z.object({
+	email: z.string().trim().min(1, 'Enter your e-mail address.'),
+	password: z.string().min(1, 'Enter your password.')
+});
+
+export const actions: Actions = {
+	default: async (event) => {
+		const form = Object.fromEntries(await event.request.clone().formData());
+		const parsed = signInForm.safeParse(form);
+		if (!parsed.success) {
+			return fail(400, { email: String(form.email ?? ''), message: parsed.error.issues[0].message });
+		}
+		try {
+			await signIn(event);
+		} catch (err) {
+			if (isRedirect(err)) throw err;
+			if (err instanceof CredentialsSignin) {
+				return fail(400, { email: String(form.email ?? ''), message: MESSAGES[err.code] ?? MESSAGES.credentials });
+			}
+			throw err;
+		}
+	}
+};
