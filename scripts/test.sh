@@ -1,0 +1,55 @@
+#!/usr/bin/env bash
+# npm test: unit and integration tests (vitest, real MariaDB), then end-to-end in Chromium against the built app.
+# Starts a throw-away MariaDB on its own port and stops everything it started; exits non-zero on any failure.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib.sh
+
+ensure_node_modules
+apt_install mariadbd mariadb-server
+apt_install chromium chromium
+
+export DB_DATA_DIR="${TEST_DB_DATA_DIR:-.data/test-mariadb}"
+export DB_PORT="${TEST_DB_PORT:-3317}"
+export DB_NAME=kickpanel_test
+export DB_FAST=1
+export DB_POOL_MAX=20
+export AUTH_SECRET=test-secret-not-for-production-000000
+export TEST_APP_PORT="${TEST_APP_PORT:-3117}"
+export ORIGIN="http://127.0.0.1:$TEST_APP_PORT"
+export KICKPANEL_DEV_TOOLS=1
+
+server_pid=""
+services_pid=""
+cleanup() {
+	local code=$?
+	trap - EXIT INT TERM
+	[ -n "$server_pid" ] && kill -TERM "$server_pid" 2>/dev/null && wait "$server_pid" 2>/dev/null
+	[ -n "$services_pid" ] && kill -TERM "$services_pid" 2>/dev/null && wait "$services_pid" 2>/dev/null
+	bash scripts/db.sh stop || true
+	rm -rf "$DB_DATA_DIR"
+	exit "$code"
+}
+trap cleanup EXIT INT TERM
+
+bash scripts/db.sh stop >/dev/null 2>&1 || true
+rm -rf "$DB_DATA_DIR"
+bash scripts/db.sh start
+
+log "type check"
+npx svelte-kit sync >/dev/null
+log "unit and integration tests"
+npx vitest run
+
+log "end-to-end: building and starting the app on $ORIGIN"
+npx vite build --logLevel error >/dev/null
+npx tsx scripts/migrate.ts
+npx tsx scripts/seed.ts
+PORT="$TEST_APP_PORT" HOST=127.0.0.1 NODE_ENV=production node build/index.js >.data/e2e-server.log 2>&1 &
+server_pid=$!
+if ! wait_for_http "$ORIGIN/api/health"; then
+	log "the app did not start; its log:"
+	cat .data/e2e-server.log >&2
+	exit 1
+fi
+npx vitest run --config tests/e2e/vitest.config.ts

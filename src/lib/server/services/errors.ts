@@ -1,0 +1,32 @@
+import type { MergeConflict } from '../../domain/content/merge';
+
+/** A refusal a person can act on; routes turn it into a 4xx with this message. */
+export class ServiceError extends Error {
+	constructor(
+		message: string,
+		readonly status: 400 | 403 | 404 | 409 | 413 | 415 | 422 = 400,
+		readonly fieldErrors?: Record<string, string>
+	) {
+		super(message);
+	}
+}
+
+export class NoChangeError extends ServiceError {
+	constructor() {
+		super('No change: this is the same as the current revision, so nothing was saved.', 400);
+	}
+}
+
+/** Both the editor and someone else changed the same field since the editor's base revision. */
+export class EditConflictError extends ServiceError {
+	constructor(
+		readonly conflicts: MergeConflict[],
+		readonly latestRevisionId: number,
+		readonly merged: unknown
+	) {
+		super(
+			`Someone else saved this page while you were editing, and changed ${conflicts.length === 1 ? 'a field' : `${conflicts.length} fields`} you changed too. Choose a value for each, then save again.`,
+			409
+		);
+	}
+}

@@ -1,0 +1,25 @@
+/** In-process notices after a revision is committed: the search index and watchers listen here. */
+export type RevisionWritten = {
+	kind: 'save' | 'restore' | 'hide' | 'unhide' | 'create';
+	vehicleId: number;
+	revisionId: number;
+	authorId: number;
+};
+
+type Listener = (event: RevisionWritten) => void | Promise<void>;
+const listeners = new Set<Listener>();
+
+export function onRevisionWritten(listener: Listener): () => void {
+	listeners.add(listener);
+	return () => listeners.delete(listener);
+}
+
+export async function announceRevision(event: RevisionWritten): Promise<void> {
+	for (const listener of listeners) {
+		try {
+			await listener(event);
+		} catch (err) {
+			console.error('[kickpanel] revision listener failed', err);
+		}
+	}
+}

@@ -1,0 +1,379 @@
+import { createHash } from 'node:crypto';
+import { Op, type Transaction } from 'sequelize';
+import { db } from '../db';
+import { Make, Revision, User, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
+import { canonicalJson, formatZodIssues, parseContent, SECTION_KEYS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
+import { mergeContent } from '../../domain/content/merge';
+import { fieldChanges, notesChanges } from '../../domain/content/fieldDiff';
+import { roleAtLeast } from '../../domain/roles';
+import { slugify, vehicleSlug } from '../../domain/slug';
+import type { SessionUser } from '../auth/guard';
+import { renderNotes, type RenderedNotes } from './rendering';
+import { recordAudit } from './audit';
+import { announceRevision } from './events';
+import { EditConflictError, NoChangeError, ServiceError } from './errors';
+
+export type StoredRevision = {
+	id: number;
+	vehicleId: number;
+	parentId: number | null;
+	authorId: number;
+	authorName: string;
+	summary: string;
+	content: VehicleContent;
+	rendered: RenderedNotes;
+	sha256: string;
+	size: number;
+	sizeDelta: number;
+	sections: SectionKey[];
+	restoresRevisionId: number | null;
+	hidden: boolean;
+	createdAt: Date;
+};
+
+// Revisions never change once written (only the hidden flag), so parsed copies are kept in memory.
+const cache = new Map<number, StoredRevision>();
+const CACHE_LIMIT = 4_000;
+
+function remember(rev: StoredRevision): StoredRevision {
+	if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
+	cache.set(rev.id, rev);
+	return rev;
+}
+
+function toStored(row: Revision & { author?: User | null }): StoredRevision {
+	return {
+		id: Number(row.id),
+		vehicleId: row.vehicleId,
+		parentId: row.parentId === null ? null : Number(row.parentId),
+		authorId: row.authorId,
+		authorName: row.author?.name ?? 'unknown',
+		summary: row.summary,
+		content: JSON.parse(row.content) as VehicleContent,
+		rendered: JSON.parse(row.rendered) as RenderedNotes,
+		sha256: row.sha256,
+		size: row.size,
+		sizeDelta: row.sizeDelta,
+		sections: (row.sections ? row.sections.split(',') : []) as SectionKey[],
+		restoresRevisionId: row.restoresRevisionId === null ? null : Number(row.restoresRevisionId),
+		hidden: !!row.hidden,
+		createdAt: row.createdAt
+	};
+}
+
+export async function revisionById(id: number, transaction?: Transaction): Promise<StoredRevision | null> {
+	const hit = cache.get(id);
+	if (hit && !transaction) return hit;
+	const row = await Revision.findByPk(id, { include: [{ model: User, as: 'author', attributes: ['name'] }], transaction });
+	return row ? remember(toStored(row)) : null;
+}
+
+export function validateContent(input: unknown): VehicleContent {
+	const parsed = parseContent(input);
+	if (!parsed.success) {
+		const errors = formatZodIssues(parsed.error);
+		const first = Object.entries(errors)[0];
+		throw new ServiceError(`Some fields need attention: ${first ? first[1] : 'the page is not valid.'}`, 400, errors);
+	}
+	return parsed.data;
+}
+
+export function canEditVehicle(user: SessionUser | null, vehicle: Pick<Vehicle, 'protection'>): boolean {
+	if (!roleAtLeast(user?.role, 'editor')) return false;
+	return vehicle.protection !== 'moderators' || roleAtLeast(user?.role, 'moderator');
+}
+
+function changedSections(before: VehicleContent | null, after: VehicleContent): SectionKey[] {
+	if (!before) return [...SECTION_KEYS];
+	const keys = new Set<SectionKey>();
+	for (const c of fieldChanges(before, after)) keys.add(c.section as SectionKey);
+	for (const n of notesChanges(before, after)) keys.add(n.section as SectionKey);
+	if (canonicalJson(before.photos) !== canonicalJson(after.photos)) {
+		for (const p of [...before.photos, ...after.photos]) keys.add(p.section as SectionKey);
+	}
+	return SECTION_KEYS.filter((k) => keys.has(k));
+}
+
+async function catalogueIds(content: VehicleContent, transaction: Transaction): Promise<{ makeId: number; modelId: number }> {
+	const { make: makeName, model: modelName } = content.identity;
+	const [make] = await Make.findOrCreate({ where: { name: makeName }, defaults: { name: makeName, slug: slugify(makeName) }, transaction });
+	const modelSlug = slugify(modelName);
+	const [model] = await VehicleModel.findOrCreate({
+		where: { makeId: make.id, slug: modelSlug },
+		defaults: { makeId: make.id, name: modelName, slug: modelSlug },
+		transaction
+	});
+	return { makeId: make.id, modelId: model.id };
+}
+
+/** Writes one revision and moves the page to it; the caller holds the vehicle row lock. */
+async function insertRevision(
+	vehicle: Vehicle,
+	previous: StoredRevision | null,
+	content: VehicleContent,
+	meta: { authorId: number; summary: string; restoresRevisionId?: number | null },
+	transaction: Transaction
+): Promise<Revision> {
+	const json = canonicalJson(content);
+	const size = Buffer.byteLength(json);
+	const row = await Revision.create(
+		{
+			vehicleId: vehicle.id,
+			parentId: previous?.id ?? null,
+			authorId: meta.authorId,
+			summary: meta.summary.slice(0, 500),
+			content: json,
+			rendered: JSON.stringify(renderNotes(content)),
+			sha256: createHash('sha256').update(json).digest('hex'),
+			size,
+			sizeDelta: size - (previous?.size ?? 0),
+			sections: changedSections(previous?.content ?? null, content).join(','),
+			restoresRevisionId: meta.restoresRevisionId ?? null
+		},
+		{ transaction }
+	);
+	const identity = content.identity;
+	const slug = vehicleSlug(identity);
+	if (slug !== vehicle.slug) {
+		const taken = await Vehicle.findOne({ where: { slug, id: { [Op.ne]: vehicle.id } }, transaction });
+		if (taken) {
+			throw new ServiceError('Another page already covers that make, model, years and body. Edit that page instead.', 409, {
+				'identity.model': 'Another page already has this make, model, year range and body.'
+			});
+		}
+		if (vehicle.slug) await VehicleSlug.upsert({ slug: vehicle.slug, vehicleId: vehicle.id }, { transaction });
+		await VehicleSlug.destroy({ where: { slug }, transaction });
+	}
+	const ids = await catalogueIds(content, transaction);
+	await vehicle.update(
+		{ slug, ...ids, yearFrom: identity.yearFrom, yearTo: identity.yearTo, body: identity.body, latestRevisionId: Number(row.id) },
+		{ transaction }
+	);
+	return row;
+}
+
+export async function createVehicle(input: unknown, author: SessionUser, summary = 'New page'): Promise<{ slug: string; revisionId: number }> {
+	if (!roleAtLeast(author.role, 'editor')) throw new ServiceError('Creating a page needs the editor role.', 403);
+	const content = validateContent(input);
+	const result = await db().transaction(async (transaction) => {
+		const slug = vehicleSlug(content.identity);
+		if (await Vehicle.findOne({ where: { slug }, transaction })) {
+			throw new ServiceError('A page for that make, model, years and body already exists.', 409, {
+				'identity.model': 'A page with this make, model, year range and body already exists.'
+			});
+		}
+		const ids = await catalogueIds(content, transaction);
+		const vehicle = await Vehicle.create(
+			{ slug, ...ids, yearFrom: content.identity.yearFrom, yearTo: content.identity.yearTo, body: content.identity.body, latestRevisionId: null },
+			{ transaction }
+		);
+		const row = await insertRevision(vehicle, null, content, { authorId: author.id, summary: summary || 'New page' }, transaction);
+		return { slug: vehicle.slug, revisionId: Number(row.id), vehicleId: vehicle.id };
+	});
+	await announceRevision({ kind: 'create', vehicleId: result.vehicleId, revisionId: result.revisionId, authorId: author.id });
+	return { slug: result.slug, revisionId: result.revisionId };
+}
+
+export type SaveInput = { baseRevisionId: number; content: unknown; summary: string };
+export type SaveResult = { revisionId: number; merged: boolean; slug: string };
+
+/**
+ * Saves an edit made on top of `baseRevisionId`. When someone else saved in between, the two edits are merged
+ * field by field; a field both changed differently is refused as a conflict, with everything the editor typed kept.
+ */
+export async function saveRevision(vehicleId: number, input: SaveInput, author: SessionUser): Promise<SaveResult> {
+	const yours = validateContent(input.content);
+	const result = await db().transaction(async (transaction) => {
+		const vehicle = await Vehicle.findByPk(vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!vehicle) throw new ServiceError('That vehicle page no longer exists.', 404);
+		if (!canEditVehicle(author, vehicle)) {
+			throw new ServiceError(
+				vehicle.protection === 'moderators' ? 'This page is protected: only moderators can edit it.' : 'Editing needs the editor role.',
+				403
+			);
+		}
+		const latest = await revisionById(Number(vehicle.latestRevisionId), transaction);
+		if (!latest) throw new ServiceError('This page has no current revision to edit.', 409);
+		let next = yours;
+		let merged = false;
+		if (input.baseRevisionId !== latest.id) {
+			const base = await revisionById(input.baseRevisionId, transaction);
+			if (!base || base.vehicleId !== vehicle.id) throw new ServiceError('The revision you started from is not part of this page.', 400);
+			const outcome = mergeContent(base.content, latest.content, yours);
+			if (outcome.conflicts.length) throw new EditConflictError(outcome.conflicts, latest.id, outcome.merged);
+			next = validateContent(outcome.merged);
+			merged = true;
+		}
+		if (canonicalJson(next) === canonicalJson(latest.content)) throw new NoChangeError();
+		const row = await insertRevision(vehicle, latest, next, { authorId: author.id, summary: input.summary.trim() }, transaction);
+		return { revisionId: Number(row.id), merged, slug: vehicle.slug };
+	});
+	await announceRevision({ kind: 'save', vehicleId, revisionId: result.revisionId, authorId: author.id });
+	return result;
+}
+
+/** A restore is a new revision carrying an old one's content; history is never rewritten. */
+export async function restoreRevision(vehicleId: number, revisionId: number, actor: SessionUser): Promise<SaveResult> {
+	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Restoring a revision needs the moderator role.', 403);
+	const result = await db().transaction(async (transaction) => {
+		const vehicle = await Vehicle.findByPk(vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!vehicle) throw new ServiceError('That vehicle page no longer exists.', 404);
+		const target = await revisionById(revisionId, transaction);
+		if (!target || target.vehicleId !== vehicle.id) throw new ServiceError('That revision is not part of this page.', 404);
+		if (target.hidden) throw new ServiceError('That revision is hidden; unhide it before restoring it.', 409);
+		const latest = await revisionById(Number(vehicle.latestRevisionId), transaction);
+		if (latest && latest.sha256 === target.sha256) throw new ServiceError('The page already matches that revision.', 400);
+		const when = target.createdAt.toISOString().slice(0, 16).replace('T', ' ');
+		const summary = `Restored revision ${target.id} by ${target.authorName} (${when} UTC)`;
+		const row = await insertRevision(vehicle, latest, target.content, { authorId: actor.id, summary, restoresRevisionId: target.id }, transaction);
+		await recordAudit(
+			{ actorId: actor.id, action: 'revision.restore', targetType: 'vehicle', targetId: vehicle.id, details: { restored: target.id, newRevision: Number(row.id) } },
+			transaction
+		);
+		return { revisionId: Number(row.id), merged: false, slug: vehicle.slug };
+	});
+	await announceRevision({ kind: 'restore', vehicleId, revisionId: result.revisionId, authorId: actor.id });
+	return result;
+}
+
+export async function setRevisionHidden(revisionId: number, hidden: boolean, reason: string, actor: SessionUser): Promise<void> {
+	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Hiding a revision needs the moderator role.', 403);
+	const vehicleId = await db().transaction(async (transaction) => {
+		const row = await Revision.findByPk(revisionId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!row) throw new ServiceError('That revision does not exist.', 404);
+		const vehicle = await Vehicle.findByPk(row.vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (hidden && vehicle && Number(vehicle.latestRevisionId) === Number(row.id)) {
+			throw new ServiceError('This is the current revision. Restore an earlier one (or edit the page) first, then hide this one.', 409);
+		}
+		if (!!row.hidden === hidden) return row.vehicleId;
+		await row.update({ hidden }, { transaction });
+		await recordAudit(
+			{ actorId: actor.id, action: hidden ? 'revision.hide' : 'revision.unhide', targetType: 'revision', targetId: revisionId, details: { reason, vehicleId: row.vehicleId } },
+			transaction
+		);
+		return row.vehicleId;
+	});
+	cache.delete(revisionId);
+	await announceRevision({ kind: hidden ? 'hide' : 'unhide', vehicleId, revisionId, authorId: actor.id });
+}
+
+export async function setProtection(vehicleId: number, protection: 'none' | 'moderators', actor: SessionUser): Promise<void> {
+	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Protecting a page needs the moderator role.', 403);
+	await db().transaction(async (transaction) => {
+		const vehicle = await Vehicle.findByPk(vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!vehicle) throw new ServiceError('That vehicle page no longer exists.', 404);
+		if (vehicle.protection === protection) return;
+		const from = vehicle.protection;
+		await vehicle.update({ protection }, { transaction });
+		await recordAudit({ actorId: actor.id, action: 'vehicle.protect', targetType: 'vehicle', targetId: vehicleId, details: { from, to: protection } }, transaction);
+	});
+}
+
+export type RevisionListItem = {
+	id: number;
+	parentId: number | null;
+	vehicleId: number;
+	vehicleSlug: string;
+	vehicleTitle: string;
+	author: { id: number; name: string };
+	summary: string;
+	createdAt: string;
+	size: number;
+	sizeDelta: number;
+	sections: SectionKey[];
+	hidden: boolean;
+	restoresRevisionId: number | null;
+};
+
+export const PAGE_SIZE = 50;
+
+export async function listRevisions(filter: {
+	vehicleId?: number;
+	authorId?: number;
+	section?: SectionKey;
+	page?: number;
+	pageSize?: number;
+}): Promise<{ items: RevisionListItem[]; total: number; page: number; pageSize: number }> {
+	const pageSize = Math.min(Math.max(filter.pageSize ?? PAGE_SIZE, 1), 500);
+	const page = Math.max(filter.page ?? 1, 1);
+	const where: Record<string | symbol, unknown> = {};
+	if (filter.vehicleId) where.vehicleId = filter.vehicleId;
+	if (filter.authorId) where.authorId = filter.authorId;
+	if (filter.section) where.sections = { [Op.like]: `%${filter.section}%` };
+	const { rows, count } = await Revision.findAndCountAll({
+		where,
+		attributes: ['id', 'parentId', 'vehicleId', 'authorId', 'summary', 'createdAt', 'size', 'sizeDelta', 'sections', 'hidden', 'restoresRevisionId'],
+		include: [
+			{ model: User, as: 'author', attributes: ['id', 'name'] },
+			{
+				model: Vehicle,
+				as: 'vehicle',
+				attributes: ['slug', 'yearFrom', 'yearTo'],
+				include: [
+					{ model: Make, as: 'make', attributes: ['name'] },
+					{ model: VehicleModel, as: 'model', attributes: ['name'] }
+				]
+			}
+		],
+		order: [['id', 'DESC']],
+		limit: pageSize,
+		offset: (page - 1) * pageSize
+	});
+	const items = rows.map((r) => {
+		const v = (r as Revision & { vehicle: Vehicle & { make: Make; model: VehicleModel } }).vehicle;
+		const a = (r as Revision & { author: User }).author;
+		const years = v.yearFrom === v.yearTo ? `${v.yearFrom}` : `${v.yearFrom}–${v.yearTo}`;
+		return {
+			id: Number(r.id),
+			parentId: r.parentId === null ? null : Number(r.parentId),
+			vehicleId: r.vehicleId,
+			vehicleSlug: v.slug,
+			vehicleTitle: `${v.make.name} ${v.model.name} ${years}`,
+			author: { id: a.id, name: a.name },
+			summary: r.hidden ? '' : r.summary,
+			createdAt: r.createdAt.toISOString(),
+			size: r.size,
+			sizeDelta: r.sizeDelta,
+			sections: (r.sections ? r.sections.split(',') : []) as SectionKey[],
+			hidden: !!r.hidden,
+			restoresRevisionId: r.restoresRevisionId === null ? null : Number(r.restoresRevisionId)
+		};
+	});
+	return { items, total: count, page, pageSize };
+}
+
+export type Comparison = {
+	from: StoredRevision;
+	to: StoredRevision;
+	changes: ReturnType<typeof fieldChanges>;
+	notes: ReturnType<typeof notesChanges>;
+	photos: { added: VehicleContent['photos']; removed: VehicleContent['photos'] };
+};
+
+export async function compareRevisions(
+	vehicleId: number,
+	fromId: number,
+	toId: number,
+	viewer: SessionUser,
+	units: 'metric' | 'imperial'
+): Promise<Comparison> {
+	const [from, to] = await Promise.all([revisionById(fromId), revisionById(toId)]);
+	if (!from || !to || from.vehicleId !== vehicleId || to.vehicleId !== vehicleId) {
+		throw new ServiceError('Both revisions must belong to this page.', 404);
+	}
+	if ((from.hidden || to.hidden) && !roleAtLeast(viewer.role, 'moderator')) {
+		throw new ServiceError('One of these revisions is hidden by a moderator.', 403);
+	}
+	const fromPhotos = new Set(from.content.photos.map((p) => p.id));
+	const toPhotos = new Set(to.content.photos.map((p) => p.id));
+	return {
+		from,
+		to,
+		changes: fieldChanges(from.content, to.content, { units }),
+		notes: notesChanges(from.content, to.content),
+		photos: {
+			added: to.content.photos.filter((p) => !fromPhotos.has(p.id)),
+			removed: from.content.photos.filter((p) => !toPhotos.has(p.id))
+		}
+	};
+}

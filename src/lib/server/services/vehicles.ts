@@ -1,0 +1,96 @@
+import { Op, fn, col } from 'sequelize';
+import { Make, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
+import { vehicleTitle } from '../../domain/slug';
+import { revisionById, type StoredRevision } from './revisions';
+
+export type VehicleSummary = {
+	id: number;
+	slug: string;
+	make: string;
+	model: string;
+	yearFrom: number;
+	yearTo: number;
+	body: string;
+	title: string;
+	latestRevisionId: number | null;
+	protection: 'none' | 'moderators';
+};
+
+const INCLUDE_NAMES = [
+	{ model: Make, as: 'make', attributes: ['name', 'slug'] },
+	{ model: VehicleModel, as: 'model', attributes: ['name', 'slug'] }
+];
+
+function summary(v: Vehicle): VehicleSummary {
+	const withNames = v as Vehicle & { make: Make; model: VehicleModel };
+	const base = { make: withNames.make.name, model: withNames.model.name, yearFrom: v.yearFrom, yearTo: v.yearTo };
+	return {
+		id: v.id,
+		slug: v.slug,
+		...base,
+		body: v.body,
+		title: vehicleTitle(base),
+		latestRevisionId: v.latestRevisionId === null ? null : Number(v.latestRevisionId),
+		protection: v.protection
+	};
+}
+
+export type VehicleLookup = { vehicle: VehicleSummary } | { redirectTo: string } | null;
+
+/** A page by its slug; a slug it was known by before an identity change answers with the current one. */
+export async function vehicleBySlug(slug: string): Promise<VehicleLookup> {
+	const v = await Vehicle.findOne({ where: { slug }, include: INCLUDE_NAMES });
+	if (v) return { vehicle: summary(v) };
+	const old = await VehicleSlug.findByPk(slug);
+	if (!old) return null;
+	const current = await Vehicle.findByPk(old.vehicleId, { attributes: ['slug'] });
+	return current ? { redirectTo: current.slug } : null;
+}
+
+export async function vehicleById(id: number): Promise<VehicleSummary | null> {
+	const v = await Vehicle.findByPk(id, { include: INCLUDE_NAMES });
+	return v ? summary(v) : null;
+}
+
+export async function currentRevision(vehicle: VehicleSummary): Promise<StoredRevision | null> {
+	return vehicle.latestRevisionId ? revisionById(vehicle.latestRevisionId) : null;
+}
+
+export async function listVehicles(filter: { make?: string; model?: string; year?: number; body?: string; page?: number; pageSize?: number }) {
+	const pageSize = Math.min(Math.max(filter.pageSize ?? 50, 1), 200);
+	const page = Math.max(filter.page ?? 1, 1);
+	const where: Record<string, unknown> = {};
+	if (filter.year) Object.assign(where, { yearFrom: { [Op.lte]: filter.year }, yearTo: { [Op.gte]: filter.year } });
+	if (filter.body) where.body = filter.body;
+	const include = [
+		{ model: Make, as: 'make', attributes: ['name', 'slug'], where: filter.make ? { slug: filter.make } : undefined },
+		{ model: VehicleModel, as: 'model', attributes: ['name', 'slug'], where: filter.model ? { slug: filter.model } : undefined }
+	];
+	const { rows, count } = await Vehicle.findAndCountAll({
+		where,
+		include,
+		order: [
+			[{ model: Make, as: 'make' }, 'name', 'ASC'],
+			[{ model: VehicleModel, as: 'model' }, 'name', 'ASC'],
+			['yearFrom', 'ASC']
+		],
+		limit: pageSize,
+		offset: (page - 1) * pageSize
+	});
+	return { items: rows.map(summary), total: count, page, pageSize };
+}
+
+/** Makes with their models and how many pages each has, for browsing. */
+export async function catalogue() {
+	const makes = await Make.findAll({ order: [['name', 'ASC']], include: [{ model: VehicleModel, as: 'models', attributes: ['id', 'name', 'slug'] }] });
+	const counts = await Vehicle.findAll({ attributes: ['modelId', [fn('COUNT', col('id')), 'n']], group: ['modelId'], raw: true });
+	const byModel = new Map((counts as unknown as { modelId: number; n: number }[]).map((c) => [c.modelId, Number(c.n)]));
+	return makes.map((m) => ({
+		name: m.name,
+		slug: m.slug,
+		models: ((m as Make & { models: VehicleModel[] }).models ?? [])
+			.map((mo) => ({ name: mo.name, slug: mo.slug, pages: byModel.get(mo.id) ?? 0 }))
+			.filter((mo) => mo.pages > 0)
+			.sort((a, b) => a.name.localeCompare(b.name))
+	}));
+}

@@ -1,0 +1,10 @@
+import type { Role } from '../../src/lib/domain/roles';
+import { createUser, toSessionUser } from '../../src/lib/server/services/users';
+import type { SessionUser } from '../../src/lib/server/auth/guard';
+
+let counter = 0;
+
+export async function makeUser(role: Role, name = `Test ${role} ${++counter}`): Promise<SessionUser> {
+	const user = await createUser({ email: `${role}${counter}-${Date.now()}@kickpanel.test`, name, password: 'test-password-123', role }, null);
+	return toSessionUser(user);
+}

@@ -1,0 +1,72 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb, freshDatabase } from '../helpers/database';
+import { AuditLog, User } from '../../src/lib/server/db/models';
+import { activeSessionUser, authenticate, changeRole, createUser, setUserStatus, UserError } from '../../src/lib/server/services/users';
+
+beforeAll(() => freshDatabase('users'));
+afterAll(() => closeDb());
+
+describe('staff accounts', () => {
+	it('creates a user with a bcrypt hash, never the plain password', async () => {
+		const u = await createUser({ email: 'Counter@Kickpanel.test', name: 'Counter One', password: 'counter-pass-1', role: 'viewer' }, null);
+		expect(u.email).toBe('counter@kickpanel.test');
+		const row = await User.findByPk(u.id);
+		expect(row!.passwordHash).toMatch(/^\$2[aby]\$10\$/);
+		expect(row!.passwordHash).not.toContain('counter-pass-1');
+	});
+
+	it('refuses a second account with the same e-mail', async () => {
+		await expect(
+			createUser({ email: 'counter@kickpanel.test', name: 'Again', password: 'counter-pass-1', role: 'viewer' }, null)
+		).rejects.toThrow(UserError);
+	});
+
+	it('signs in with the right password and gives the same answer for a wrong password or an unknown e-mail', async () => {
+		expect((await authenticate('counter@kickpanel.test', 'counter-pass-1', '10.0.0.1')).ok).toBe(true);
+		const wrong = await authenticate('counter@kickpanel.test', 'nope-nope-nope', '10.0.0.1');
+		const unknown = await authenticate('nobody@kickpanel.test', 'nope-nope-nope', '10.0.0.1');
+		expect(wrong).toEqual({ ok: false, reason: 'invalid' });
+		expect(unknown).toEqual({ ok: false, reason: 'invalid' });
+	});
+
+	it('locks an account after repeated failures, even with the right password', async () => {
+		await createUser({ email: 'target@kickpanel.test', name: 'Target', password: 'target-pass-1', role: 'editor' }, null);
+		for (let i = 0; i < 5; i++) await authenticate('target@kickpanel.test', 'wrong-wrong-wrong', `10.1.0.${i}`);
+		const locked = await authenticate('target@kickpanel.test', 'target-pass-1', '10.1.0.99');
+		expect(locked.ok).toBe(false);
+		expect(locked.ok === false && locked.reason).toBe('locked');
+	});
+
+	it('locks a client address that tries many accounts', async () => {
+		for (let i = 0; i < 20; i++) await authenticate(`spray${i}@kickpanel.test`, 'wrong-wrong-wrong', '10.2.0.1');
+		const result = await authenticate('counter@kickpanel.test', 'counter-pass-1', '10.2.0.1');
+		expect(result.ok === false && result.reason).toBe('locked');
+	});
+
+	it('records role changes and disables in the audit log, and the session loses access at once', async () => {
+		const admin = await createUser({ email: 'owner@kickpanel.test', name: 'Owner', password: 'owner-pass-12', role: 'admin' }, null);
+		const staff = await createUser({ email: 'staff@kickpanel.test', name: 'Staff', password: 'staff-pass-12', role: 'editor' }, null);
+		expect((await activeSessionUser(staff.id, 1))?.role).toBe('editor');
+
+		await changeRole(staff.id, 'viewer', admin.id);
+		expect((await activeSessionUser(staff.id, 1))?.role).toBe('viewer');
+
+		await setUserStatus(staff.id, 'disabled', admin.id);
+		expect(await activeSessionUser(staff.id, 1)).toBeNull();
+		expect((await authenticate('staff@kickpanel.test', 'staff-pass-12', '10.3.0.1')).ok).toBe(false);
+
+		const log = await AuditLog.findAll({ where: { targetId: String(staff.id) }, order: [['id', 'ASC']] });
+		expect(log.map((l) => [l.action, JSON.parse(l.details)])).toEqual([
+			['user.create', { role: 'editor' }],
+			['user.role', { from: 'editor', to: 'viewer' }],
+			['user.status', { from: 'active', to: 'disabled' }]
+		]);
+		expect(log[1].actorId).toBe(admin.id);
+	});
+
+	it('does not let an admin demote or disable themselves', async () => {
+		const admin = await User.findOne({ where: { email: 'owner@kickpanel.test' } });
+		await expect(changeRole(admin!.id, 'viewer', admin!.id)).rejects.toThrow(/own role/);
+		await expect(setUserStatus(admin!.id, 'disabled', admin!.id)).rejects.toThrow(/own account/);
+	});
+});
