@@ -49,7 +49,7 @@ if wait_for_http "http://127.0.0.1:$PORT/api/health"; then
 
   Kickpanel is running at $ORIGIN
   Sample sign-ins (sample data; change them before real use):
-$(node -e "for (const u of require('./content-seed/users.json')) console.log('    ' + u.role.padEnd(10) + u.email.padEnd(30) + u.password)")
+$(node -e "for (const u of require('./content-seed/users.json').users) console.log('    ' + u.role.padEnd(10) + u.email.padEnd(30) + u.password)")
 
   Ctrl-C stops the server and the database it started.
 

@@ -2,6 +2,7 @@ import { Op, fn, col } from 'sequelize';
 import { Make, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
 import { vehicleTitle } from '../../domain/slug';
 import { revisionById, type StoredRevision } from './revisions';
+import { ServiceError } from './errors';
 
 export type VehicleSummary = {
 	id: number;
@@ -93,4 +94,15 @@ export async function catalogue() {
 			.filter((mo) => mo.pages > 0)
 			.sort((a, b) => a.name.localeCompare(b.name))
 	}));
+}
+
+/** The page behind a slug (following a renamed slug), or a 404 a person understands. */
+export async function requireVehicle(slug: string): Promise<VehicleSummary> {
+	const found = await vehicleBySlug(slug);
+	if (found && 'redirectTo' in found) {
+		const moved = await vehicleBySlug(found.redirectTo);
+		if (moved && 'vehicle' in moved) return moved.vehicle;
+	}
+	if (!found || !('vehicle' in found)) throw new ServiceError('No vehicle page at this address.', 404);
+	return found.vehicle;
 }

@@ -1,0 +1,51 @@
+import { error, isHttpError, json } from '@sveltejs/kit';
+import type { ZodType } from 'zod';
+import { EditConflictError, ServiceError } from './services/errors';
+import { fieldMessages } from './forms';
+
+/** Runs an API handler body and answers refusals as JSON 4xx with a message a person understands. */
+export async function apiCall(body: () => Promise<Response>): Promise<Response> {
+	try {
+		return await body();
+	} catch (err) {
+		if (err instanceof EditConflictError) {
+			return json({ message: err.message, conflicts: err.conflicts, latestRevisionId: err.latestRevisionId }, { status: 409 });
+		}
+		if (err instanceof ServiceError) {
+			return json({ message: err.message, fieldErrors: err.fieldErrors }, { status: err.status });
+		}
+		if (isHttpError(err)) return json({ message: err.body.message }, { status: err.status });
+		throw err;
+	}
+}
+
+export async function readJson<T>(request: Request, schema: ZodType<T>): Promise<T> {
+	let raw: unknown;
+	try {
+		raw = await request.json();
+	} catch {
+		throw new ServiceError('The request body must be JSON.', 400);
+	}
+	const parsed = schema.safeParse(raw);
+	if (!parsed.success) {
+		const fields = fieldMessages(parsed.error);
+		throw new ServiceError(Object.entries(fields).map(([k, v]) => (k === 'form' ? v : `${k}: ${v}`)).join(' '), 400, fields);
+	}
+	return parsed.data;
+}
+
+export function queryInt(url: URL, name: string, range: { min: number; max: number }): number | undefined {
+	const raw = url.searchParams.get(name);
+	if (raw === null || raw === '') return undefined;
+	const n = Number(raw);
+	if (!Number.isInteger(n) || n < range.min || n > range.max) {
+		error(400, `"${name}" must be a whole number from ${range.min} to ${range.max}.`);
+	}
+	return n;
+}
+
+/** For pages and form actions: a service refusal becomes an HTTP error page with its message. */
+export function asHttpError(err: unknown): never {
+	if (err instanceof ServiceError) error(err.status, err.message);
+	throw err;
+}

@@ -1,0 +1,42 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import type { RequestHandler } from './$types';
+import { requireRole } from '$lib/server/auth/guard';
+import { apiCall, readJson } from '$lib/server/http';
+import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
+import { saveRevision } from '$lib/server/services/revisions';
+
+export const GET: RequestHandler = ({ locals, params }) =>
+	apiCall(async () => {
+		requireRole(locals, 'viewer');
+		const vehicle = await requireVehicle(params.slug);
+		const rev = await currentRevision(vehicle);
+		return json({
+			slug: vehicle.slug,
+			make: vehicle.make,
+			model: vehicle.model,
+			yearFrom: vehicle.yearFrom,
+			yearTo: vehicle.yearTo,
+			body: vehicle.body,
+			protection: vehicle.protection,
+			revisionId: rev?.id ?? null,
+			changedAt: rev?.createdAt.toISOString() ?? null,
+			changedBy: rev?.authorName ?? null,
+			content: rev?.content ?? null
+		});
+	});
+
+const saveBody = z.object({
+	baseRevisionId: z.number({ error: 'baseRevisionId must be the id of the revision you edited.' }).int().positive(),
+	content: z.unknown(),
+	summary: z.string({ error: 'summary must be text.' }).max(500, 'Keep the summary under 500 characters.').default('')
+});
+
+export const PUT: RequestHandler = ({ locals, params, request }) =>
+	apiCall(async () => {
+		const user = requireRole(locals, 'editor');
+		const body = await readJson(request, saveBody);
+		const vehicle = await requireVehicle(params.slug);
+		const saved = await saveRevision(vehicle.id, body, user);
+		return json({ revisionId: saved.revisionId, merged: saved.merged, slug: saved.slug });
+	});

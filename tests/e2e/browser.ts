@@ -1,0 +1,44 @@
+import { mkdtempSync, readFileSync, rmSync, mkdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+export const BASE = process.env.ORIGIN ?? 'http://127.0.0.1:3117';
+export const PHONE = { width: 390, height: 844 };
+export const DESKTOP = { width: 1280, height: 900 };
+
+type SeedUser = { email: string; password: string; role: string; name: string };
+export const seedUsers: SeedUser[] = JSON.parse(readFileSync(new URL('../../content-seed/users.json', import.meta.url), 'utf8')).users;
+export const userFor = (role: string) => seedUsers.find((u) => u.role === role)!;
+
+export async function openBrowser(viewport = DESKTOP): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
+	const dir = mkdtempSync(join(tmpdir(), 'kickpanel-e2e-'));
+	const context = await chromium.launchPersistentContext(dir, {
+		executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+		headless: true,
+		viewport,
+		args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync']
+	});
+	return {
+		context,
+		close: async () => {
+			await context.close();
+			rmSync(dir, { recursive: true, force: true });
+		}
+	};
+}
+
+export async function signIn(page: Page, role: string): Promise<SeedUser> {
+	const user = userFor(role);
+	await page.goto(`${BASE}/signin`);
+	await page.fill('#email', user.email);
+	await page.fill('#password', user.password);
+	await Promise.all([page.waitForURL((url) => !url.pathname.startsWith('/signin')), page.click('button:has-text("Sign in")')]);
+	return user;
+}
+
+export async function screenshot(page: Page, name: string): Promise<void> {
+	const dir = new URL('./screenshots/', import.meta.url).pathname;
+	mkdirSync(dir, { recursive: true });
+	await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
+}
