@@ -18,6 +18,9 @@ export AUTH_SECRET=test-secret-not-for-production-000000
 export TEST_APP_PORT="${TEST_APP_PORT:-3117}"
 export ORIGIN="http://127.0.0.1:$TEST_APP_PORT"
 export KICKPANEL_DEV_TOOLS=1
+# Local stand-ins for hosted services listen on their own test ports.
+export VIN_DECODE_PORT=3392 S3_FAKE_PORT=4570 SMTP_CAPTURE_PORT=2526
+export VIN_DECODE_URL="http://127.0.0.1:$VIN_DECODE_PORT"
 
 server_pid=""
 services_pid=""
@@ -42,6 +45,8 @@ log "unit and integration tests"
 npx vitest run
 
 log "end-to-end: building and starting the app on $ORIGIN"
+npx tsx scripts/services.ts >.data/e2e-services.log 2>&1 &
+services_pid=$!
 npx vite build --logLevel error >/dev/null
 npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts
