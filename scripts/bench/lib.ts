@@ -1,0 +1,70 @@
+// Helpers shared by the benchmarks: a private MariaDB of their own, the built app, timing.
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+
+export function percentile(sorted: number[], p: number): number {
+	if (sorted.length === 0) return NaN;
+	const i = Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1));
+	return sorted[i];
+}
+
+export function summarize(samplesMs: number[]) {
+	const s = [...samplesMs].sort((a, b) => a - b);
+	return { n: s.length, p50: percentile(s, 50), p95: percentile(s, 95), p99: percentile(s, 99), max: s[s.length - 1] };
+}
+
+export function benchDatabase(name: string, port: number, bufferPool = '512M') {
+	const env = { ...process.env, DB_DATA_DIR: `.data/bench-${name}-mariadb`, DB_PORT: String(port), DB_BUFFER_POOL: bufferPool, DB_FAST: '1' };
+	return {
+		env,
+		start() {
+			execFileSync('bash', ['scripts/db.sh', 'reset'], { env, stdio: 'inherit' });
+			process.env.DB_PORT = String(port);
+		},
+		stop() {
+			execFileSync('bash', ['scripts/db.sh', 'stop'], { env, stdio: 'inherit' });
+			execFileSync('rm', ['-rf', env.DB_DATA_DIR]);
+		}
+	};
+}
+
+export async function startBuiltApp(port: number, env: NodeJS.ProcessEnv): Promise<ChildProcess> {
+	execFileSync('bash', ['-c', 'source scripts/lib.sh && ensure_build'], { stdio: 'inherit' });
+	const child = spawn('node', ['build/index.js'], {
+		env: { ...process.env, ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}`, NODE_ENV: 'production' },
+		stdio: ['ignore', 'ignore', 'inherit']
+	});
+	for (let i = 0; i < 200; i++) {
+		try {
+			const res = await fetch(`http://127.0.0.1:${port}/api/health`);
+			if (res.ok) return child;
+		} catch {
+			/* not up yet */
+		}
+		await new Promise((r) => setTimeout(r, 100));
+	}
+	child.kill();
+	throw new Error('the app did not start');
+}
+
+/** Signs in through the real sign-in form and returns the session cookie header. */
+export async function signInCookie(base: string, email: string, password: string): Promise<string> {
+	const body = new URLSearchParams({ email, password, providerId: 'credentials', redirectTo: '/' });
+	const res = await fetch(`${base}/signin`, {
+		method: 'POST',
+		body,
+		redirect: 'manual',
+		headers: { origin: base, 'content-type': 'application/x-www-form-urlencoded' }
+	});
+	const cookies = res.headers.getSetCookie().map((c) => c.split(';')[0]);
+	const session = cookies.find((c) => c.startsWith('authjs.session-token='));
+	if (!session) throw new Error(`sign-in failed (${res.status})`);
+	return session;
+}
+
+export function writeResults(name: string, results: unknown) {
+	mkdirSync('bench-results', { recursive: true });
+	writeFileSync(`bench-results/${name}.json`, JSON.stringify(results, null, 2));
+}
+
+export const fmt = (ms: number) => `${ms.toFixed(ms < 10 ? 2 : 1)} ms`;

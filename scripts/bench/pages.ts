@@ -1,0 +1,148 @@
+// npm run bench:pages — vehicle page render times and throughput at 10,000 vehicles / 100,000 revisions.
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import http from 'node:http';
+import autocannon from 'autocannon';
+import mariadb from 'mariadb';
+import { benchDatabase, fmt, signInCookie, startBuiltApp, summarize, writeResults } from './lib';
+import { canonicalJson, type VehicleContent } from '../../src/lib/domain/content/schema';
+import { vehicleSlug } from '../../src/lib/domain/slug';
+import { renderNotes } from '../../src/lib/server/services/rendering';
+
+const VEHICLES = Number(process.env.BENCH_VEHICLES ?? 10_000);
+const REVISIONS = Number(process.env.BENCH_REVISIONS ?? 100_000);
+const LONG_HISTORY = 500;
+const DB_PORT = 3337;
+const APP_PORT = 3338;
+const PLAIN_PORT = 3339;
+
+const templates: VehicleContent[] = JSON.parse(readFileSync('content-seed/vehicles.json', 'utf8')).vehicles;
+const db = benchDatabase('pages', DB_PORT, '1G');
+db.start();
+process.env.DB_NAME = 'kickpanel';
+const { migrateToLatest } = await import('../../src/lib/server/db/migrate');
+const { closeDb } = await import('../../src/lib/server/db');
+const { createUser } = await import('../../src/lib/server/services/users');
+await migrateToLatest();
+const viewer = await createUser({ email: 'bench-viewer@kickpanel.test', name: 'Bench Viewer', password: 'bench-viewer-pass', role: 'viewer' }, null);
+const writer = await createUser({ email: 'bench-writer@kickpanel.test', name: 'Bench Writer', password: 'bench-writer-pass', role: 'editor' }, null);
+await closeDb();
+
+const conn = await mariadb.createConnection({ host: '127.0.0.1', port: DB_PORT, user: 'kickpanel', password: 'kickpanel-local', database: 'kickpanel' });
+console.log(`[bench] generating ${VEHICLES} vehicles with ${REVISIONS} revisions…`);
+const t0 = performance.now();
+const makes = Array.from({ length: 40 }, (_, i) => `Benchmake ${String.fromCharCode(65 + (i % 26))}${i}`);
+await conn.batch('INSERT INTO makes (id, name, slug) VALUES (?, ?, ?)', makes.map((m, i) => [i + 1, m, m.toLowerCase().replace(/\s+/g, '-')]));
+const modelRows: [number, number, string, string][] = [];
+for (let i = 0; i < VEHICLES / 5; i++) modelRows.push([i + 1, (i % makes.length) + 1, `Model ${i}`, `model-${i}`]);
+await conn.batch('INSERT INTO models (id, make_id, name, slug) VALUES (?, ?, ?, ?)', modelRows);
+
+const perVehicle = Math.max(1, Math.floor((REVISIONS - LONG_HISTORY) / VEHICLES));
+let revisionId = 0;
+let largest: { vehicle: number; ids: number[] } = { vehicle: 1, ids: [] };
+const now = Date.now();
+for (let start = 0; start < VEHICLES; start += 500) {
+	const vehicleRows: unknown[][] = [];
+	const revisionRows: unknown[][] = [];
+	for (let v = start; v < Math.min(VEHICLES, start + 500); v++) {
+		const model = modelRows[v % modelRows.length];
+		const template = structuredClone(templates[v % templates.length]);
+		const yearFrom = 1995 + (v % 25);
+		template.identity = { ...template.identity, make: makes[model[1] - 1], model: model[2], yearFrom, yearTo: yearFrom + (v % 6), notes: template.identity.notes + `\n\nBench page ${v}.` };
+		const slug = vehicleSlug(template.identity) + `-${v}`;
+		const count = v === 0 ? LONG_HISTORY : perVehicle;
+		let parent: number | null = null;
+		let previousSize = 0;
+		const ids: number[] = [];
+		for (let r = 0; r < count; r++) {
+			const content = structuredClone(template);
+			if (content.seats.spaces[0]) content.seats.spaces[0].heightMm = 60 + ((v + r) % 60);
+			content.removal.notes = `${content.removal.notes}\n\nRevision ${r}: re-measured after job ${v * 100 + r}.`.repeat(v === 0 && r % 2 ? 8 : 1);
+			const json = canonicalJson(content);
+			const id = ++revisionId;
+			ids.push(id);
+			revisionRows.push([id, v + 1, parent, writer.id, `Bench edit ${r}`, json, JSON.stringify(renderNotes(content)), createHash('sha256').update(json).digest('hex'), json.length, json.length - previousSize, 'seats,removal', new Date(now - (count - r) * 60_000)]);
+			previousSize = json.length;
+			parent = id;
+		}
+		if (v === 0) largest = { vehicle: 1, ids };
+		vehicleRows.push([v + 1, slug, model[1], model[0], template.identity.yearFrom, template.identity.yearTo, template.identity.body, parent, new Date(), new Date()]);
+	}
+	await conn.batch('INSERT INTO vehicles (id, slug, make_id, model_id, year_from, year_to, body, latest_revision_id, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, NULL, ?, ?)', vehicleRows.map((r) => [r[0], r[1], r[2], r[3], r[4], r[5], r[6], r[8], r[9]]));
+	for (let k = 0; k < revisionRows.length; k += 1000) {
+		await conn.batch(
+			'INSERT INTO revisions (id, vehicle_id, parent_id, author_id, summary, content, rendered, sha256, size, size_delta, sections, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
+			revisionRows.slice(k, k + 1000)
+		);
+	}
+	await conn.batch('UPDATE vehicles SET latest_revision_id = ? WHERE id = ?', vehicleRows.map((r) => [r[7], r[0]]));
+}
+const slugs: string[] = (await conn.query('SELECT slug FROM vehicles ORDER BY id')).map((r: { slug: string }) => r.slug);
+await conn.end();
+console.log(`[bench] data ready in ${((performance.now() - t0) / 1000).toFixed(1)} s (${revisionId} revisions)`);
+
+const base = `http://127.0.0.1:${APP_PORT}`;
+const app = await startBuiltApp(APP_PORT, { ...db.env, DB_NAME: 'kickpanel', AUTH_SECRET: 'bench-secret-bench-secret-bench-secret', DB_POOL_MAX: '20' });
+let plain: http.Server | null = null;
+try {
+	const cookie = await signInCookie(base, 'bench-viewer@kickpanel.test', 'bench-viewer-pass');
+	const get = async (path: string) => {
+		const t = performance.now();
+		const res = await fetch(base + path, { headers: { cookie } });
+		const body = await res.text();
+		if (res.status !== 200) throw new Error(`${path} answered ${res.status}`);
+		return { ms: performance.now() - t, body };
+	};
+	// Warm: first views of each page parse and cache their revision.
+	for (let i = 0; i < 300; i++) await get(`/vehicles/${slugs[(i * 37) % slugs.length]}`);
+	const render: number[] = [];
+	for (let i = 0; i < 500; i++) render.push((await get(`/vehicles/${slugs[(i * 7919) % slugs.length]}`)).ms);
+	const cold: number[] = [];
+	for (let i = 0; i < 200; i++) cold.push((await get(`/vehicles/${slugs[(i * 104729 + 17) % slugs.length]}`)).ms);
+	const history: number[] = [];
+	for (let i = 0; i < 20; i++) history.push((await get(`/vehicles/${slugs[0]}/history`)).ms);
+	const compare: number[] = [];
+	const [a, b] = [largest.ids[1], largest.ids[largest.ids.length - 1]];
+	for (let i = 0; i < 20; i++) compare.push((await get(`/vehicles/${slugs[0]}/compare?from=${a}&to=${b}`)).ms);
+
+	const target = `/vehicles/${slugs[42]}`;
+	const html = (await get(target)).body;
+	plain = http.createServer((_req, res) => {
+		res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' });
+		res.end(html);
+	});
+	await new Promise<void>((r) => plain!.listen(PLAIN_PORT, '127.0.0.1', r));
+	const load = (url: string, headers: Record<string, string>) =>
+		autocannon({ url, connections: 50, duration: Number(process.env.BENCH_SECONDS ?? 10), headers });
+	const plainRun = await load(`http://127.0.0.1:${PLAIN_PORT}/`, {});
+	const pageRun = await load(base + target, { cookie });
+	const results = {
+		vehicles: VEHICLES,
+		revisions: revisionId,
+		renderWarmMs: summarize(render),
+		renderFirstViewMs: summarize(cold),
+		history500Ms: summarize(history),
+		compareLargeMs: summarize(compare),
+		compareBytes: html.length,
+		plain: { rps: plainRun.requests.average, p99: plainRun.latency.p99 },
+		page: { rps: pageRun.requests.average, p99: pageRun.latency.p99, errors: pageRun.errors, non2xx: pageRun.non2xx },
+		ratio: pageRun.requests.average / plainRun.requests.average
+	};
+	writeResults('pages', results);
+	console.log(`
+vehicle page, ${VEHICLES} vehicles / ${revisionId} revisions
+  server render (cached revision)  p50 ${fmt(results.renderWarmMs.p50)}  p95 ${fmt(results.renderWarmMs.p95)}
+  server render (first view)       p50 ${fmt(results.renderFirstViewMs.p50)}  p95 ${fmt(results.renderFirstViewMs.p95)}
+  history, ${LONG_HISTORY} revisions           p50 ${fmt(results.history500Ms.p50)}  p95 ${fmt(results.history500Ms.p95)}
+  compare, two large revisions     p50 ${fmt(results.compareLargeMs.p50)}  p95 ${fmt(results.compareLargeMs.p95)}
+autocannon, 50 connections
+  plain node http                  ${results.plain.rps.toFixed(0)} req/s  p99 ${results.plain.p99} ms
+  vehicle page (viewer)            ${results.page.rps.toFixed(0)} req/s  p99 ${results.page.p99} ms  (non-2xx ${results.page.non2xx})
+  ratio                            ${results.ratio.toFixed(3)}  (target ≥ 0.1, p99 ≤ 100 ms)
+`);
+} finally {
+	plain?.close();
+	app.kill('SIGTERM');
+	await new Promise((r) => app.once('exit', r));
+	db.stop();
+}

@@ -1,0 +1,280 @@
+import { z } from 'zod';
+
+export type Axis = 'l' | 'w' | 'h';
+export type FitVerdict = 'fits' | 'tight' | 'no-fit' | 'not-measured';
+
+/** A part's outside size in mm. */
+export interface Box {
+	l: number;
+	w: number;
+	h: number;
+}
+
+/** A recorded space in mm; null (or NaN) where nobody has measured it yet. */
+export interface Space {
+	l: number | null;
+	w: number | null;
+	h: number | null;
+}
+
+export interface FitOptions {
+	/** Taken off every axis for cables and air; common practice is about 10 mm. */
+	clearanceMm?: number;
+	/** Below this margin (after clearance) a fit is called tight: it goes in, but check on the car. */
+	tightMm?: number;
+}
+
+export type FitResult =
+	| { verdict: 'fits' | 'tight' | 'no-fit'; rotated: boolean; margins: Record<Axis, number>; limiting: Axis }
+	| { verdict: 'not-measured'; rotated: false; margins: null; limiting: null };
+
+export const DEFAULT_CLEARANCE_MM = 10;
+export const DEFAULT_TIGHT_MM = 15;
+export const MAX_DIMENSION_MM = 5000;
+
+const dimension = (what: string) =>
+	z
+		.number({ error: `${what} must be a number of millimetres.` })
+		.positive(`${what} must be more than 0 mm.`)
+		.max(MAX_DIMENSION_MM, `${what} over ${MAX_DIMENSION_MM} mm looks like a typo; sizes are in millimetres.`);
+
+const measured = (what: string) =>
+	z.preprocess(
+		(v) => (v === undefined || (typeof v === 'number' && Number.isNaN(v)) ? null : v),
+		dimension(what).nullable()
+	);
+
+const allowance = (what: string) =>
+	z
+		.number({ error: `${what} must be a number of millimetres.` })
+		.min(0, `${what} cannot be negative.`)
+		.max(500, `${what} over 500 mm looks like a typo.`)
+		.optional();
+
+export const fitInputSchema = z.object({
+	box: z.object({ l: dimension('Part length'), w: dimension('Part width'), h: dimension('Part height') }),
+	space: z.object({ l: measured('Space length'), w: measured('Space width'), h: measured('Space height') }),
+	options: z.object({ clearanceMm: allowance('Clearance'), tightMm: allowance('Tight threshold') }).optional()
+});
+export type FitInput = z.input<typeof fitInputSchema>;
+
+function parseInput<T>(schema: z.ZodType<T>, input: unknown): T {
+	const result = schema.safeParse(input);
+	if (!result.success) throw new RangeError(result.error.issues.map((i) => i.message).join(' '));
+	return result.data;
+}
+
+// One expression shared with SeatSpaceIndex so both give identical margins.
+const margin = (space: number, part: number, clearance: number): number => space - (part + clearance);
+
+function verdictOf(minMargin: number, tightMm: number): 'fits' | 'tight' | 'no-fit' {
+	return minMargin < 0 ? 'no-fit' : minMargin < tightMm ? 'tight' : 'fits';
+}
+
+/**
+ * A part's box against a space: the part may turn on the floor (length and width swap), height
+ * stays vertical. The orientation with the larger smallest margin is reported.
+ */
+export function fitVerdict(box: Box, space: Space, opts: FitOptions = {}): FitResult {
+	const input = parseInput(fitInputSchema, { box, space, options: opts });
+	const { l, w, h } = input.space;
+	if (l === null || w === null || h === null) {
+		return { verdict: 'not-measured', rotated: false, margins: null, limiting: null };
+	}
+	const c = input.options?.clearanceMm ?? DEFAULT_CLEARANCE_MM;
+	const tightMm = input.options?.tightMm ?? DEFAULT_TIGHT_MM;
+	const b = input.box;
+	const straight = { l: margin(l, b.l, c), w: margin(w, b.w, c), h: margin(h, b.h, c) };
+	const turned = { l: margin(l, b.w, c), w: margin(w, b.l, c), h: straight.h };
+	const rotated = smallest(turned) > smallest(straight);
+	const margins = rotated ? turned : straight;
+	const limiting = (['l', 'w', 'h'] as const).reduce((a, x) => (margins[x] < margins[a] ? x : a));
+	return { verdict: verdictOf(margins[limiting], tightMm), rotated, margins, limiting };
+}
+
+const smallest = (m: Record<Axis, number>): number => Math.min(m.l, m.w, m.h);
+
+// ISO 7736 chassis sizes as widely quoted (width × height); the standard's own text was not at hand.
+export const DIN_CHASSIS_MM = { 1: { w: 180, h: 50 }, 2: { w: 180, h: 100 } } as const;
+
+export type DinSize = 1 | 2;
+export type DashOpening = 'single-din' | 'double-din' | 'oversize' | 'integrated';
+
+export interface DepthFit {
+	verdict: FitVerdict;
+	/** Depth left behind the chassis after clearance for the harness plugs; null if not measured or no opening. */
+	depthMarginMm: number | null;
+	/** A dash kit, pocket or trim ring is needed around the unit. */
+	needsKit: boolean;
+	reason: string;
+}
+
+export function headUnitFit(
+	unit: { dinSize: DinSize; chassisDepthMm: number },
+	dash: { opening: DashOpening; depthMm: number | null },
+	opts: FitOptions = {}
+): DepthFit {
+	if (unit.dinSize !== 1 && unit.dinSize !== 2) {
+		throw new RangeError('A head unit is single DIN (1) or double DIN (2).');
+	}
+	const chassisDepth = parseInput(dimension('Chassis depth'), unit.chassisDepthMm);
+	const depth = parseInput(measured('Dash depth'), dash.depthMm);
+	const size = DIN_CHASSIS_MM[unit.dinSize];
+	const face = `${unit.dinSize === 1 ? 'single' : 'double'}-DIN unit (${size.w} × ${size.h} mm)`;
+
+	if (dash.opening === 'integrated') {
+		return {
+			verdict: 'no-fit',
+			depthMarginMm: null,
+			needsKit: true,
+			reason: 'The factory unit is built into the dash; a vehicle-specific dash kit is needed before any DIN unit fits.'
+		};
+	}
+	if (dash.opening === 'single-din' && unit.dinSize === 2) {
+		const reason = `A ${face} does not go into a single-DIN opening.`;
+		return { verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+	}
+	// A smaller unit in a larger opening takes a pocket or trim kit (common practice).
+	const needsKit = dash.opening === 'oversize' || (dash.opening === 'double-din' && unit.dinSize === 1);
+	const kit = needsKit ? ' with a dash kit' : '';
+	if (depth === null) {
+		const reason = `The face fits${kit}; the dash depth is not measured yet.`;
+		return { verdict: 'not-measured', depthMarginMm: null, needsKit, reason };
+	}
+	const depthMarginMm = margin(depth, chassisDepth, opts.clearanceMm ?? DEFAULT_CLEARANCE_MM);
+	const verdict = verdictOf(depthMarginMm, opts.tightMm ?? DEFAULT_TIGHT_MM);
+	const reason =
+		verdict === 'no-fit'
+			? `The chassis is ${Math.round(-depthMarginMm)} mm too deep for the dash (clearance for plugs included).`
+			: `Fits${kit}, ${Math.round(depthMarginMm)} mm to spare behind the chassis after clearance.`;
+	return { verdict, depthMarginMm, needsKit, reason };
+}
+
+// A speaker frame overlaps its hole by only a few mm; a hole more than this much larger needs an adapter ring (common practice).
+export const ADAPTER_RING_OVER_MM = 10;
+// Under 5 mm to spare on cut-out or depth is called tight (a product choice, like DEFAULT_TIGHT_MM).
+export const DEFAULT_SPEAKER_TIGHT_MM = 5;
+
+export interface SpeakerFitResult {
+	verdict: FitVerdict;
+	margins: { cutout: number; depth: number } | null;
+	limiting: 'cutout' | 'depth' | null;
+	needsAdapter: boolean;
+}
+
+/** A speaker's cut-out and mounting depth against the largest cut-out and the depth a location allows. */
+export function speakerFit(
+	speaker: { cutoutMm: number; mountingDepthMm: number },
+	location: { cutoutMm: number | null; depthMm: number | null },
+	opts: { tightMm?: number } = {}
+): SpeakerFitResult {
+	const needCutout = parseInput(dimension('Speaker cut-out'), speaker.cutoutMm);
+	const needDepth = parseInput(dimension('Speaker mounting depth'), speaker.mountingDepthMm);
+	const cutout = parseInput(measured('Location cut-out'), location.cutoutMm);
+	const depth = parseInput(measured('Location depth'), location.depthMm);
+	if (cutout === null || depth === null) {
+		return { verdict: 'not-measured', margins: null, limiting: null, needsAdapter: false };
+	}
+	const margins = { cutout: cutout - needCutout, depth: depth - needDepth };
+	const limiting = margins.depth < margins.cutout ? 'depth' : 'cutout';
+	return {
+		verdict: verdictOf(margins[limiting], opts.tightMm ?? DEFAULT_SPEAKER_TIGHT_MM),
+		margins,
+		limiting,
+		needsAdapter: margins.cutout > ADAPTER_RING_OVER_MM
+	};
+}
+
+export interface SeatSpaceRow {
+	vehicleIndex: number;
+	seat: string;
+	l: number | null;
+	w: number | null;
+	h: number | null;
+}
+
+export interface SeatSpaceMatches {
+	/** Row numbers in the index whose space takes the part. */
+	rows: Int32Array;
+	/** 1 where that row's fit is tight, 0 where it fits with room to spare. */
+	tight: Uint8Array;
+}
+
+/** Column store of every recorded seat space, for "which vehicles does this part fit". */
+export class SeatSpaceIndex {
+	readonly size: number;
+	readonly vehicleIndex: Int32Array;
+	readonly seatCode: Uint8Array;
+	readonly seatNames: string[] = [];
+	readonly l: Float32Array;
+	readonly w: Float32Array;
+	readonly h: Float32Array;
+
+	constructor(rows: readonly SeatSpaceRow[]) {
+		const n = rows.length;
+		this.size = n;
+		this.vehicleIndex = new Int32Array(n);
+		this.seatCode = new Uint8Array(n);
+		this.l = new Float32Array(n);
+		this.w = new Float32Array(n);
+		this.h = new Float32Array(n);
+		const codes = new Map<string, number>();
+		rows.forEach((row, i) => {
+			if (!Number.isInteger(row.vehicleIndex)) throw new RangeError(`Row ${i}: vehicle index must be a whole number.`);
+			let code = codes.get(row.seat);
+			if (code === undefined) {
+				if (codes.size === 255) throw new RangeError('More than 255 seat names.');
+				code = codes.size;
+				codes.set(row.seat, code);
+				this.seatNames.push(row.seat);
+			}
+			this.vehicleIndex[i] = row.vehicleIndex;
+			this.seatCode[i] = code;
+			this.l[i] = column(row.l, i, 'length');
+			this.w[i] = column(row.w, i, 'width');
+			this.h[i] = column(row.h, i, 'height');
+		});
+	}
+
+	seat(row: number): string {
+		return this.seatNames[this.seatCode[row]];
+	}
+
+	/** The space as stored (single precision), null where not measured. */
+	space(row: number): Space {
+		const v = (x: number) => (Number.isNaN(x) ? null : x);
+		return { l: v(this.l[row]), w: v(this.w[row]), h: v(this.h[row]) };
+	}
+
+	/** Rows whose verdict for the box is fits or tight, in row order. Same rule as fitVerdict. */
+	query(box: Box, clearanceMm = DEFAULT_CLEARANCE_MM, tightMm = DEFAULT_TIGHT_MM): SeatSpaceMatches {
+		const b = parseInput(fitInputSchema.shape.box, box);
+		parseInput(allowance('Clearance'), clearanceMm);
+		parseInput(allowance('Tight threshold'), tightMm);
+		const bl = b.l + clearanceMm;
+		const bw = b.w + clearanceMm;
+		const bh = b.h + clearanceMm;
+		const { l, w, h, size } = this;
+		const rows = new Int32Array(size);
+		const tight = new Uint8Array(size);
+		let k = 0;
+		// NaN (not measured) propagates through min/max and fails the final >= 0.
+		for (let i = 0; i < size; i++) {
+			const L = l[i];
+			const W = w[i];
+			const m = Math.min(Math.max(Math.min(L - bl, W - bw), Math.min(L - bw, W - bl)), h[i] - bh);
+			rows[k] = i;
+			tight[k] = m < tightMm ? 1 : 0;
+			k += m >= 0 ? 1 : 0;
+		}
+		return { rows: rows.slice(0, k), tight: tight.slice(0, k) };
+	}
+}
+
+function column(value: number | null, row: number, what: string): number {
+	if (value === null || value === undefined || Number.isNaN(value)) return NaN;
+	if (!(value > 0 && value <= MAX_DIMENSION_MM)) {
+		throw new RangeError(`Row ${row}: space ${what} must be more than 0 and at most ${MAX_DIMENSION_MM} mm; got ${value}.`);
+	}
+	return value;
+}
