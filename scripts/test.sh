@@ -41,6 +41,7 @@ bash scripts/db.sh start
 
 log "type check"
 npx svelte-kit sync >/dev/null
+npx svelte-check --tsconfig ./tsconfig.json --threshold error --output human
 log "unit and integration tests"
 npx vitest run
 
