@@ -21,6 +21,7 @@ export KICKPANEL_DEV_TOOLS=1
 # Local stand-ins for hosted services listen on their own test ports.
 export VIN_DECODE_PORT=3392 S3_FAKE_PORT=4570 SMTP_CAPTURE_PORT=2526
 export VIN_DECODE_URL="http://127.0.0.1:$VIN_DECODE_PORT"
+export MAIL_CAPTURE_DIR=.data/test-outbox
 
 server_pid=""
 services_pid=""

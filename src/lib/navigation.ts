@@ -8,6 +8,7 @@ const LINKS: NavLink[] = [
 	{ href: '/calc', label: 'Calculators', role: 'viewer' },
 	{ href: '/parts', label: 'Parts', role: 'viewer' },
 	{ href: '/changes', label: 'Recent changes', role: 'viewer' },
+	{ href: '/watchlist', label: 'Watchlist', role: 'viewer' },
 	{ href: '/guide', label: 'Guide', role: 'viewer' },
 	{ href: '/admin/users', label: 'Staff', role: 'admin' }
 ];

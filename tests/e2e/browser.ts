@@ -30,7 +30,7 @@ export async function openBrowser(viewport = DESKTOP): Promise<{ context: Browse
 
 export async function signIn(page: Page, role: string): Promise<SeedUser> {
 	const user = userFor(role);
-	await page.goto(`${BASE}/signin`);
+	await page.goto(`${BASE}/signin`, { waitUntil: 'networkidle' });
 	await page.fill('#email', user.email);
 	await page.fill('#password', user.password);
 	await Promise.all([page.waitForURL((url) => !url.pathname.startsWith('/signin')), page.click('button:has-text("Sign in")')]);

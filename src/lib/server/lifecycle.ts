@@ -1,7 +1,17 @@
 import { databaseIsUp } from './db';
+import { warmSeatSpaceIndex } from './services/fit';
+import { startWatchNotices } from './services/watch';
+import { searchIndex, stopSearchIndex } from './search';
 
 /** Work done once when the server starts: check the database, warm caches. */
 export async function startApp(): Promise<void> {
+	// Watch notices and the hourly digest check; the timer stops with the server.
+	process.once('sveltekit:shutdown', startWatchNotices());
+	// The search index builds in the background and then polls for other instances' saves.
+	searchIndex();
+	process.once('sveltekit:shutdown', stopSearchIndex);
 	const status = await databaseIsUp();
 	if (!status.up) console.error(`[kickpanel] database not reachable at start-up: ${status.reason}`);
+	// Built in the background; the first fit query waits for it if it is not done yet.
+	else void warmSeatSpaceIndex().catch((err) => console.error('[kickpanel] seat-space index not built at start-up; it is retried on the first fit query', err));
 }

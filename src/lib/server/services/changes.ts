@@ -5,6 +5,7 @@ import { SECTION_KEYS } from '../../domain/content/schema';
 export const changesFilterSchema = z.object({
 	user: z.coerce.number().int().positive('Pick a person from the list.').optional(),
 	section: z.enum(SECTION_KEYS, { error: 'Pick a section from the list.' }).optional(),
+	unreviewed: z.literal('1', { error: 'Tick the box to show only unreviewed changes.' }).optional(),
 	page: z.coerce.number().int().min(1, 'Pages start at 1.').max(100_000).default(1)
 });
 

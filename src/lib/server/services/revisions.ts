@@ -5,13 +5,14 @@ import { Make, Revision, User, Vehicle, VehicleModel, VehicleSlug } from '../db/
 import { canonicalJson, formatZodIssues, parseContent, SECTION_KEYS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
 import { mergeContent } from '../../domain/content/merge';
 import { fieldChanges, notesChanges } from '../../domain/content/fieldDiff';
-import { roleAtLeast } from '../../domain/roles';
+import { roleAtLeast, type Role } from '../../domain/roles';
 import { slugify, vehicleSlug } from '../../domain/slug';
 import type { SessionUser } from '../auth/guard';
 import { renderNotes, type RenderedNotes } from './rendering';
 import { recordAudit } from './audit';
 import { announceRevision } from './events';
 import { EditConflictError, NoChangeError, ServiceError } from './errors';
+import { refuseBlockedAuthor } from './blocks';
 
 export type StoredRevision = {
 	id: number;
@@ -111,11 +112,13 @@ async function insertRevision(
 	vehicle: Vehicle,
 	previous: StoredRevision | null,
 	content: VehicleContent,
-	meta: { authorId: number; summary: string; restoresRevisionId?: number | null },
+	meta: { authorId: number; authorRole: Role; summary: string; restoresRevisionId?: number | null },
 	transaction: Transaction
 ): Promise<Revision> {
 	const json = canonicalJson(content);
 	const size = Buffer.byteLength(json);
+	// A moderator's own edit needs no second look.
+	const selfReviewed = roleAtLeast(meta.authorRole, 'moderator');
 	const row = await Revision.create(
 		{
 			vehicleId: vehicle.id,
@@ -128,7 +131,9 @@ async function insertRevision(
 			size,
 			sizeDelta: size - (previous?.size ?? 0),
 			sections: changedSections(previous?.content ?? null, content).join(','),
-			restoresRevisionId: meta.restoresRevisionId ?? null
+			restoresRevisionId: meta.restoresRevisionId ?? null,
+			reviewedBy: selfReviewed ? meta.authorId : null,
+			reviewedAt: selfReviewed ? new Date() : null
 		},
 		{ transaction }
 	);
@@ -154,6 +159,7 @@ async function insertRevision(
 
 export async function createVehicle(input: unknown, author: SessionUser, summary = 'New page'): Promise<{ slug: string; revisionId: number }> {
 	if (!roleAtLeast(author.role, 'editor')) throw new ServiceError('Creating a page needs the editor role.', 403);
+	await refuseBlockedAuthor(author.id);
 	const content = validateContent(input);
 	const result = await db().transaction(async (transaction) => {
 		const slug = vehicleSlug(content.identity);
@@ -167,7 +173,7 @@ export async function createVehicle(input: unknown, author: SessionUser, summary
 			{ slug, ...ids, yearFrom: content.identity.yearFrom, yearTo: content.identity.yearTo, body: content.identity.body, latestRevisionId: null },
 			{ transaction }
 		);
-		const row = await insertRevision(vehicle, null, content, { authorId: author.id, summary: summary || 'New page' }, transaction);
+		const row = await insertRevision(vehicle, null, content, { authorId: author.id, authorRole: author.role, summary: summary || 'New page' }, transaction);
 		return { slug: vehicle.slug, revisionId: Number(row.id), vehicleId: vehicle.id };
 	});
 	await announceRevision({ kind: 'create', vehicleId: result.vehicleId, revisionId: result.revisionId, authorId: author.id });
@@ -182,6 +188,7 @@ export type SaveResult = { revisionId: number; merged: boolean; slug: string };
  * field by field; a field both changed differently is refused as a conflict, with everything the editor typed kept.
  */
 export async function saveRevision(vehicleId: number, input: SaveInput, author: SessionUser): Promise<SaveResult> {
+	await refuseBlockedAuthor(author.id);
 	const yours = validateContent(input.content);
 	const result = await db().transaction(async (transaction) => {
 		const vehicle = await Vehicle.findByPk(vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
@@ -205,7 +212,7 @@ export async function saveRevision(vehicleId: number, input: SaveInput, author: 
 			merged = true;
 		}
 		if (canonicalJson(next) === canonicalJson(latest.content)) throw new NoChangeError();
-		const row = await insertRevision(vehicle, latest, next, { authorId: author.id, summary: input.summary.trim() }, transaction);
+		const row = await insertRevision(vehicle, latest, next, { authorId: author.id, authorRole: author.role, summary: input.summary.trim() }, transaction);
 		return { revisionId: Number(row.id), merged, slug: vehicle.slug };
 	});
 	await announceRevision({ kind: 'save', vehicleId, revisionId: result.revisionId, authorId: author.id });
@@ -225,7 +232,7 @@ export async function restoreRevision(vehicleId: number, revisionId: number, act
 		if (latest && latest.sha256 === target.sha256) throw new ServiceError('The page already matches that revision.', 400);
 		const when = target.createdAt.toISOString().slice(0, 16).replace('T', ' ');
 		const summary = `Restored revision ${target.id} by ${target.authorName} (${when} UTC)`;
-		const row = await insertRevision(vehicle, latest, target.content, { authorId: actor.id, summary, restoresRevisionId: target.id }, transaction);
+		const row = await insertRevision(vehicle, latest, target.content, { authorId: actor.id, authorRole: actor.role, summary, restoresRevisionId: target.id }, transaction);
 		await recordAudit(
 			{ actorId: actor.id, action: 'revision.restore', targetType: 'vehicle', targetId: vehicle.id, details: { restored: target.id, newRevision: Number(row.id) } },
 			transaction
@@ -283,6 +290,7 @@ export type RevisionListItem = {
 	sections: SectionKey[];
 	hidden: boolean;
 	restoresRevisionId: number | null;
+	reviewedAt: string | null;
 };
 
 export const PAGE_SIZE = 50;
@@ -291,6 +299,7 @@ export async function listRevisions(filter: {
 	vehicleId?: number;
 	authorId?: number;
 	section?: SectionKey;
+	unreviewed?: boolean;
 	page?: number;
 	pageSize?: number;
 }): Promise<{ items: RevisionListItem[]; total: number; page: number; pageSize: number }> {
@@ -300,9 +309,10 @@ export async function listRevisions(filter: {
 	if (filter.vehicleId) where.vehicleId = filter.vehicleId;
 	if (filter.authorId) where.authorId = filter.authorId;
 	if (filter.section) where.sections = { [Op.like]: `%${filter.section}%` };
+	if (filter.unreviewed) where.reviewedAt = null;
 	const { rows, count } = await Revision.findAndCountAll({
 		where,
-		attributes: ['id', 'parentId', 'vehicleId', 'authorId', 'summary', 'createdAt', 'size', 'sizeDelta', 'sections', 'hidden', 'restoresRevisionId'],
+		attributes: ['id', 'parentId', 'vehicleId', 'authorId', 'summary', 'createdAt', 'size', 'sizeDelta', 'sections', 'hidden', 'restoresRevisionId', 'reviewedAt'],
 		include: [
 			{ model: User, as: 'author', attributes: ['id', 'name'] },
 			{
@@ -336,7 +346,8 @@ export async function listRevisions(filter: {
 			sizeDelta: r.sizeDelta,
 			sections: (r.sections ? r.sections.split(',') : []) as SectionKey[],
 			hidden: !!r.hidden,
-			restoresRevisionId: r.restoresRevisionId === null ? null : Number(r.restoresRevisionId)
+			restoresRevisionId: r.restoresRevisionId === null ? null : Number(r.restoresRevisionId),
+			reviewedAt: r.reviewedAt ? r.reviewedAt.toISOString() : null
 		};
 	});
 	return { items, total: count, page, pageSize };

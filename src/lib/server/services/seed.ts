@@ -4,6 +4,7 @@ import { User } from '../db/models';
 import { toSessionUser, createUser } from './users';
 import { createVehicle } from './revisions';
 import { saveSetting } from './settings';
+import { createPart, samplePartInput } from './parts';
 
 export type SampleShop = {
 	shop: { name: string };
@@ -24,6 +25,10 @@ export async function seedSampleShop(sample: SampleShop) {
 		const content = 'schemaVersion' in v ? v : { schemaVersion: CONTENT_SCHEMA_VERSION, ...v };
 		await createVehicle(content, toSessionUser(author), 'Sample page');
 	}
+	const parts = sample.parts ?? [];
+	const lead = parts.length ? await User.findOne({ where: { role: ['admin', 'moderator'] } }) : null;
+	if (parts.length && !lead) throw new Error('The sample parts need an admin or moderator user to enter them.');
+	for (const p of parts) await createPart(samplePartInput(p as Record<string, unknown>), toSessionUser(lead!));
 	await saveSetting('shopName', sample.shop.name);
 	await saveSetting('sampleData', true);
 	return { users: sample.users.length, vehicles: sample.vehicles.length };

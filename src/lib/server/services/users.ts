@@ -5,6 +5,7 @@ import { hashPassword, MIN_PASSWORD_LENGTH, verifyPassword } from '../auth/passw
 import { clearSignInFailures, recordSignInFailure, signInThrottle } from '../auth/throttle';
 import type { SessionUser } from '../auth/guard';
 import { recordAudit } from './audit';
+import { activeBlockFor } from './blocks';
 
 export const emailSchema = z
 	.string({ error: 'Enter an e-mail address.' })
@@ -76,11 +77,12 @@ export async function setUserStatus(userId: number, status: 'active' | 'disabled
 	});
 }
 
-/** The signed-in user for a session, read fresh so a disabled or demoted user loses access at once. */
+/** The signed-in user for a session, read fresh so a disabled, demoted or blocked user is refused at once. */
 export async function activeSessionUser(userId: number, sessionVersion: number): Promise<SessionUser | null> {
 	const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'role', 'status', 'units', 'sessionVersion'] });
 	if (!user || user.status !== 'active' || user.sessionVersion !== sessionVersion) return null;
-	return toSessionUser(user);
+	const block = await activeBlockFor(user.id);
+	return { ...toSessionUser(user), block: block ? { reason: block.reason, until: block.until } : null };
 }
 
 export type SignInResult =

@@ -1,18 +1,61 @@
-import { error } from '@sveltejs/kit';
-import type { PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/auth/guard';
+import { error, fail } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { hasRole, requireRole } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/services/revisions';
 import { changesFilter } from '$lib/server/services/changes';
+import { activeBlockFor, blockUser, liftBlock } from '$lib/server/services/blocks';
+import { ServiceError } from '$lib/server/services/errors';
 import { User } from '$lib/server/db/models';
 
-export const load: PageServerLoad = async ({ locals, params, url }) => {
-	requireRole(locals, 'viewer');
-	const id = Number(params.id);
+function personId(raw: string): number {
+	const id = Number(raw);
 	if (!Number.isInteger(id) || id < 1) error(404, 'No such person.');
+	return id;
+}
+
+export const load: PageServerLoad = async ({ locals, params, url }) => {
+	const viewer = requireRole(locals, 'viewer');
+	const id = personId(params.id);
 	const person = await User.findByPk(id, { attributes: ['id', 'name', 'role'] });
 	if (!person) error(404, 'No such person.');
 	const filter = changesFilter(url);
 	if (!filter.success) error(400, filter.error.issues[0].message);
-	const revisions = await listRevisions({ authorId: id, section: filter.data.section, page: filter.data.page });
-	return { person: { id: person.id, name: person.name, role: person.role }, revisions };
+	const moderating = hasRole(viewer, 'moderator') && !viewer.block && viewer.id !== id;
+	const [revisions, block] = await Promise.all([
+		listRevisions({ authorId: id, section: filter.data.section, page: filter.data.page }),
+		// Everyone may see that someone is blocked; the reason is for moderators and the person themselves.
+		activeBlockFor(id)
+	]);
+	const showReason = moderating || viewer.id === id;
+	return {
+		person: { id: person.id, name: person.name, role: person.role },
+		revisions,
+		block: block ? { until: block.until, reason: showReason ? block.reason : null } : null,
+		moderating
+	};
+};
+
+export const actions: Actions = {
+	block: async ({ locals, params, request }) => {
+		const moderator = requireRole(locals, 'moderator');
+		const form = Object.fromEntries(await request.formData());
+		const values = { reason: String(form.reason ?? ''), until: String(form.until ?? '') };
+		try {
+			const block = await blockUser(personId(params.id), form, moderator);
+			return { message: `Blocked from editing until ${block.until.slice(0, 10)}.` };
+		} catch (err) {
+			if (err instanceof ServiceError) return fail(err.status, { values, errors: err.fieldErrors ?? { form: err.message } });
+			throw err;
+		}
+	},
+	lift: async ({ locals, params }) => {
+		const moderator = requireRole(locals, 'moderator');
+		try {
+			const lifted = await liftBlock(personId(params.id), moderator);
+			return { message: lifted ? 'Block lifted; they can edit again.' : 'There was no block in force.' };
+		} catch (err) {
+			if (err instanceof ServiceError) return fail(err.status, { errors: { form: err.message } });
+			throw err;
+		}
+	}
 };

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-/** Append-only: a revision is inserted once and never rewritten (only `hidden` is flagged). */
+/** Append-only: a revision is inserted once and never rewritten (only the `hidden` and review marks are set later). */
 export class Revision extends Model<InferAttributes<Revision>, InferCreationAttributes<Revision>> {
 	declare id: CreationOptional<number>;
 	declare vehicleId: number;
@@ -15,6 +15,8 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
 	declare sections: string;
 	declare restoresRevisionId: number | null;
 	declare hidden: CreationOptional<boolean>;
+	declare reviewedBy: CreationOptional<number | null>;
+	declare reviewedAt: CreationOptional<Date | null>;
 	declare createdAt: CreationOptional<Date>;
 }
 
@@ -34,6 +36,8 @@ export function initRevision(sequelize: Sequelize) {
 			sections: { type: DataTypes.STRING(200), allowNull: false, defaultValue: '' },
 			restoresRevisionId: { type: DataTypes.BIGINT.UNSIGNED, allowNull: true },
 			hidden: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+			reviewedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+			reviewedAt: { type: DataTypes.DATE(3), allowNull: true },
 			createdAt: DataTypes.DATE(3)
 		},
 		{ sequelize, tableName: 'revisions', updatedAt: false }

@@ -5,11 +5,24 @@ import { initVehicle, Vehicle, VehicleSlug } from './Vehicle';
 import { initRevision, Revision } from './Revision';
 import { initAuditLog, AuditLog } from './AuditLog';
 import { initSetting, Setting } from './Setting';
+import { initAccountToken, AccountToken } from './AccountToken';
+import { initWatch, Watch } from './Watch';
+import { initNotificationPreference, NotificationPreference } from './NotificationPreference';
+import { initPendingNotice, PendingNotice } from './PendingNotice';
+import { initBlock, Block } from './Block';
+import { initPart, Part } from './Part';
+import { initConfirmation, Confirmation } from './Confirmation';
+import { initPhoto, Photo } from './Photo';
 
-export { User, Make, VehicleModel, Vehicle, VehicleSlug, Revision, AuditLog, Setting };
+export { User, Make, VehicleModel, Vehicle, VehicleSlug, Revision, AuditLog, Setting, Part, Confirmation };
+export { AccountToken, Watch, NotificationPreference, PendingNotice, Block };
+export { Photo };
 export type { Role, UserStatus } from './User';
 export { ROLES } from './User';
 export type { Protection } from './Vehicle';
+export type { TrustKind } from './Confirmation';
+export type { TokenKind } from './AccountToken';
+export type { NoticeMode } from './NotificationPreference';
 
 export function initModels(sequelize: Sequelize) {
 	initUser(sequelize);
@@ -18,6 +31,14 @@ export function initModels(sequelize: Sequelize) {
 	initRevision(sequelize);
 	initAuditLog(sequelize);
 	initSetting(sequelize);
+	initAccountToken(sequelize);
+	initWatch(sequelize);
+	initNotificationPreference(sequelize);
+	initPendingNotice(sequelize);
+	initBlock(sequelize);
+	initPart(sequelize);
+	initConfirmation(sequelize);
+	initPhoto(sequelize);
 
 	Make.hasMany(VehicleModel, { foreignKey: 'makeId', as: 'models' });
 	VehicleModel.belongsTo(Make, { foreignKey: 'makeId', as: 'make' });
@@ -27,4 +48,15 @@ export function initModels(sequelize: Sequelize) {
 	Revision.belongsTo(Vehicle, { foreignKey: 'vehicleId', as: 'vehicle' });
 	Revision.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 	AuditLog.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+	Revision.belongsTo(User, { foreignKey: 'reviewedBy', as: 'reviewer' });
+	Watch.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+	Watch.belongsTo(Vehicle, { foreignKey: 'vehicleId', as: 'vehicle' });
+	User.hasOne(NotificationPreference, { foreignKey: 'userId', as: 'noticePreference' });
+	PendingNotice.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+	PendingNotice.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
+	Block.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+	Block.belongsTo(User, { foreignKey: 'byId', as: 'by' });
+	Confirmation.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+	Confirmation.belongsTo(Vehicle, { foreignKey: 'vehicleId', as: 'vehicle' });
+	Photo.belongsTo(User, { foreignKey: 'uploaderId', as: 'uploader' });
 }

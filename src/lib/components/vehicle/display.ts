@@ -1,0 +1,49 @@
+import { formatFieldValue } from '../../domain/content/fieldDiff';
+import { SECTION_KEYS, SECTION_NAMES, type SectionKey, type VehicleContent } from '../../domain/content/schema';
+import { formatLength, formatMetres, type UnitSystem } from '../../domain/units';
+
+/** "95 mm" → { value: "95", unit: "mm" }; null when not measured, for a figure card's big number. */
+export function lengthParts(mm: number | null, units: UnitSystem): { value: string; unit: string } | null {
+	if (mm === null) return null;
+	return split(formatLength(mm, units));
+}
+
+export function metreParts(m: number | null, units: UnitSystem): { value: string; unit: string } | null {
+	if (m === null) return null;
+	return split(formatMetres(m, units));
+}
+
+function split(text: string): { value: string; unit: string } {
+	const at = text.lastIndexOf(' ');
+	return { value: text.slice(0, at), unit: text.slice(at + 1) };
+}
+
+/** A stored value as the page shows it, e.g. ("harness.ladder.lines[].buttons[].ohms", 2200) → "2.2 kΩ". */
+export const shown = (pattern: string, value: unknown, units: UnitSystem) => formatFieldValue(pattern, value, units);
+
+const filled = (v: unknown): boolean =>
+	Array.isArray(v) ? v.length > 0 : typeof v === 'string' ? v.trim() !== '' : v !== null && v !== undefined && v !== false;
+
+/** A section with nothing recorded yet besides its defaults. */
+export function sectionIsEmpty(content: VehicleContent, key: SectionKey): boolean {
+	if (key === 'identity') return false;
+	const section = content[key] as Record<string, unknown>;
+	return Object.entries(section).every(([field, v]) => {
+		if (field === 'ladder') return (v as { lines: unknown[] }).lines.length === 0;
+		return !filled(v);
+	});
+}
+
+export const SECTIONS = SECTION_KEYS.map((key) => ({ key, title: SECTION_NAMES[key] }));
+
+const DATE = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+/** The same text on the server and in the browser, whatever either's time zone. */
+export const shortDate = (iso: string) => DATE.format(new Date(iso));
+
+/** Sizes in one unit, e.g. "410 × 300 × 95 mm"; "?" stands for a side not measured. */
+export function dimensions(mm: readonly (number | null)[], units: UnitSystem): string {
+	const parts = mm.map((v) => lengthParts(v, units));
+	const unit = parts.find((p) => p)?.unit ?? '';
+	return `${parts.map((p) => p?.value ?? '?').join(' × ')}${unit ? ` ${unit}` : ''}`;
+}

@@ -1,0 +1,10 @@
+/** A moderator's stop on someone's editing, as the blocked person and the guard see it. */
+export type EditBlock = { reason: string; until: string };
+
+function utc(iso: string): string {
+	return iso.slice(0, 16).replace('T', ' ') + ' UTC';
+}
+
+export function blockNotice(block: EditBlock): string {
+	return `You are blocked from editing until ${utc(block.until)}. Reason given: ${block.reason} — if you think this is a mistake, talk to a moderator or the shop owner.`;
+}

@@ -1,0 +1,152 @@
+import {
+	DEFAULT_CLEARANCE_MM,
+	DEFAULT_TIGHT_MM,
+	fitVerdict,
+	headUnitFit,
+	speakerFit,
+	type Axis,
+	type Box,
+	type DepthFit,
+	type FitResult,
+	type FitVerdict,
+	type Space,
+	type SpeakerFitResult
+} from './fit';
+import { formatLength, type UnitSystem } from './units';
+import { SEAT_NAMES, type DashSection, type SeatSpace, type SpeakerLocation } from './content/schema';
+import type { HeadUnit, Speaker } from './part';
+
+// A part against the places a vehicle page records: every seat space, the dash, every speaker
+// location. Shared by the fit service, the API and the counter screen (which runs it live).
+
+export const VERDICT_WORDS: Readonly<Record<FitVerdict, string>> = {
+	fits: 'Fits',
+	tight: 'Tight',
+	'no-fit': 'Does not fit',
+	'not-measured': 'Not measured'
+};
+export const VERDICT_SYMBOLS: Readonly<Record<FitVerdict, string>> = { fits: '✓', tight: '!', 'no-fit': '✕', 'not-measured': '?' };
+
+const RANK: Readonly<Record<FitVerdict, number>> = { fits: 3, tight: 2, 'no-fit': 1, 'not-measured': 0 };
+
+export const AXIS_NAMES: Readonly<Record<Axis, string>> = { l: 'length', w: 'width', h: 'height' };
+const TOO: Readonly<Record<Axis, string>> = { l: 'too long', w: 'too wide', h: 'too tall' };
+
+export interface SpaceFit {
+	spaceId: string;
+	seat: SeatSpace['seat'];
+	space: Space;
+	result: FitResult;
+}
+
+export interface SeatFitOptions {
+	clearanceMm?: number;
+	tightMm?: number;
+}
+
+export const spaceOf = (s: Pick<SeatSpace, 'lengthMm' | 'widthMm' | 'heightMm'>): Space => ({ l: s.lengthMm, w: s.widthMm, h: s.heightMm });
+
+/** The box against every seat space the page records, in page order. */
+export function seatSpaceFits(spaces: readonly SeatSpace[], box: Box, opts: SeatFitOptions = {}): SpaceFit[] {
+	return spaces.map((s) => ({ spaceId: s.id, seat: s.seat, space: spaceOf(s), result: fitVerdict(box, spaceOf(s), opts) }));
+}
+
+const leastMargin = (r: FitResult): number => (r.margins ? Math.min(r.margins.l, r.margins.w, r.margins.h) : -Infinity);
+
+/** The seat with the best verdict, and on a tie the most room to spare. */
+export function bestSpace(fits: readonly SpaceFit[]): SpaceFit | null {
+	let best: SpaceFit | null = null;
+	for (const f of fits) {
+		if (
+			!best ||
+			RANK[f.result.verdict] > RANK[best.result.verdict] ||
+			(RANK[f.result.verdict] === RANK[best.result.verdict] && leastMargin(f.result) > leastMargin(best.result))
+		) {
+			best = f;
+		}
+	}
+	return best;
+}
+
+/** The space a person asked for, by entry id or seat name ("passenger"); otherwise the best one. */
+export function pickSpace(fits: readonly SpaceFit[], wanted?: string | null): SpaceFit | null {
+	if (wanted) {
+		const hit = fits.find((f) => f.spaceId === wanted) ?? fits.find((f) => f.seat === wanted);
+		if (hit) return hit;
+	}
+	return bestSpace(fits);
+}
+
+const seatPhrase = (seat: SeatSpace['seat']) => `under the ${SEAT_NAMES[seat].toLowerCase()} seat`;
+
+/** The answer in words a customer can be told. */
+export function seatFitReason(fit: SpaceFit, units: UnitSystem = 'metric', clearanceMm = DEFAULT_CLEARANCE_MM): string {
+	const r = fit.result;
+	const where = seatPhrase(fit.seat);
+	const len = (mm: number) => formatLength(mm, units);
+	if (r.verdict === 'not-measured') {
+		const missing = (['l', 'w', 'h'] as const).filter((a) => fit.space[a] === null).map((a) => AXIS_NAMES[a]);
+		return `The space ${where} is not measured yet (${missing.join(', ')} missing), so nobody can say.`;
+	}
+	const turned = r.rotated ? ' Turned a quarter on the floor, so its width runs along the seat.' : '';
+	const m = r.margins[r.limiting];
+	const allowance = clearanceMm > 0 ? ` after ${len(clearanceMm)} for cables and air` : '';
+	if (r.verdict === 'no-fit') return `Does not fit ${where}: ${len(-m)} ${TOO[r.limiting]}${allowance}.${turned}`;
+	if (r.verdict === 'tight') return `Goes in ${where}, but only ${len(m)} to spare in ${AXIS_NAMES[r.limiting]}${allowance}: check on the car.${turned}`;
+	return `Fits ${where} with ${len(m)} to spare in ${AXIS_NAMES[r.limiting]}, the closest side${allowance}.${turned}`;
+}
+
+export interface LocationFit {
+	locationId: string;
+	location: string;
+	result: SpeakerFitResult;
+}
+
+/** A speaker against every recorded speaker location. */
+export function speakerLocationFits(locations: readonly Pick<SpeakerLocation, 'id' | 'location' | 'cutoutMm' | 'depthMm'>[], speaker: Pick<Speaker, 'cutoutMm' | 'mountingDepthMm'>, opts: { tightMm?: number } = {}): LocationFit[] {
+	return locations.map((loc) => ({
+		locationId: loc.id,
+		location: loc.location || 'Unnamed location',
+		result: speakerFit(speaker, { cutoutMm: loc.cutoutMm, depthMm: loc.depthMm }, opts)
+	}));
+}
+
+export function pickLocation(fits: readonly LocationFit[], wanted?: string | null): LocationFit | null {
+	if (wanted) {
+		const hit = fits.find((f) => f.locationId === wanted);
+		if (hit) return hit;
+	}
+	let best: LocationFit | null = null;
+	const least = (r: SpeakerFitResult) => (r.margins ? Math.min(r.margins.cutout, r.margins.depth) : -Infinity);
+	for (const f of fits) {
+		if (!best || RANK[f.result.verdict] > RANK[best.result.verdict] || (RANK[f.result.verdict] === RANK[best.result.verdict] && least(f.result) > least(best.result))) best = f;
+	}
+	return best;
+}
+
+export function speakerFitReason(fit: LocationFit, units: UnitSystem = 'metric'): string {
+	const r = fit.result;
+	const len = (mm: number) => formatLength(mm, units);
+	const place = `the ${fit.location.toLowerCase()} location`;
+	if (r.verdict === 'not-measured' || !r.margins || !r.limiting) return `The cut-out or depth of ${place} is not measured yet, so nobody can say.`;
+	const adapter = r.needsAdapter ? ' The hole is much larger than the speaker needs: use an adapter ring.' : '';
+	const what = r.limiting === 'depth' ? 'mounting depth' : 'cut-out';
+	const m = r.margins[r.limiting];
+	if (r.verdict === 'no-fit') {
+		return r.limiting === 'depth'
+			? `Does not fit ${place}: ${len(-m)} too deep for the space behind it.${adapter}`
+			: `Does not fit ${place}: the speaker needs a hole ${len(-m)} larger than it takes.${adapter}`;
+	}
+	if (r.verdict === 'tight') return `Goes into ${place}, with only ${len(m)} to spare on the ${what}: check on the car.${adapter}`;
+	return `Fits ${place} with ${len(m)} to spare on the ${what}, the closest figure.${adapter}`;
+}
+
+/** A head unit against the dash opening and depth. */
+export function dashFit(unit: Pick<HeadUnit, 'dinSize' | 'chassisDepthMm'>, dash: Pick<DashSection, 'opening' | 'depthMm'>, opts: SeatFitOptions = {}): DepthFit {
+	if (dash.opening === null) {
+		return { verdict: 'not-measured', depthMarginMm: null, needsKit: false, reason: 'The dash opening is not recorded yet, so nobody can say.' };
+	}
+	return headUnitFit(unit, { opening: dash.opening, depthMm: dash.depthMm }, opts);
+}
+
+export { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM };

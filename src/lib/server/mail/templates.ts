@@ -1,0 +1,155 @@
+// Every e-mail Kickpanel sends, as plain text and as simple HTML saying the same thing.
+
+export type MailBody = { subject: string; text: string; html: string };
+
+const ROLE_WORDS: Record<string, string> = {
+	viewer: 'look up vehicle pages',
+	editor: 'look up and edit vehicle pages',
+	moderator: 'edit vehicle pages and review changes',
+	admin: 'edit, review and manage staff accounts'
+};
+
+function escapeHtml(s: string): string {
+	return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+}
+
+function utc(d: Date): string {
+	return d.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
+}
+
+function page(title: string, inner: string, footer: string): string {
+	return `<!doctype html><html><head><meta charset="utf-8"><title>${escapeHtml(title)}</title></head>
+<body style="margin:0;background:#f7f6f4;font-family:system-ui,sans-serif;color:#1c1a17">
+<div style="max-width:560px;margin:0 auto;padding:24px">
+<p style="margin:0 0 16px;font-weight:700;color:#964d20">Kickpanel</p>
+${inner}
+<p style="margin-top:32px;font-size:13px;color:#6d665b">${footer}</p>
+</div></body></html>`;
+}
+
+function button(href: string, label: string): string {
+	return `<p><a href="${escapeHtml(href)}" style="display:inline-block;background:#964d20;color:#fff;padding:12px 20px;border-radius:6px;text-decoration:none;font-weight:600">${escapeHtml(label)}</a></p>
+<p style="font-size:13px;color:#544e45">Or paste this address into your browser:<br><span style="word-break:break-all">${escapeHtml(href)}</span></p>`;
+}
+
+export function inviteMail(input: { shopName: string; inviterName: string; role: string; link: string; expiresAt: Date }): MailBody {
+	const can = ROLE_WORDS[input.role] ?? 'use the shop wiki';
+	const subject = `${input.inviterName} set up a Kickpanel account for you at ${input.shopName}`;
+	const text = [
+		`Hello,`,
+		``,
+		`${input.inviterName} has invited you to ${input.shopName}'s Kickpanel, the shop's vehicle fitment wiki.`,
+		`Your role will be ${input.role}: you can ${can}.`,
+		``,
+		`Choose your name and a password here:`,
+		input.link,
+		``,
+		`The link works once and stops working at ${utc(input.expiresAt)}.`,
+		`If you were not expecting this, ignore it: no account exists until the link is used.`
+	].join('\n');
+	const html = page(
+		subject,
+		`<p>Hello,</p>
+<p>${escapeHtml(input.inviterName)} has invited you to ${escapeHtml(input.shopName)}'s Kickpanel, the shop's vehicle fitment wiki.
+Your role will be <strong>${escapeHtml(input.role)}</strong>: you can ${escapeHtml(can)}.</p>
+${button(input.link, 'Set up my account')}
+<p>The link works once and stops working at ${escapeHtml(utc(input.expiresAt))}.</p>`,
+		'If you were not expecting this, ignore it: no account exists until the link is used.'
+	);
+	return { subject, text, html };
+}
+
+export function resetMail(input: { shopName: string; name: string; link: string; expiresAt: Date }): MailBody {
+	const subject = `Reset your Kickpanel password`;
+	const text = [
+		`Hello ${input.name},`,
+		``,
+		`Someone asked to reset the password of your account at ${input.shopName}'s Kickpanel.`,
+		`Choose a new password here:`,
+		input.link,
+		``,
+		`The link works once and stops working at ${utc(input.expiresAt)}. Setting a new password signs you out everywhere.`,
+		`If you did not ask for this, ignore this message: your password stays as it is.`
+	].join('\n');
+	const html = page(
+		subject,
+		`<p>Hello ${escapeHtml(input.name)},</p>
+<p>Someone asked to reset the password of your account at ${escapeHtml(input.shopName)}'s Kickpanel.</p>
+${button(input.link, 'Choose a new password')}
+<p>The link works once and stops working at ${escapeHtml(utc(input.expiresAt))}. Setting a new password signs you out everywhere.</p>`,
+		'If you did not ask for this, ignore this message: your password stays as it is.'
+	);
+	return { subject, text, html };
+}
+
+/** One change to a watched page, as a notice shows it. */
+export type ChangeLine = {
+	vehicleTitle: string;
+	pageLink: string;
+	compareLink: string | null;
+	editorName: string;
+	summary: string | null;
+	when: Date;
+	isNewPage: boolean;
+};
+
+function changeText(c: ChangeLine): string {
+	const what = c.isNewPage ? 'created the page' : 'changed the page';
+	const summary = c.summary === null ? '(summary hidden by a moderator)' : c.summary || '(no summary)';
+	return [`${c.vehicleTitle}: ${c.editorName} ${what} at ${utc(c.when)}.`, `  Summary: ${summary}`, `  ${c.compareLink ? `See what changed: ${c.compareLink}` : `Open the page: ${c.pageLink}`}`].join('\n');
+}
+
+function changeHtml(c: ChangeLine): string {
+	const what = c.isNewPage ? 'created the page' : 'changed the page';
+	const summary = c.summary === null ? '<em>(summary hidden by a moderator)</em>' : escapeHtml(c.summary || '(no summary)');
+	const link = c.compareLink
+		? `<a href="${escapeHtml(c.compareLink)}" style="color:#964d20">See what changed</a>`
+		: `<a href="${escapeHtml(c.pageLink)}" style="color:#964d20">Open the page</a>`;
+	return `<li style="margin-bottom:12px"><a href="${escapeHtml(c.pageLink)}" style="color:#1c1a17;font-weight:600">${escapeHtml(c.vehicleTitle)}</a>:
+${escapeHtml(c.editorName)} ${what} at ${escapeHtml(utc(c.when))}.<br>Summary: ${summary}<br>${link}</li>`;
+}
+
+function noticeFooterText(accountLink: string, watchlistLink: string): string {
+	return [
+		`You get this because you watch these pages.`,
+		`Stop watching a page from your watchlist: ${watchlistLink}`,
+		`Choose notices at once or a daily digest on your account page: ${accountLink}`
+	].join('\n');
+}
+
+function noticeFooterHtml(accountLink: string, watchlistLink: string): string {
+	return `You get this because you watch these pages. Stop watching a page from <a href="${escapeHtml(watchlistLink)}">your watchlist</a>; choose between notices at once or a daily digest on <a href="${escapeHtml(accountLink)}">your account page</a>.`;
+}
+
+export function changeNoticeMail(input: { recipientName: string; change: ChangeLine; accountLink: string; watchlistLink: string }): MailBody {
+	const c = input.change;
+	const subject = `${c.vehicleTitle} was ${c.isNewPage ? 'created' : 'changed'} by ${c.editorName}`;
+	const text = [`Hello ${input.recipientName},`, ``, changeText(c), ``, noticeFooterText(input.accountLink, input.watchlistLink)].join('\n');
+	const html = page(
+		subject,
+		`<p>Hello ${escapeHtml(input.recipientName)},</p><ul style="padding-left:18px">${changeHtml(c)}</ul>`,
+		noticeFooterHtml(input.accountLink, input.watchlistLink)
+	);
+	return { subject, text, html };
+}
+
+export function digestMail(input: { recipientName: string; changes: ChangeLine[]; accountLink: string; watchlistLink: string }): MailBody {
+	const pages = new Set(input.changes.map((c) => c.pageLink)).size;
+	const count = input.changes.length;
+	const subject = `Kickpanel daily digest: ${count} ${count === 1 ? 'change' : 'changes'} on ${pages} watched ${pages === 1 ? 'page' : 'pages'}`;
+	const text = [
+		`Hello ${input.recipientName},`,
+		``,
+		`Since your last digest:`,
+		``,
+		input.changes.map(changeText).join('\n\n'),
+		``,
+		noticeFooterText(input.accountLink, input.watchlistLink)
+	].join('\n');
+	const html = page(
+		subject,
+		`<p>Hello ${escapeHtml(input.recipientName)},</p><p>Since your last digest:</p><ul style="padding-left:18px">${input.changes.map(changeHtml).join('\n')}</ul>`,
+		noticeFooterHtml(input.accountLink, input.watchlistLink)
+	);
+	return { subject, text, html };
+}

@@ -1,0 +1,47 @@
+import { z } from 'zod';
+import { User } from '../db/models';
+import { hashPassword, verifyPassword } from '../auth/password';
+import { recordSignInFailure, signInThrottle } from '../auth/throttle';
+import type { SessionUser } from '../auth/guard';
+import { fieldMessages } from '../forms';
+import { newUserSchema } from './users';
+import { ServiceError } from './errors';
+
+function refuse(error: z.ZodError): never {
+	const fields = fieldMessages(error);
+	throw new ServiceError(Object.values(fields)[0] ?? 'Check the form.', 400, fields);
+}
+
+export const nameSchema = z.object({ name: newUserSchema.shape.name });
+
+export async function changeName(userId: number, input: unknown): Promise<string> {
+	const parsed = nameSchema.safeParse(input);
+	if (!parsed.success) refuse(parsed.error);
+	await User.update({ name: parsed.data.name }, { where: { id: userId } });
+	return parsed.data.name;
+}
+
+export const passwordChangeSchema = z
+	.object({
+		current: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.'),
+		password: newUserSchema.shape.password,
+		confirm: z.string({ error: 'Type the new password again.' })
+	})
+	.refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two new passwords are not the same; type them again.' });
+
+/** Needs the current password; wrong guesses count towards the same lock-out as failed sign-ins. */
+export async function changePassword(user: SessionUser, input: unknown, clientAddress: string): Promise<void> {
+	const parsed = passwordChangeSchema.safeParse(input);
+	if (!parsed.success) refuse(parsed.error);
+	const throttle = await signInThrottle(user.email, clientAddress);
+	if (throttle.locked) {
+		throw new ServiceError(`Too many wrong passwords. Wait ${Math.ceil(throttle.retryAfterSeconds / 60)} minutes and try again.`, 403);
+	}
+	const row = await User.findByPk(user.id);
+	if (!row) throw new ServiceError('Your account no longer exists.', 404);
+	if (!(await verifyPassword(parsed.data.current, row.passwordHash))) {
+		await recordSignInFailure(user.email, clientAddress);
+		throw new ServiceError('That is not your current password.', 400, { current: 'That is not your current password.' });
+	}
+	await row.update({ passwordHash: await hashPassword(parsed.data.password) });
+}

@@ -1,0 +1,216 @@
+import { z } from 'zod';
+import { db } from '../db';
+import { Confirmation, User, Vehicle } from '../db/models';
+import { canonicalJson, FIELD_INFO, type VehicleContent } from '../../domain/content/schema';
+import { describePath, parsePath, patternOf, valueAtPath, formatFieldValue } from '../../domain/content/fieldDiff';
+import type { UnitSystem } from '../../domain/units';
+import type { SessionUser } from '../auth/guard';
+import { roleAtLeast } from '../../domain/roles';
+import { revisionById } from './revisions';
+import { ServiceError } from './errors';
+
+// Installers' marks on a page: "fitted as described" for a revision, or a measurement flagged as
+// wrong. A flag stays open while the flagged field still holds the value it had when flagged;
+// an edit that changes (or removes) the field closes it, naming the revision that did.
+
+export type TrustFlag = {
+	id: number;
+	fieldPath: string | null;
+	label: string;
+	note: string;
+	by: string;
+	at: string;
+	revisionId: number;
+	/** The flagged value as it reads today, in the reader's units. */
+	value: string | null;
+};
+
+export type TrustSummary = {
+	vehicleId: number;
+	revisionId: number | null;
+	confirmations: {
+		/** Different installers who marked any revision as fitted as described. */
+		installers: number;
+		/** Of those, how many marked the current revision. */
+		onCurrentRevision: number;
+		latest: { by: string; at: string; revisionId: number; note: string } | null;
+	};
+	openFlags: TrustFlag[];
+	/** Open flags keyed by field path ("" for the page as a whole). */
+	flagsByField: Record<string, TrustFlag[]>;
+	closedFlags: number;
+	/** Fields a flag can name, for the flag form: every measurement on the current revision. */
+	fields: { path: string; label: string }[];
+};
+
+const MEASURE_KINDS = new Set(['mm', 'm', 'ohm', 'amp', 'choice', 'flag']);
+
+/** Every measured or chosen field on a page, as paths with their names, for the flag form. */
+export function flaggableFields(content: VehicleContent): { path: string; label: string }[] {
+	const out: { path: string; label: string }[] = [];
+	const walk = (node: unknown, path: string) => {
+		if (Array.isArray(node)) {
+			for (const entry of node) {
+				if (entry && typeof entry === 'object' && typeof (entry as { id?: unknown }).id === 'string') walk(entry, `${path}[${(entry as { id: string }).id}]`);
+			}
+			return;
+		}
+		if (node && typeof node === 'object') {
+			for (const [key, value] of Object.entries(node)) {
+				if (key === 'id' || key === 'photos' || key === 'identity' || key === 'schemaVersion') continue;
+				walk(value, path ? `${path}.${key}` : key);
+			}
+			return;
+		}
+		const info = FIELD_INFO[patternOf(path)];
+		if (info && MEASURE_KINDS.has(info.kind)) out.push({ path, label: describePath(path, content) });
+	};
+	walk(content, '');
+	return out;
+}
+
+export const trustMarkSchema = z.object({
+	note: z.string({ error: 'The note must be text.' }).trim().max(1000, 'Keep the note under 1000 characters.').default(''),
+	revisionId: z.coerce.number({ error: 'Say which revision you checked.' }).int().positive('Say which revision you checked.').optional()
+});
+
+export const flagSchema = trustMarkSchema.extend({
+	note: z
+		.string({ error: 'Say what is wrong.' })
+		.trim()
+		.min(3, 'Say what is wrong, for example "height is 80 mm with the seat all the way down".')
+		.max(1000, 'Keep the note under 1000 characters.'),
+	fieldPath: z
+		.string({ error: 'Pick the field that is wrong.' })
+		.trim()
+		.max(200, 'That field path is too long.')
+		.transform((p) => (p === '' ? null : p))
+		.nullable()
+		.default(null)
+});
+
+function requireInstaller(user: SessionUser): void {
+	if (!roleAtLeast(user.role, 'viewer')) throw new ServiceError('Sign in to mark a page.', 403);
+}
+
+async function currentFor(vehicleId: number, revisionId?: number) {
+	const vehicle = await Vehicle.findByPk(vehicleId);
+	if (!vehicle || !vehicle.latestRevisionId) throw new ServiceError('No vehicle page at this address.', 404);
+	const latestId = Number(vehicle.latestRevisionId);
+	// A mark is for what the installer read: an older revision is refused so nobody confirms a page that has since changed.
+	if (revisionId !== undefined && revisionId !== latestId) {
+		throw new ServiceError('The page changed since you opened it; read the current revision and mark it again.', 409);
+	}
+	const revision = await revisionById(latestId);
+	if (!revision) throw new ServiceError('No vehicle page at this address.', 404);
+	return revision;
+}
+
+/** "Fitted as described": one mark per installer per revision; marking again keeps the first. */
+export async function confirmPage(vehicleId: number, input: unknown, user: SessionUser): Promise<{ id: number; created: boolean }> {
+	requireInstaller(user);
+	const parsed = trustMarkSchema.safeParse(input ?? {});
+	if (!parsed.success) throw new ServiceError(parsed.error.issues[0].message, 400, { note: parsed.error.issues[0].message });
+	const revision = await currentFor(vehicleId, parsed.data.revisionId);
+	return db().transaction(async (transaction) => {
+		const existing = await Confirmation.findOne({
+			where: { vehicleId, revisionId: revision.id, userId: user.id, kind: 'confirm' },
+			transaction,
+			lock: transaction.LOCK.UPDATE
+		});
+		if (existing) return { id: Number(existing.id), created: false };
+		const row = await Confirmation.create({ vehicleId, revisionId: revision.id, userId: user.id, kind: 'confirm', fieldPath: null, note: parsed.data.note }, { transaction });
+		return { id: Number(row.id), created: true };
+	});
+}
+
+/** A measurement (or the page as a whole, with no field) flagged as wrong, with a note. */
+export async function flagField(vehicleId: number, input: unknown, user: SessionUser): Promise<{ id: number }> {
+	requireInstaller(user);
+	const parsed = flagSchema.safeParse(input ?? {});
+	if (!parsed.success) {
+		const errors: Record<string, string> = {};
+		for (const i of parsed.error.issues) errors[String(i.path[0] ?? 'form')] ??= i.message;
+		throw new ServiceError(Object.values(errors)[0], 400, errors);
+	}
+	const revision = await currentFor(vehicleId, parsed.data.revisionId);
+	const { fieldPath, note } = parsed.data;
+	if (fieldPath !== null) {
+		const problem = 'Pick a field that is on the current page.';
+		try {
+			parsePath(fieldPath);
+		} catch {
+			throw new ServiceError(problem, 400, { fieldPath: problem });
+		}
+		if (!FIELD_INFO[patternOf(fieldPath)] || valueAtPath(revision.content, fieldPath) === undefined) {
+			throw new ServiceError(problem, 400, { fieldPath: problem });
+		}
+	}
+	const row = await Confirmation.create({ vehicleId, revisionId: revision.id, userId: user.id, kind: 'flag', fieldPath, note });
+	return { id: Number(row.id) };
+}
+
+const same = (a: unknown, b: unknown) => canonicalJson(a ?? null) === canonicalJson(b ?? null);
+
+/** What the reading view, the fit check and the job sheet show as trust for a page. */
+export async function trustSummary(vehicleId: number, units: UnitSystem = 'metric'): Promise<TrustSummary> {
+	const vehicle = await Vehicle.findByPk(vehicleId, { attributes: ['id', 'latestRevisionId'] });
+	if (!vehicle) throw new ServiceError('No vehicle page at this address.', 404);
+	const currentId = vehicle.latestRevisionId === null ? null : Number(vehicle.latestRevisionId);
+	const current = currentId ? await revisionById(currentId) : null;
+	const rows = await Confirmation.findAll({
+		where: { vehicleId },
+		include: [{ model: User, as: 'user', attributes: ['name'] }],
+		order: [['createdAt', 'DESC'], ['id', 'DESC']]
+	});
+	const nameOf = (r: Confirmation) => (r as Confirmation & { user?: User | null }).user?.name ?? 'unknown';
+
+	const confirms = rows.filter((r) => r.kind === 'confirm');
+	const installers = new Set(confirms.map((r) => r.userId)).size;
+	const onCurrent = new Set(confirms.filter((r) => Number(r.revisionId) === currentId).map((r) => r.userId)).size;
+	const latest = confirms[0];
+
+	const openFlags: TrustFlag[] = [];
+	let closedFlags = 0;
+	for (const r of rows.filter((x) => x.kind === 'flag')) {
+		const path = r.fieldPath;
+		let open = true;
+		if (path !== null && current) {
+			const flagged = await revisionById(Number(r.revisionId));
+			open = !!flagged && valueAtPath(current.content, path) !== undefined && same(valueAtPath(flagged.content, path), valueAtPath(current.content, path));
+		} else if (path === null) {
+			// A flag on the page as a whole stays open until the page changes.
+			open = Number(r.revisionId) === currentId;
+		}
+		if (!open) {
+			closedFlags++;
+			continue;
+		}
+		openFlags.push({
+			id: Number(r.id),
+			fieldPath: path,
+			label: path && current ? describePath(path, current.content) : 'The page as a whole',
+			note: r.note,
+			by: nameOf(r),
+			at: r.createdAt.toISOString(),
+			revisionId: Number(r.revisionId),
+			value: path && current ? formatFieldValue(patternOf(path), valueAtPath(current.content, path), units) : null
+		});
+	}
+	const flagsByField: Record<string, TrustFlag[]> = {};
+	for (const f of openFlags) (flagsByField[f.fieldPath ?? ''] ??= []).push(f);
+
+	return {
+		vehicleId,
+		revisionId: currentId,
+		confirmations: {
+			installers,
+			onCurrentRevision: onCurrent,
+			latest: latest ? { by: nameOf(latest), at: latest.createdAt.toISOString(), revisionId: Number(latest.revisionId), note: latest.note } : null
+		},
+		openFlags,
+		flagsByField,
+		closedFlags,
+		fields: current ? flaggableFields(current.content) : []
+	};
+}

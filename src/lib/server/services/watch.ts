@@ -1,0 +1,240 @@
+import { Op } from 'sequelize';
+import { NotificationPreference, PendingNotice, User, Watch, type NoticeMode } from '../db/models';
+import type { SessionUser } from '../auth/guard';
+import { config } from '../config';
+import { sendMail } from '../mail/transport';
+import { changeNoticeMail, digestMail, type ChangeLine } from '../mail/templates';
+import { onRevisionWritten, type RevisionWritten } from './events';
+import { revisionById } from './revisions';
+import { vehicleById, type VehicleSummary } from './vehicles';
+import { visibleRevision } from './review';
+import { ServiceError } from './errors';
+
+const HOUR_MS = 60 * 60 * 1000;
+const DIGEST_INTERVAL_MS = 24 * HOUR_MS;
+// The digest check runs hourly, so a digest may fall due a little before the full day has passed.
+const DIGEST_SLACK_MS = 30 * 60 * 1000;
+
+export type NoticePreferences = { watchOwnEdits: boolean; noticeMode: NoticeMode };
+const DEFAULT_PREFERENCES: NoticePreferences = { watchOwnEdits: true, noticeMode: 'immediate' };
+
+export async function noticePreferences(userId: number): Promise<NoticePreferences> {
+	const row = await NotificationPreference.findByPk(userId);
+	return row ? { watchOwnEdits: !!row.watchOwnEdits, noticeMode: row.noticeMode } : { ...DEFAULT_PREFERENCES };
+}
+
+/** Notices already waiting follow the new choice, so switching to "at once" sends what the digest held. */
+export async function setNoticePreferences(userId: number, prefs: NoticePreferences): Promise<void> {
+	const row = await NotificationPreference.findByPk(userId);
+	if (row) await row.update(prefs);
+	else await NotificationPreference.create({ userId, ...prefs });
+	await PendingNotice.update({ mode: prefs.noticeMode }, { where: { userId, sentAt: null } });
+	if (prefs.noticeMode === 'immediate') kickDelivery();
+}
+
+export async function watchPage(userId: number, vehicleId: number): Promise<void> {
+	if (!(await vehicleById(vehicleId))) throw new ServiceError('That vehicle page no longer exists.', 404);
+	await Watch.bulkCreate([{ userId, vehicleId }], { ignoreDuplicates: true });
+}
+
+export async function unwatchPage(userId: number, vehicleId: number): Promise<void> {
+	await Watch.destroy({ where: { userId, vehicleId } });
+}
+
+export async function isWatching(userId: number, vehicleId: number): Promise<boolean> {
+	return (await Watch.count({ where: { userId, vehicleId } })) > 0;
+}
+
+export type WatchlistItem = {
+	vehicle: { id: number; slug: string; title: string };
+	watchedSince: string;
+	latest: { revisionId: number; parentId: number | null; at: string; by: string; summary: string | null } | null;
+	newerAwaitingReview: boolean;
+};
+
+/** Watched pages, most recently changed first, each with the latest change this person may see. */
+export async function watchlist(user: SessionUser): Promise<WatchlistItem[]> {
+	const watches = await Watch.findAll({ where: { userId: user.id }, order: [['createdAt', 'DESC']], limit: 1000 });
+	const items: WatchlistItem[] = [];
+	for (const w of watches) {
+		const vehicle = await vehicleById(w.vehicleId);
+		if (!vehicle) continue;
+		const { revision, newerAwaitingReview } = await visibleRevision(vehicle, user);
+		items.push({
+			vehicle: { id: vehicle.id, slug: vehicle.slug, title: vehicle.title },
+			watchedSince: w.createdAt.toISOString(),
+			latest: revision
+				? {
+						revisionId: revision.id,
+						parentId: revision.parentId,
+						at: revision.createdAt.toISOString(),
+						by: revision.authorName,
+						summary: revision.hidden ? null : revision.summary
+					}
+				: null,
+			newerAwaitingReview
+		});
+	}
+	return items.sort((a, b) => (b.latest?.at ?? '').localeCompare(a.latest?.at ?? ''));
+}
+
+const NOTIFYING_KINDS: RevisionWritten['kind'][] = ['create', 'save', 'restore'];
+
+/**
+ * After a committed change: the author starts watching (unless they turned that off), and every other active
+ * watcher gets a notice queued, to go out at once or in their daily digest.
+ */
+export async function queueNotices(event: RevisionWritten): Promise<number> {
+	if (!NOTIFYING_KINDS.includes(event.kind)) return 0;
+	const authorPrefs = await noticePreferences(event.authorId);
+	if (authorPrefs.watchOwnEdits) await Watch.bulkCreate([{ userId: event.authorId, vehicleId: event.vehicleId }], { ignoreDuplicates: true });
+	const watchers = await Watch.findAll({
+		where: { vehicleId: event.vehicleId, userId: { [Op.ne]: event.authorId } },
+		include: [
+			{
+				model: User,
+				as: 'user',
+				where: { status: 'active' },
+				attributes: ['id'],
+				include: [{ model: NotificationPreference, as: 'noticePreference', required: false }]
+			}
+		]
+	});
+	if (!watchers.length) return 0;
+	const rows = watchers.map((w) => {
+		const prefs = (w as Watch & { user: User & { noticePreference?: NotificationPreference | null } }).user.noticePreference;
+		return { userId: w.userId, vehicleId: event.vehicleId, revisionId: event.revisionId, mode: prefs?.noticeMode ?? DEFAULT_PREFERENCES.noticeMode };
+	});
+	await PendingNotice.bulkCreate(rows, { ignoreDuplicates: true });
+	if (rows.some((r) => r.mode === 'immediate')) kickDelivery();
+	return rows.length;
+}
+
+function links(vehicle: VehicleSummary, revisionId: number, parentId: number | null) {
+	const pageLink = `${config.origin}/vehicles/${vehicle.slug}`;
+	return { pageLink, compareLink: parentId ? `${pageLink}/compare?from=${parentId}&to=${revisionId}` : null };
+}
+
+async function changeLine(notice: PendingNotice): Promise<ChangeLine | null> {
+	const [revision, vehicle] = await Promise.all([revisionById(Number(notice.revisionId)), vehicleById(notice.vehicleId)]);
+	if (!revision || !vehicle) return null;
+	return {
+		vehicleTitle: vehicle.title,
+		...links(vehicle, revision.id, revision.parentId),
+		editorName: revision.authorName,
+		summary: revision.hidden ? null : revision.summary,
+		when: revision.createdAt,
+		isNewPage: revision.parentId === null
+	};
+}
+
+/** Claims rows one by one, so two app instances never send the same notice twice. */
+async function claim(ids: number[], now: Date): Promise<number[]> {
+	const claimed: number[] = [];
+	for (const id of ids) {
+		const [n] = await PendingNotice.update({ sentAt: now }, { where: { id, sentAt: null } });
+		if (n) claimed.push(id);
+	}
+	return claimed;
+}
+
+async function release(ids: number[]): Promise<void> {
+	if (ids.length) await PendingNotice.update({ sentAt: null }, { where: { id: ids } });
+}
+
+const footerLinks = () => ({ accountLink: `${config.origin}/account`, watchlistLink: `${config.origin}/watchlist` });
+
+/** Sends every queued "at once" notice; a notice whose mail fails stays queued for the next try. */
+export async function deliverImmediateNotices(now = new Date()): Promise<number> {
+	const due = await PendingNotice.findAll({ where: { mode: 'immediate', sentAt: null }, order: [['id', 'ASC']], limit: 500 });
+	let sent = 0;
+	for (const notice of due) {
+		const [id] = await claim([Number(notice.id)], now);
+		if (!id) continue;
+		const user = await User.findByPk(notice.userId, { attributes: ['id', 'email', 'name', 'status'] });
+		const line = await changeLine(notice);
+		if (!user || user.status !== 'active' || !line) continue;
+		try {
+			await sendMail({ to: user.email, ...changeNoticeMail({ recipientName: user.name, change: line, ...footerLinks() }) });
+			sent++;
+		} catch (err) {
+			await release([id]);
+			console.error('[kickpanel] watch notice not sent:', err instanceof Error ? err.message : err);
+		}
+	}
+	return sent;
+}
+
+/**
+ * Sends each digest reader one mail with everything queued for them, at most once a day: due a day after their
+ * last digest, or for a first digest a day after the oldest change in it.
+ */
+export async function sendDigests(now = new Date()): Promise<number> {
+	const queued = await PendingNotice.findAll({
+		where: { mode: 'digest', sentAt: null, createdAt: { [Op.lte]: now } },
+		attributes: ['userId', 'createdAt']
+	});
+	const oldestByUser = new Map<number, Date>();
+	for (const n of queued) {
+		const seen = oldestByUser.get(n.userId);
+		if (!seen || n.createdAt < seen) oldestByUser.set(n.userId, n.createdAt);
+	}
+	let sent = 0;
+	for (const [userId, oldest] of oldestByUser) {
+		const prefs = await NotificationPreference.findByPk(userId);
+		const since = prefs?.lastDigestAt ?? oldest;
+		if (now.getTime() - since.getTime() < DIGEST_INTERVAL_MS - DIGEST_SLACK_MS) continue;
+		const notices = await PendingNotice.findAll({ where: { userId, mode: 'digest', sentAt: null, createdAt: { [Op.lte]: now } }, order: [['revisionId', 'ASC']] });
+		const ids = await claim(notices.map((n) => Number(n.id)), now);
+		const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'status'] });
+		if (!ids.length || !user || user.status !== 'active') continue;
+		const lines = (await Promise.all(notices.filter((n) => ids.includes(Number(n.id))).map(changeLine))).filter((l): l is ChangeLine => l !== null);
+		if (!lines.length) continue;
+		try {
+			await sendMail({ to: user.email, ...digestMail({ recipientName: user.name, changes: lines, ...footerLinks() }) });
+			if (prefs) await prefs.update({ lastDigestAt: now });
+			else await NotificationPreference.create({ userId, noticeMode: 'digest', lastDigestAt: now });
+			sent++;
+		} catch (err) {
+			await release(ids);
+			console.error('[kickpanel] digest not sent:', err instanceof Error ? err.message : err);
+		}
+	}
+	return sent;
+}
+
+// Immediate notices go out behind the save, one run at a time, so a slow mail server never delays an edit.
+let delivering: Promise<void> = Promise.resolve();
+
+function kickDelivery(): void {
+	delivering = delivering
+		.then(() => deliverImmediateNotices())
+		.then(
+			() => undefined,
+			(err) => console.error('[kickpanel] watch notices failed:', err)
+		);
+}
+
+/** Resolves once notices queued so far have been handed to the mail server. */
+export function noticesSettled(): Promise<void> {
+	return delivering;
+}
+
+let running: (() => void) | null = null;
+
+/** Listens for committed changes and checks hourly for digests (and notices whose mail failed). */
+export function startWatchNotices(): () => void {
+	if (running) return running;
+	const unsubscribe = onRevisionWritten((event) => queueNotices(event).then(() => undefined));
+	const timer = setInterval(() => {
+		kickDelivery();
+		sendDigests(new Date()).catch((err) => console.error('[kickpanel] digests failed:', err));
+	}, HOUR_MS);
+	timer.unref();
+	running = () => {
+		clearInterval(timer);
+		unsubscribe();
+		running = null;
+	};
+	return running;
+}

@@ -1,0 +1,12 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { requireRole } from '$lib/server/auth/guard';
+import { apiCall, readJson } from '$lib/server/http';
+import { ampCurrent, ampCurrentInputSchema } from '$lib/domain/power';
+
+export const POST: RequestHandler = ({ locals, request }) =>
+	apiCall(async () => {
+		requireRole(locals, 'viewer');
+		const input = await readJson(request, ampCurrentInputSchema);
+		return json(ampCurrent(input));
+	});

@@ -1,0 +1,16 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { requireRole } from '$lib/server/auth/guard';
+import { apiCall, readJson } from '$lib/server/http';
+import { ServiceError } from '$lib/server/services/errors';
+import { powerWire, powerWireInputSchema } from '$lib/domain/power';
+
+export const POST: RequestHandler = ({ locals, request }) =>
+	apiCall(async () => {
+		requireRole(locals, 'viewer');
+		const input = await readJson(request, powerWireInputSchema);
+		const result = powerWire(input);
+		if (!result.ok) throw new ServiceError(result.reason, 422);
+		const { awg, resistanceOhms, dropV, dropPct, fuseA } = result;
+		return json({ awg, resistanceOhms, dropV, dropPct, fuseA });
+	});

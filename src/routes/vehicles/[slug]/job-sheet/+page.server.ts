@@ -1,0 +1,116 @@
+import type { PageServerLoad } from './$types';
+import { requireRole } from '$lib/server/auth/guard';
+import { asHttpError } from '$lib/server/http';
+import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
+import { listParts, partsByIds } from '$lib/server/services/parts';
+import { measurementOrigins, placeReaders } from '$lib/server/services/fit';
+import { trustSummary } from '$lib/server/services/trust';
+import { ServiceError } from '$lib/server/services/errors';
+import { jobSheet } from '$lib/domain/jobSheet';
+import { readNumber } from '$lib/domain/calcInput';
+import { readLength } from '$lib/domain/content/formData';
+import { BODY_STYLE_NAMES, BATTERY_LOCATION_NAMES, type BodyStyle } from '$lib/domain/content/schema';
+
+const LENGTH_FIELDS = ['power', 'ground', 'remote', 'speaker'] as const;
+type LengthField = (typeof LENGTH_FIELDS)[number];
+
+export const load: PageServerLoad = async ({ locals, params, url }) => {
+	requireRole(locals, 'viewer');
+	const q = url.searchParams;
+	const unit = q.get('unit') === 'in' || (!q.get('unit') && locals.units === 'imperial') ? 'in' : 'mm';
+	try {
+		const vehicle = await requireVehicle(params.slug);
+		const rev = await currentRevision(vehicle);
+		if (!rev) throw new ServiceError('This page has no revision yet.', 404);
+		const partIds = q.getAll('part').flatMap((v) => v.split(',')).map(Number);
+		const [parts, catalogue, trust, evidence] = await Promise.all([
+			partsByIds(partIds),
+			listParts(),
+			trustSummary(vehicle.id, locals.units),
+			measurementOrigins(vehicle, placeReaders(rev.content))
+		]);
+
+		// Typed lengths: metres (or feet for imperial) unless the text names its unit.
+		const errors: Record<string, string> = {};
+		const lengths: Partial<Record<LengthField, number>> = {};
+		for (const f of LENGTH_FIELDS) {
+			const text = (q.get(f) ?? '').trim();
+			if (!text) continue;
+			try {
+				const m = readLength('m', text, unit);
+				if (!(m >= 0) || m > 30) errors[f] = 'A run length is between 0 and 30 m (98 ft).';
+				else lengths[f] = m;
+			} catch (e) {
+				errors[f] = (e as Error).message;
+			}
+		}
+		const count = (name: string, label: string, min: number, max: number) => {
+			const text = q.get(name);
+			if (!text) return undefined;
+			const n = readNumber(text, { label, whole: true, min, max });
+			if (typeof n === 'string') {
+				errors[name] = n;
+				return undefined;
+			}
+			return n;
+		};
+		const speakers = count('speakers', 'Speakers', 0, 64);
+		const cores = count('cores', 'Cores per cable', 2, 24);
+
+		const sheet = jobSheet({
+			content: rev.content,
+			parts,
+			powerRunId: q.get('run'),
+			powerM: lengths.power ?? null,
+			groundM: lengths.ground ?? null,
+			remoteM: lengths.remote ?? null,
+			speakerM: lengths.speaker ?? null,
+			speakers: speakers ?? null,
+			coresPerCable: cores,
+			remoteInSpeakerCable: q.get('remoteInCable') === 'on',
+			seat: q.get('seat'),
+			speakerLocation: q.get('speakerAt')
+		});
+		const c = rev.content;
+		return {
+			vehicle: { slug: vehicle.slug, title: vehicle.title, body: BODY_STYLE_NAMES[vehicle.body as BodyStyle] ?? vehicle.body },
+			revision: { id: rev.id, by: rev.authorName, at: rev.createdAt.toISOString() },
+			page: {
+				battery: c.power.batteryLocation ? BATTERY_LOCATION_NAMES[c.power.batteryLocation] : null,
+				fuseHolderSpot: c.power.fuseHolderSpot,
+				runs: c.power.runs,
+				groundPoints: c.power.groundPoints,
+				passages: c.firewall.passages,
+				seats: c.seats.spaces,
+				dash: { opening: c.dash.opening, depthMm: c.dash.depthMm, kit: c.dash.kit, trimSteps: c.dash.trimSteps, featuresKept: c.dash.featuresKept },
+				harness: { connectors: c.harness.connectors, factoryAmp: c.harness.factoryAmp, reverseTrigger: c.harness.reverseTrigger, illumination: c.harness.illumination, can: c.harness.can, wires: c.harness.wires },
+				speakers: c.speakers.locations,
+				removal: c.removal
+			},
+			parts,
+			catalogue: catalogue.map((p) => ({ id: p.id, kind: p.kind, sku: p.sku, name: p.name })),
+			sheet,
+			evidence,
+			trust,
+			form: {
+				parts: parts.map((p) => String(p.id)),
+				run: sheet.powerRun.id ?? '',
+				power: q.get('power') ?? '',
+				ground: q.get('ground') ?? '',
+				remote: q.get('remote') ?? '',
+				speaker: q.get('speaker') ?? '',
+				speakers: q.get('speakers') ?? '',
+				cores: q.get('cores') ?? '',
+				remoteInCable: q.get('remoteInCable') === 'on',
+				seat: q.get('seat') ?? '',
+				speakerAt: q.get('speakerAt') ?? '',
+				unit
+			},
+			errors,
+			units: locals.units,
+			printedAt: new Date().toISOString()
+		};
+	} catch (err) {
+		asHttpError(err);
+	}
+};

@@ -1,0 +1,59 @@
+import { fail, redirect } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { requireRole } from '$lib/server/auth/guard';
+import { asHttpError } from '$lib/server/http';
+import { ServiceError } from '$lib/server/services/errors';
+import { requireVehicle } from '$lib/server/services/vehicles';
+import { confirmPage, flagField, trustSummary } from '$lib/server/services/trust';
+
+/** Back to the page the form was on, never off the site. */
+function backTo(form: FormData, slug: string, mark: string): string {
+	const wanted = String(form.get('redirectTo') ?? '');
+	const safe = wanted.startsWith('/') && !wanted.startsWith('//') && !wanted.startsWith('/\\') ? wanted : `/vehicles/${slug}`;
+	const [path, hash] = safe.split('#');
+	const url = new URL(path, 'http://kickpanel.local');
+	url.searchParams.set('marked', mark);
+	return `${url.pathname}${url.search}${hash ? `#${hash}` : ''}`;
+}
+
+export const load: PageServerLoad = async ({ locals, params }) => {
+	requireRole(locals, 'viewer');
+	try {
+		const vehicle = await requireVehicle(params.slug);
+		return { vehicle: { slug: vehicle.slug, title: vehicle.title }, trust: await trustSummary(vehicle.id, locals.units) };
+	} catch (err) {
+		asHttpError(err);
+	}
+};
+
+export const actions: Actions = {
+	confirm: async ({ locals, params, request }) => {
+		const user = requireRole(locals, 'viewer');
+		const form = await request.formData();
+		let slug: string;
+		try {
+			const vehicle = await requireVehicle(params.slug);
+			slug = vehicle.slug;
+			await confirmPage(vehicle.id, { revisionId: form.get('revisionId') || undefined, note: String(form.get('note') ?? '') }, user);
+		} catch (err) {
+			if (err instanceof ServiceError) return fail(err.status, { action: 'confirm', message: err.message, errors: err.fieldErrors ?? {} });
+			throw err;
+		}
+		redirect(303, backTo(form, slug, 'confirmed'));
+	},
+	flag: async ({ locals, params, request }) => {
+		const user = requireRole(locals, 'viewer');
+		const form = await request.formData();
+		const values = { fieldPath: String(form.get('fieldPath') ?? ''), note: String(form.get('note') ?? '') };
+		let slug: string;
+		try {
+			const vehicle = await requireVehicle(params.slug);
+			slug = vehicle.slug;
+			await flagField(vehicle.id, { ...values, revisionId: form.get('revisionId') || undefined }, user);
+		} catch (err) {
+			if (err instanceof ServiceError) return fail(err.status, { action: 'flag', message: err.message, values, errors: err.fieldErrors ?? {} });
+			throw err;
+		}
+		redirect(303, backTo(form, slug, 'flagged'));
+	}
+};

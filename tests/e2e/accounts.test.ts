@@ -1,0 +1,95 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import { BASE, DESKTOP, openBrowser, PHONE, screenshot, userFor } from './browser';
+
+let context: BrowserContext;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+	({ context, close } = await openBrowser(DESKTOP));
+});
+afterAll(() => close());
+
+// Typing before the page has hydrated can be undone by hydration, so every visit waits for the network to settle.
+async function visit(page: Page, path: string) {
+	await page.goto(`${BASE}${path}`);
+	await page.waitForLoadState('networkidle');
+}
+
+async function signInAs(page: Page, email: string, password: string) {
+	await visit(page, '/signin');
+	await page.fill('#email', email);
+	await page.fill('#password', password);
+	// The sign-in answer passes through /auth/… on its way to the page.
+	await Promise.all([page.waitForURL((url) => !url.pathname.startsWith('/signin') && !url.pathname.startsWith('/auth')), page.click('button:has-text("Sign in")')]);
+}
+
+const signInAdmin = (page: Page) => signInAs(page, userFor('admin').email, userFor('admin').password);
+
+async function freshPage(viewport = DESKTOP) {
+	await context.clearCookies();
+	const page = await context.newPage();
+	await page.setViewportSize(viewport);
+	return page;
+}
+
+describe('inviting a new member of staff', () => {
+	const address = `fitter-${Date.now()}@kickpanel.test`;
+	const name = 'Invited Fitter (sample)';
+	const password = 'left-kick-panel-9';
+	let invitePath = '';
+
+	it('lets an admin send an invitation by e-mail', async () => {
+		const page = await freshPage(DESKTOP);
+		await signInAdmin(page);
+		await visit(page, '/admin/users');
+		await page.fill('#invite-email', address);
+		await page.selectOption('#invite-role', 'editor');
+		await page.click('button:has-text("Send invitation")');
+		await page.getByText(`Invitation sent to ${address}`).waitFor();
+		expect(await page.textContent('body')).toContain('Invitations not yet accepted');
+		await screenshot(page, 'invite-sent-desktop');
+		await page.close();
+	});
+
+	it('shows the invitation in the outbox with a link to set up the account', async () => {
+		const page = await freshPage(DESKTOP);
+		await signInAdmin(page);
+		await visit(page, `/admin/outbox?to=${encodeURIComponent(address)}`);
+		await Promise.all([page.waitForURL((url) => /^\/admin\/outbox\/[0-9]+-[0-9a-f]+$/.test(url.pathname)), page.locator('[data-testid="outbox"] a').first().click()]);
+		const text = (await page.locator('[data-testid="mail-text"]').textContent()) ?? '';
+		const match = text.match(/https?:\/\/[^\s]+(\/invite\/[A-Za-z0-9_-]{43})/);
+		expect(match, text).not.toBeNull();
+		invitePath = match![1];
+		await screenshot(page, 'outbox-invite-desktop');
+		await page.close();
+	});
+
+	it('lets the invited person choose a name and password on a phone, then sign in with them', async () => {
+		const page = await freshPage(PHONE);
+		await visit(page, invitePath);
+		expect(await page.textContent('main')).toContain(address);
+		await page.fill('#name', name);
+		await page.fill('#password', password);
+		await page.fill('#confirm', password);
+		await screenshot(page, 'invite-accept-phone');
+		await page.click('button:has-text("Create my account")');
+		await page.getByText('Your account is ready').waitFor();
+
+		expect(await page.getAttribute('main a:has-text("Sign in")', 'href')).toBe('/signin');
+		await signInAs(page, address, password);
+		const who = await page.getByTestId('who').textContent();
+		expect(who).toContain(name);
+		expect(who).toContain('editor');
+		await screenshot(page, 'invited-signed-in-phone');
+		await page.close();
+	});
+
+	it('does not let the same link be used twice', async () => {
+		const page = await freshPage(PHONE);
+		await visit(page, invitePath);
+		expect(await page.textContent('main')).toContain('does not work any more');
+		await page.close();
+	});
+});
