@@ -21,6 +21,8 @@ export KICKPANEL_DEV_TOOLS=1
 # Local stand-ins for hosted services listen on their own test ports.
 export VIN_DECODE_PORT=3392 S3_FAKE_PORT=4570 SMTP_CAPTURE_PORT=2526
 export VIN_DECODE_URL="http://127.0.0.1:$VIN_DECODE_PORT"
+export S3_FAKE_DIR=.data/test-s3
+export BODY_SIZE_LIMIT=64M
 export MAIL_CAPTURE_DIR=.data/test-outbox
 
 server_pid=""
@@ -28,10 +30,11 @@ services_pid=""
 cleanup() {
 	local code=$?
 	trap - EXIT INT TERM
-	[ -n "$server_pid" ] && kill -TERM "$server_pid" 2>/dev/null && wait "$server_pid" 2>/dev/null
-	[ -n "$services_pid" ] && kill -TERM "$services_pid" 2>/dev/null && wait "$services_pid" 2>/dev/null
-	bash scripts/db.sh stop || true
-	rm -rf "$DB_DATA_DIR"
+	set +e
+	if [ -n "$server_pid" ]; then kill -TERM "$server_pid" 2>/dev/null; wait "$server_pid" 2>/dev/null; fi
+	if [ -n "$services_pid" ]; then kill -TERM "$services_pid" 2>/dev/null; wait "$services_pid" 2>/dev/null; fi
+	bash scripts/db.sh stop
+	rm -rf "$DB_DATA_DIR" "$S3_FAKE_DIR" "$MAIL_CAPTURE_DIR"
 	exit "$code"
 }
 trap cleanup EXIT INT TERM
