@@ -50,3 +50,10 @@ wait_for_http() {
 	done
 	return 1
 }
+
+# The first port from $1 upwards that nothing listens on (a leftover server must not break a run).
+free_port() {
+	local port="$1"
+	while (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; do port=$((port + 1)); done
+	echo "$port"
+}

@@ -10,16 +10,17 @@ apt_install mariadbd mariadb-server
 apt_install chromium chromium
 
 export DB_DATA_DIR="${TEST_DB_DATA_DIR:-.data/test-mariadb}"
-export DB_PORT="${TEST_DB_PORT:-3317}"
+export DB_PORT="${TEST_DB_PORT:-$(free_port 3317)}"
 export DB_NAME=kickpanel_test
 export DB_FAST=1
 export DB_POOL_MAX=20
 export AUTH_SECRET=test-secret-not-for-production-000000
-export TEST_APP_PORT="${TEST_APP_PORT:-3117}"
+export TEST_APP_PORT="${TEST_APP_PORT:-$(free_port 3117)}"
 export ORIGIN="http://127.0.0.1:$TEST_APP_PORT"
 export KICKPANEL_DEV_TOOLS=1
 # Local stand-ins for hosted services listen on their own test ports.
-export VIN_DECODE_PORT=3392 S3_FAKE_PORT=4570 SMTP_CAPTURE_PORT=2526
+VIN_DECODE_PORT="$(free_port 3392)"; S3_FAKE_PORT="$(free_port 4570)"; SMTP_CAPTURE_PORT="$(free_port 2526)"
+export VIN_DECODE_PORT S3_FAKE_PORT SMTP_CAPTURE_PORT
 export VIN_DECODE_URL="http://127.0.0.1:$VIN_DECODE_PORT"
 export S3_FAKE_DIR=.data/test-s3
 export BODY_SIZE_LIMIT=64M

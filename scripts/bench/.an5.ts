@@ -255,3 +255,55 @@ time('slice copy', () => list.slice());
 time('Int32Array from', () => Int32Array.from(list));
 console.log(typeof list[0], list.length, Object.getPrototypeOf(list) === Array.prototype);
 const { getHeapStatistics } = await import('node:v8');
+const filters = [{ q: 'grommet', body: 'sedan' as const, conditions: [{ measure: 'passenger-seat-height', op: 'gte' as const, mm: 90 }] }, { q: 'grommet', conditions: [] }];
+for (const f of filters) time('engine.search ' + JSON.stringify(f).slice(0, 60), () => engine.search(f, { limit: 10, referenceYear: 2026 }));
+time('fieldHas name grommet', () => E.fieldHas('name', 'grommet'));
+time('10 hits', () => { for (let i = 0; i < 10; i++) E.hit(i + 1, [], ['grommet'], [], [], 1); });
+{
+  const filt = { q: 'grommet', body: 'sedan' as const, conditions: [{ measure: 'passenger-seat-height', op: 'gte' as const, mm: 90 }] };
+  const listG = E.field('text', 'grommet', all);
+  const bc = E.bodyCode, lv = E.live, mx = E.measureMax, st = E.stamp;
+  time('manual filter loop', () => { let n = 0; for (let i = 0; i < listG.length; i++) { const s = listG[i]; if (st[s] !== 5 && lv[s] === 1 && bc[s] === 1 && mx[s * 11 + 5] >= 90) n++; } return n; });
+  time('manual body only', () => { let n = 0; for (let i = 0; i < listG.length; i++) { const s = listG[i]; if (bc[s] === 1) n++; } return n; });
+  time('manual stamp only', () => { let n = 0; for (let i = 0; i < listG.length; i++) { const s = listG[i]; if (st[s] !== 5) n++; } return n; });
+  time('manual iterate only', () => { let n = 0; for (let i = 0; i < listG.length; i++) { n += listG[i]; } return n; });
+  time('engine filter', () => engine.search(filt, { limit: 10, referenceYear: 2026 }));
+}
+{
+  const listG = E.field('text', 'grommet', all);
+  class F { live: Uint8Array; bodyCode: Uint8Array; mx: Float32Array; body: number; years: Int32Array; condAt: Int32Array; condMm: Float64Array; condAtLeast: Uint8Array; constructor() { this.live = E.live; this.bodyCode = E.bodyCode; this.mx = E.measureMax; this.body = 1; this.years = new Int32Array(0); this.condAt = Int32Array.from([5]); this.condMm = Float64Array.from([90]); this.condAtLeast = Uint8Array.from([1]); }
+    test(slot: number) { if (this.live[slot] !== 1) return false; if (this.body !== 0 && this.bodyCode[slot] !== this.body) return false; const y = this.years; for (let i = 0; i < y.length; i++) return false; const c = this.condAt; for (let i = 0; i < c.length; i++) { if (this.condAtLeast[i] === 1 ? !(this.mx[slot * 11 + c[i]] >= this.condMm[i]) : false) return false; } return true; } }
+  const st = E.stamp;
+  time('class filter loop', () => { const f = new F(); let n = 0; for (let i = 0; i < listG.length; i++) { const s = listG[i]; if (st[s] !== 5 && f.test(s)) n++; } return n; });
+  const t0 = performance.now(); for (let i = 0; i < 200; i++) (E as any).run(['grommet'], new Map([['grommet', false]]), [], { q: 'grommet', body: 'sedan', conditions: [{ measure: 'passenger-seat-height', op: 'gte', mm: 90 }] }, 10, 0); console.log('run only', ((performance.now() - t0) / 200 * 1000).toFixed(1));
+}
+{
+(globalThis as any).TS = 0;
+const filt = { q: 'grommet', body: 'sedan' as const, conditions: [{ measure: 'passenger-seat-height', op: 'gte' as const, mm: 90 }] };
+const t0 = performance.now(); for (let i = 0; i < 200; i++) engine.search(filt, { limit: 10, referenceYear: 2026 });
+console.log('search', ((performance.now() - t0) / 200 * 1000).toFixed(1), 'scan', ((globalThis as any).TS / 200 * 1000).toFixed(1), (globalThis as any).LN);
+}
+{
+  const listG = E.field('text', 'grommet', all);
+  const Mx = 11;
+  function scan(list: readonly number[], f: any, stamp: Uint32Array, skip: number) {
+    const { live, bodyCode, makeCode, yearFrom, yearTo, photoFlags, measureMin, measureMax, body, make, photos, years, condAt, condAtLeast, condMm } = f;
+    const ny = years.length; const nc = condAt.length; let n = 0;
+    next: for (let i = 0; i < list.length; i++) {
+      const slot = list[i];
+      if (stamp[slot] === skip || live[slot] !== 1) continue;
+      if (body !== 0 && bodyCode[slot] !== body) continue;
+      if (make !== 0 && makeCode[slot] !== make) continue;
+      for (let k = 0; k < ny; k++) if (yearFrom[slot] > years[k] || yearTo[slot] < years[k]) continue next;
+      if (photos && photoFlags[slot] !== 1) continue;
+      for (let k = 0; k < nc; k++) { const at = condAt[k]; if (at < 0) continue next; if (condAtLeast[k] === 1 ? !(measureMax[slot * Mx + at] >= condMm[k]) : !(measureMin[slot * Mx + at] <= condMm[k])) continue next; }
+      n++;
+    }
+    return n;
+  }
+  const f = { live: E.live, bodyCode: E.bodyCode, makeCode: E.makeCode, yearFrom: E.yearFrom, yearTo: E.yearTo, photoFlags: E.photos, measureMin: E.measureMin, measureMax: E.measureMax, body: 1, make: 0, photos: false, years: new Int32Array(0), condAt: Int32Array.from([5]), condAtLeast: Uint8Array.from([1]), condMm: Float64Array.from([90]) };
+  time('copied scan', () => scan(listG, f, E.stamp, -1));
+  time('copied scan skip 5', () => scan(listG, f, E.stamp, 5));
+  const f2 = { ...f, condAt: new Int32Array(0), condAtLeast: new Uint8Array(0), condMm: new Float64Array(0) };
+  time('copied scan no cond', () => scan(listG, f2, E.stamp, 5));
+}
