@@ -70,7 +70,7 @@ describe('photos on a vehicle page', () => {
 		await page.fill('#caption', caption);
 		await page.fill('#alt', 'Passenger seat rail with two bolts and a loom clip (sample photo)');
 		await page.getByRole('button', { name: 'Upload photos' }).click();
-		await expect.poll(() => page.getByRole('status').textContent(), { timeout: 20_000 }).toMatch(/Photo added as revision \d+/);
+		await page.getByRole('status').filter({ hasText: /Photo added as revision \d+/ }).waitFor({ timeout: 20_000 });
 
 		const strip = page.getByRole('list', { name: 'Seat space photos' });
 		const thumb = strip.locator('img[src$="/thumb"]').last();

@@ -41,7 +41,7 @@ describe('a writer edits, a moderator puts it right', () => {
 		await page.fill('#summary', 'Passenger seat height re-measured');
 		await screenshot(page, 'editor-phone');
 		await Promise.all([page.waitForURL(/saved=\d+/), page.click('button:has-text("Save revision")')]);
-		expect(await page.getByRole('status').first().textContent()).toMatch(/Saved revision \d+/);
+		await page.getByRole('status').filter({ hasText: /Saved revision \d+/ }).waitFor();
 
 		await page.goto(`${BASE}/vehicles/${SLUG}/history`);
 		expect(await page.textContent('table')).toContain('Passenger seat height re-measured');

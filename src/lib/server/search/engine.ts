@@ -56,10 +56,7 @@ type Entry = {
 	makeKey: string;
 	modelKey: string;
 	aliasKeys: readonly string[];
-	makeWords: readonly string[];
-	modelWords: readonly string[];
-	aliasWords: readonly string[];
-	bodyWords: readonly string[];
+	names: NameWords;
 	vinPatterns: readonly string[];
 	sortKey: string;
 };
@@ -68,17 +65,191 @@ type FieldDoc = { id: number; name: string; text: string };
 type FieldResult = { field: string; result: number[] }[];
 
 const M = MEASUREMENTS.length;
-
-/** The forward-tokenised name field's test: the word begins one of the page's identity words. */
-const startsAWord = (e: Entry, w: string) =>
-	[e.makeWords, e.modelWords, e.aliasWords, e.bodyWords].some((list) => list.some((x) => x.startsWith(w)));
 const BODY_CODE = new Map(BODY_STYLES.map((b, i) => [b, i + 1]));
-const NONE: readonly string[] = Object.freeze([]);
+const NONE: readonly string[] = [];
 const RANK_BITS = 2 ** 22;
 
 // Text reaches FlexSearch already folded and split by searchWords (the same function reads queries),
 // so FlexSearch only splits on spaces: both sides agree on every word, and building skips re-encoding.
 const splitOnSpaces = (text: string) => text.split(' ');
+
+/** A page's identity words; one object is shared by every page with the same make, model, aliases and body. */
+type NameWords = { id: number; makeWords: readonly string[]; modelWords: readonly string[]; aliasWords: readonly string[]; bodyWords: readonly string[] };
+
+// Plain loops: these run for every identity match of every keystroke.
+function has(list: readonly string[], w: string): boolean {
+	for (let i = 0; i < list.length; i++) if (list[i] === w) return true;
+	return false;
+}
+function begins(list: readonly string[], w: string): boolean {
+	for (let i = 0; i < list.length; i++) if (list[i].startsWith(w)) return true;
+	return false;
+}
+
+/** The forward-tokenised name field's test: the word begins one of the page's identity words. */
+const startsAWord = (n: NameWords, w: string) => begins(n.makeWords, w) || begins(n.modelWords, w) || begins(n.aliasWords, w) || begins(n.bodyWords, w);
+
+/** Identity matches rank by how exactly each word names the car: model, then make, then another name. */
+function identityScore(n: NameWords, named: string[]): number {
+	let score = 100;
+	for (let i = 0; i < named.length; i++) {
+		const w = named[i];
+		if (has(n.modelWords, w)) score += 30;
+		else if (has(n.makeWords, w)) score += 20;
+		else if (has(n.aliasWords, w)) score += 15;
+		else if (begins(n.modelWords, w)) score += 8;
+		else if (begins(n.makeWords, w)) score += 6;
+		else if (begins(n.aliasWords, w)) score += 4;
+	}
+	return score;
+}
+
+type Columns = {
+	live: Uint8Array;
+	bodyCode: Uint8Array;
+	makeCode: Uint16Array;
+	yearFrom: Uint16Array;
+	yearTo: Uint16Array;
+	photos: Uint8Array;
+	measureMin: Float32Array;
+	measureMax: Float32Array;
+};
+
+/** One query's filters, read against the typed-array columns (scanSlots repeats test() inline for speed). */
+class SlotFilter {
+	readonly live: Uint8Array;
+	readonly bodyCode: Uint8Array;
+	readonly makeCode: Uint16Array;
+	readonly yearFrom: Uint16Array;
+	readonly yearTo: Uint16Array;
+	readonly photoFlags: Uint8Array;
+	readonly measureMin: Float32Array;
+	readonly measureMax: Float32Array;
+	readonly body: number;
+	readonly make: number;
+	readonly photos: boolean;
+	readonly years: Int32Array;
+	readonly condAt: Int32Array;
+	readonly condAtLeast: Uint8Array;
+	readonly condMm: Float64Array;
+	/** No filter at all: every live slot passes. */
+	readonly open: boolean;
+
+	constructor(c: Columns, want: { make: number; body: number; photos: boolean; years: number[]; conditions: MeasureCondition[] }) {
+		this.live = c.live;
+		this.bodyCode = c.bodyCode;
+		this.makeCode = c.makeCode;
+		this.yearFrom = c.yearFrom;
+		this.yearTo = c.yearTo;
+		this.photoFlags = c.photos;
+		this.measureMin = c.measureMin;
+		this.measureMax = c.measureMax;
+		this.body = want.body;
+		this.make = want.make;
+		this.photos = want.photos;
+		this.years = Int32Array.from(want.years);
+		this.condAt = Int32Array.from(want.conditions, (x) => measurementByKey.get(x.measure)?.index ?? -1);
+		this.condAtLeast = Uint8Array.from(want.conditions, (x) => (x.op === 'gte' ? 1 : 0));
+		this.condMm = Float64Array.from(want.conditions, (x) => x.mm);
+		this.open = !want.body && !want.make && !want.photos && !want.years.length && !want.conditions.length;
+	}
+
+	test(slot: number): boolean {
+		if (this.live[slot] !== 1) return false;
+		if (this.body !== 0 && this.bodyCode[slot] !== this.body) return false;
+		if (this.make !== 0 && this.makeCode[slot] !== this.make) return false;
+		const years = this.years;
+		for (let i = 0; i < years.length; i++) if (this.yearFrom[slot] > years[i] || this.yearTo[slot] < years[i]) return false;
+		if (this.photos && this.photoFlags[slot] !== 1) return false;
+		const condAt = this.condAt;
+		for (let i = 0; i < condAt.length; i++) {
+			const at = condAt[i];
+			if (at < 0) return false;
+			if (this.condAtLeast[i] === 1 ? !(this.measureMax[slot * M + at] >= this.condMm[i]) : !(this.measureMin[slot * M + at] <= this.condMm[i])) return false;
+		}
+		return true;
+	}
+}
+
+/** Counts matches and keeps only those that fall on the requested page of results. */
+class PageWindow {
+	counted = 0;
+	readonly slots: number[] = [];
+	constructor(
+		private readonly before: number,
+		private readonly from: number,
+		private readonly to: number
+	) {}
+
+	add(slot: number) {
+		const at = this.before + this.counted++;
+		if (at >= this.from && at < this.to) this.slots.push(slot);
+	}
+
+	addAll(list: readonly number[]) {
+		const start = Math.max(0, this.from - this.before);
+		const end = Math.max(start, this.to - this.before);
+		for (let i = start; i < Math.min(end, list.length); i++) this.slots.push(list[i]);
+		this.counted += list.length;
+	}
+}
+
+/** The k smallest of many numbers, kept sorted: only the requested page of identity matches is ordered. */
+class SmallestKeys {
+	private readonly keys: Float64Array;
+	private n = 0;
+	constructor(private readonly k: number) {
+		this.keys = new Float64Array(Math.max(0, k));
+	}
+
+	offer(key: number) {
+		const { keys, k } = this;
+		if (k === 0 || (this.n === k && key >= keys[k - 1])) return;
+		let lo = 0;
+		let hi = this.n;
+		while (lo < hi) {
+			const mid = (lo + hi) >>> 1;
+			if (keys[mid] < key) lo = mid + 1;
+			else hi = mid;
+		}
+		keys.copyWithin(lo + 1, lo, Math.min(this.n, k - 1));
+		keys[lo] = key;
+		if (this.n < k) this.n++;
+	}
+
+	sorted(): Float64Array {
+		return this.keys.subarray(0, this.n);
+	}
+}
+
+/**
+ * Passes every slot of `list` not stamped `skip` through the filter into the window. SlotFilter.test's
+ * checks are written out on locals: this loop runs over tens of thousands of slots per query.
+ */
+function scanSlots(list: readonly number[], f: SlotFilter, page: PageWindow, stamp: Uint32Array, skip: number, allLive: boolean) {
+	if (allLive && f.open && skip < 0) {
+		// Nothing to leave out: the count is the list's length and the page a slice of it.
+		page.addAll(list);
+		return;
+	}
+	const { live, bodyCode, makeCode, yearFrom, yearTo, photoFlags, measureMin, measureMax, body, make, photos, years, condAt, condAtLeast, condMm } = f;
+	const ny = years.length;
+	const nc = condAt.length;
+	next: for (let i = 0; i < list.length; i++) {
+		const slot = list[i];
+		if (stamp[slot] === skip || live[slot] !== 1) continue;
+		if (body !== 0 && bodyCode[slot] !== body) continue;
+		if (make !== 0 && makeCode[slot] !== make) continue;
+		for (let k = 0; k < ny; k++) if (yearFrom[slot] > years[k] || yearTo[slot] < years[k]) continue next;
+		if (photos && photoFlags[slot] !== 1) continue;
+		for (let k = 0; k < nc; k++) {
+			const at = condAt[k];
+			if (at < 0) continue next;
+			if (condAtLeast[k] === 1 ? !(measureMax[slot * M + at] >= condMm[k]) : !(measureMin[slot * M + at] <= condMm[k])) continue next;
+		}
+		page.add(slot);
+	}
+}
 
 /**
  * The in-memory vehicle search: a FlexSearch document index with two fields — identity (make, model,
@@ -124,6 +295,10 @@ export class VehicleSearchEngine {
 	/** Make and model names repeat across thousands of pages; one copy of each string and word list. */
 	private strings = new Map<string, string>();
 	private wordLists = new Map<string, readonly string[]>();
+	private nameSets = new Map<string, NameWords>();
+	/** Per query, the score of each name set already worked out (stamped with the query's generation). */
+	private nameScoreGen = new Uint32Array(256);
+	private nameScore = new Uint16Array(256);
 	private titleOrder: number[] | null = null;
 	private ranked = false;
 	private retiredSlots = 0;
@@ -152,8 +327,32 @@ export class VehicleSearchEngine {
 
 	private wordsOf(text: string): readonly string[] {
 		let list = this.wordLists.get(text);
-		if (!list) this.wordLists.set(text, (list = Object.freeze(searchWords(text).map((w) => this.intern(w)))));
+		if (!list) this.wordLists.set(text, (list = searchWords(text).map((w) => this.intern(w))));
 		return list;
+	}
+
+	private namesOf(identity: VehicleContent['identity']): NameWords {
+		const key = [identity.make, identity.model, identity.body, ...identity.aliases].join('\u0000');
+		let names = this.nameSets.get(key);
+		if (!names) {
+			names = {
+				id: this.nameSets.size,
+				makeWords: this.wordsOf(identity.make),
+				modelWords: this.wordsOf(identity.model),
+				aliasWords: identity.aliases.length ? [...new Set(identity.aliases.flatMap((a) => this.wordsOf(a)))] : NONE,
+				bodyWords: this.wordsOf(BODY_STYLE_NAMES[identity.body])
+			};
+			this.nameSets.set(key, names);
+			if (names.id >= this.nameScoreGen.length) {
+				const gen = new Uint32Array(this.nameScoreGen.length * 2);
+				gen.set(this.nameScoreGen);
+				this.nameScoreGen = gen;
+				const score = new Uint16Array(this.nameScore.length * 2);
+				score.set(this.nameScore);
+				this.nameScore = score;
+			}
+		}
+		return names;
 	}
 
 	private grow(slot: number) {
@@ -187,7 +386,7 @@ export class VehicleSearchEngine {
 	private retire(slot: number) {
 		const old = this.entries[slot];
 		if (!old) return;
-		this.count([...old.makeWords, ...old.modelWords, ...old.aliasWords], -1);
+		this.count([...old.names.makeWords, ...old.names.modelWords, ...old.names.aliasWords], -1);
 		const make = this.makes.get(old.makeKey);
 		if (make && --make.pages === 0) this.makes.delete(old.makeKey);
 		if (this.titleOrder) {
@@ -238,10 +437,7 @@ export class VehicleSearchEngine {
 			makeKey,
 			modelKey,
 			aliasKeys: identity.aliases.length ? identity.aliases.map((a) => this.intern(slugify(a))) : NONE,
-			makeWords: this.wordsOf(identity.make),
-			modelWords: this.wordsOf(identity.model),
-			aliasWords: identity.aliases.length ? [...new Set(identity.aliases.flatMap((a) => this.wordsOf(a)))] : NONE,
-			bodyWords: this.wordsOf(BODY_STYLE_NAMES[identity.body]),
+			names: this.namesOf(identity),
 			vinPatterns: identity.vinPatterns.length ? identity.vinPatterns : NONE,
 			sortKey: `${makeKey} ${modelKey} ${identity.yearFrom} ${input.id}`
 		};
@@ -265,7 +461,7 @@ export class VehicleSearchEngine {
 			this.measureMin[slot * M + i] = r.min;
 			this.measureMax[slot * M + i] = r.max;
 		});
-		this.count([...entry.makeWords, ...entry.modelWords, ...entry.aliasWords], +1);
+		this.count([...entry.names.makeWords, ...entry.names.modelWords, ...entry.names.aliasWords], +1);
 		// Each word once: whole-word matching needs no repeats, and the build and memory shrink by half.
 		this.doc.add({ id: slot, name: identityWords(identity).join(' '), text: noteWords(input.content).join(' ') });
 		if (this.titleOrder) {
@@ -363,24 +559,13 @@ export class VehicleSearchEngine {
 		limit: number,
 		offset: number
 	): { items: SearchHit[]; total: number } {
-		const wantMake = filters.make ? (this.makeCodes.get(slugify(filters.make)) ?? -1) : 0;
-		const wantBody = filters.body ? (BODY_CODE.get(filters.body) ?? -1) : 0;
-		const conditions = filters.conditions.map((c) => ({ ...c, at: measurementByKey.get(c.measure)?.index ?? -1 }));
-		const { live, bodyCode, makeCode, yearFrom, yearTo, photos, measureMin, measureMax } = this;
-		const photosOnly = !!filters.photos;
-		const passes = (slot: number): boolean => {
-			if (live[slot] !== 1) return false;
-			if (wantBody && bodyCode[slot] !== wantBody) return false;
-			if (wantMake && makeCode[slot] !== wantMake) return false;
-			for (let i = 0; i < years.length; i++) if (yearFrom[slot] > years[i] || yearTo[slot] < years[i]) return false;
-			if (photosOnly && !photos[slot]) return false;
-			for (let i = 0; i < conditions.length; i++) {
-				const c = conditions[i];
-				if (c.at < 0) return false;
-				if (c.op === 'gte' ? !(measureMax[slot * M + c.at] >= c.mm) : !(measureMin[slot * M + c.at] <= c.mm)) return false;
-			}
-			return true;
-		};
+		const passes = new SlotFilter(this.columns(), {
+			make: filters.make ? (this.makeCodes.get(slugify(filters.make)) ?? -1) : 0,
+			body: filters.body ? (BODY_CODE.get(filters.body) ?? -1) : 0,
+			photos: !!filters.photos,
+			years,
+			conditions: filters.conditions
+		});
 
 		const named = words.filter((w) => inName.get(w));
 		const rest = words.filter((w) => !inName.get(w));
@@ -394,6 +579,7 @@ export class VehicleSearchEngine {
 		// requested page of them is kept.
 		let aCount = 0;
 		let aKeys: Float64Array = new Float64Array(0);
+		let aGen = -1;
 		if (named.length) {
 			let list: readonly number[] = [];
 			let rarest = '';
@@ -403,36 +589,44 @@ export class VehicleSearchEngine {
 			}
 			const others = named.filter((w) => w !== rarest);
 			const gen = rest.length && list.length ? this.mark(this.field('text', rest.join(' '), all)) : 0;
-			const keys = this.scratchFor(list.length);
+			const best = new SmallestKeys(offset + limit);
+			const genA = this.nextGeneration();
 			for (let i = 0; i < list.length; i++) {
 				const slot = list[i];
-				if ((gen && this.stamp[slot] !== gen) || !passes(slot)) continue;
+				if ((gen && this.stamp[slot] !== gen) || !passes.test(slot)) continue;
 				const e = this.entries[slot]!;
-				if (others.length && !others.every((w) => startsAWord(e, w))) continue;
-				// Higher score first, then title order: one number sorts natively.
-				keys[aCount++] = (1000 - this.identityScore(e, named)) * RANK_BITS + this.rank[slot];
+				if (others.length && !others.every((w) => startsAWord(e.names, w))) continue;
+				this.stamp[slot] = genA;
+				aCount++;
+				// Pages of one model share their name words, so each set is scored once per query.
+				const id = e.names.id;
+				let score: number;
+				if (this.nameScoreGen[id] === genA) score = this.nameScore[id];
+				else {
+					score = this.nameScore[id] = identityScore(e.names, named);
+					this.nameScoreGen[id] = genA;
+				}
+				// Higher score first, then title order: one number compares both.
+				best.offer((1000 - score) * RANK_BITS + this.rank[slot]);
 			}
-			aKeys = keys.subarray(0, aCount).sort();
+			aKeys = best.sorted();
+			aGen = genA;
 		}
 		const order = this.titleOrder!;
 		const slotOfKey = (k: number) => order[k % RANK_BITS];
 
 		// Notes tier: every word in the notes, in FlexSearch's order, leaving out pages already listed.
-		const pageEnd = offset + limit;
-		const windowB: number[] = [];
-		let bCount = 0;
-		const take = (slot: number) => {
-			const at = aCount + bCount++;
-			if (at >= offset && at < pageEnd) windowB.push(slot);
-		};
+		const page = new PageWindow(aCount, offset, offset + limit);
+		const allLive = this.retiredSlots === 0;
 		if (words.length) {
-			const gen = this.markSome(aCount, (i) => slotOfKey(aKeys[i]));
-			const stamp = this.stamp;
-			const list = this.field('text', words.join(' '), all);
-			for (let i = 0; i < list.length; i++) if (stamp[list[i]] !== gen && passes(list[i])) take(list[i]);
+			scanSlots(this.field('text', words.join(' '), all), passes, page, this.stamp, aCount ? aGen : -1, allLive);
 		} else {
-			for (let i = 0; i < order.length; i++) if (passes(order[i])) take(order[i]);
+			// The title order holds live slots only.
+			scanSlots(order, passes, page, this.stamp, -1, true);
 		}
+		const bCount = page.counted;
+		const windowB = page.slots;
+		const pageEnd = offset + limit;
 
 		const total = aCount + bCount;
 		const items: SearchHit[] = [];
@@ -449,17 +643,15 @@ export class VehicleSearchEngine {
 		return { items, total };
 	}
 
-	private scratch = new Float64Array(1024);
-
-	/** A reusable buffer for sort keys, so a query allocates nothing in proportion to its matches. */
-	private scratchFor(n: number): Float64Array {
-		if (this.scratch.length < n) this.scratch = new Float64Array(Math.max(n, this.scratch.length * 2));
-		return this.scratch;
+	private columns(): Columns {
+		const { live, bodyCode, makeCode, yearFrom, yearTo, photos, measureMin, measureMax } = this;
+		return { live, bodyCode, makeCode, yearFrom, yearTo, photos, measureMin, measureMax };
 	}
 
 	private nextGeneration(): number {
 		if (this.generation >= 0xfffffffe) {
 			this.stamp.fill(0);
+			this.nameScoreGen.fill(0);
 			this.generation = 0;
 		}
 		return ++this.generation;
@@ -473,20 +665,6 @@ export class VehicleSearchEngine {
 
 	private mark(slots: readonly number[]): number {
 		return this.markSome(slots.length, (i) => slots[i]);
-	}
-
-	/** Identity matches rank by how exactly each word names the car: model, then make, then another name. */
-	private identityScore(e: Entry, named: string[]): number {
-		let score = 100;
-		for (const w of named) {
-			if (e.modelWords.includes(w)) score += 30;
-			else if (e.makeWords.includes(w)) score += 20;
-			else if (e.aliasWords.includes(w)) score += 15;
-			else if (e.modelWords.some((m) => m.startsWith(w))) score += 8;
-			else if (e.makeWords.some((m) => m.startsWith(w))) score += 6;
-			else if (e.aliasWords.some((m) => m.startsWith(w))) score += 4;
-		}
-		return score;
 	}
 
 	private hit(slot: number, named: string[], textWords: string[], years: number[], conditions: MeasureCondition[], score: number): SearchHit {
