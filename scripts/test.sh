@@ -21,7 +21,6 @@ export KICKPANEL_DEV_TOOLS=1
 # Local stand-ins for hosted services listen on their own test ports.
 VIN_DECODE_PORT="$(free_port 3392)"; S3_FAKE_PORT="$(free_port 4570)"; SMTP_CAPTURE_PORT="$(free_port 2526)"
 export VIN_DECODE_PORT S3_FAKE_PORT SMTP_CAPTURE_PORT
-export VIN_DECODE_URL="http://127.0.0.1:$VIN_DECODE_PORT"
 export S3_FAKE_DIR=.data/test-s3
 export BODY_SIZE_LIMIT=64M
 export MAIL_CAPTURE_DIR=.data/test-outbox

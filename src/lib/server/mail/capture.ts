@@ -64,4 +64,10 @@ export function startMailCapture(options: { port?: number; host?: string; dir?: 
 	});
 }
 
-export const mailCapture: LocalService = { start: () => startMailCapture() };
+// With a real mail server configured, the capture stays off.
+export const mailCapture: LocalService = {
+	start: async () =>
+		process.env.SMTP_HOST
+			? { name: 'mail: SMTP_HOST is set, so no local capture', url: `smtp://${process.env.SMTP_HOST}`, stop: async () => {} }
+			: startMailCapture()
+};

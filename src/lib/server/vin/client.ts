@@ -30,7 +30,7 @@ export type DecoderAnswer = z.infer<typeof decoderAnswerSchema>;
 export function vinDecoderSettings(env: NodeJS.ProcessEnv = process.env) {
 	const timeout = Number(env.VIN_DECODE_TIMEOUT_MS ?? 2_000);
 	return {
-		url: (env.VIN_DECODE_URL || 'http://127.0.0.1:3391').replace(/\/+$/, ''),
+		url: (env.VIN_DECODE_URL || `http://127.0.0.1:${env.VIN_DECODE_PORT || 3391}`).replace(/\/+$/, ''),
 		timeoutMs: Number.isFinite(timeout) && timeout > 0 ? timeout : 2_000,
 		apiKey: env.VIN_DECODE_KEY || null
 	};

@@ -71,4 +71,10 @@ export async function startVinDecoderFake(port = Number(process.env.VIN_DECODE_P
 	};
 }
 
-export const vinDecoderFake: LocalService = { start: () => startVinDecoderFake() };
+// With a hosted decoder configured, the fake stays off.
+export const vinDecoderFake: LocalService = {
+	start: async () =>
+		process.env.VIN_DECODE_URL
+			? { name: 'VIN decoder: VIN_DECODE_URL is set, so no local fake', url: process.env.VIN_DECODE_URL, stop: async () => {} }
+			: startVinDecoderFake()
+};
