@@ -8,6 +8,8 @@ declare global {
 		interface Locals {
 			user: SessionUser | null;
 			units: 'metric' | 'imperial';
+			/** Cached HTML spliced into the page by the handle hook. */
+			fragments?: Record<string, string>;
 		}
 		interface PageData {
 			user?: SessionUser | null;

@@ -4,6 +4,7 @@ import { authHandle } from './auth';
 import { sessionUser } from '$lib/server/auth/session';
 import { closeDb } from '$lib/server/db';
 import { startApp } from '$lib/server/lifecycle';
+import { spliceFragments } from '$lib/server/render/vehicleBody';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -30,7 +31,9 @@ const loadUser: Handle = async ({ event, resolve }) => {
 		if (event.request.method === 'GET') redirect(303, `/signin?next=${encodeURIComponent(path + event.url.search)}`);
 		return new Response('Sign in to continue.', { status: 401 });
 	}
-	return resolve(event);
+	return resolve(event, {
+		transformPageChunk: ({ html }) => (event.locals.fragments ? spliceFragments(html, event.locals.fragments) : html)
+	});
 };
 
 export const handle = sequence(authHandle, loadUser);

@@ -38,6 +38,8 @@ for (let i = 0; i < VEHICLES / 5; i++) modelRows.push([i + 1, (i % makes.length)
 await conn.batch('INSERT INTO models (id, make_id, name, slug) VALUES (?, ?, ?, ?)', modelRows);
 
 const perVehicle = Math.max(1, Math.floor((REVISIONS - LONG_HISTORY) / VEHICLES));
+// The remainder goes one each to the first vehicles, so the total is exactly REVISIONS.
+const extra = Math.max(0, REVISIONS - LONG_HISTORY - perVehicle * (VEHICLES - 1));
 let revisionId = 0;
 let largest: { vehicle: number; ids: number[] } = { vehicle: 1, ids: [] };
 const now = Date.now();
@@ -50,7 +52,7 @@ for (let start = 0; start < VEHICLES; start += 500) {
 		const yearFrom = 1995 + (v % 25);
 		template.identity = { ...template.identity, make: makes[model[1] - 1], model: model[2], yearFrom, yearTo: yearFrom + (v % 6), notes: template.identity.notes + `\n\nBench page ${v}.` };
 		const slug = vehicleSlug(template.identity) + `-${v}`;
-		const count = v === 0 ? LONG_HISTORY : perVehicle;
+		const count = v === 0 ? LONG_HISTORY : perVehicle + (v <= extra ? 1 : 0);
 		let parent: number | null = null;
 		let previousSize = 0;
 		const ids: number[] = [];

@@ -4,7 +4,7 @@ import { hashPassword, verifyPassword } from '../auth/password';
 import { recordSignInFailure, signInThrottle } from '../auth/throttle';
 import type { SessionUser } from '../auth/guard';
 import { fieldMessages } from '../forms';
-import { newUserSchema } from './users';
+import { forgetSessionUser, newUserSchema } from './users';
 import { ServiceError } from './errors';
 
 function refuse(error: z.ZodError): never {
@@ -18,6 +18,7 @@ export async function changeName(userId: number, input: unknown): Promise<string
 	const parsed = nameSchema.safeParse(input);
 	if (!parsed.success) refuse(parsed.error);
 	await User.update({ name: parsed.data.name }, { where: { id: userId } });
+	forgetSessionUser(userId);
 	return parsed.data.name;
 }
 

@@ -1,3 +1,4 @@
+import { forgetSessionUser } from './users';
 import { z } from 'zod';
 import { Op } from 'sequelize';
 import { db } from '../db';
@@ -63,7 +64,7 @@ export async function blockUser(targetId: number, input: unknown, actor: Session
 	if (until.getTime() - now.getTime() > LONGEST_BLOCK_DAYS * DAY_MS) {
 		throw new ServiceError('Blocks last at most five years; disable the account instead.', 400, { until: 'Pick a day within five years.' });
 	}
-	return db().transaction(async (transaction) => {
+	const block = await db().transaction(async (transaction) => {
 		const target = await User.findByPk(targetId, { transaction, lock: transaction.LOCK.UPDATE });
 		if (!target) throw new ServiceError('That person no longer exists.', 404);
 		const refusal = mayBlock(actor, target, 'block');
@@ -79,10 +80,12 @@ export async function blockUser(targetId: number, input: unknown, actor: Session
 		);
 		return { reason: row.reason, until: until.toISOString() };
 	});
+	forgetSessionUser(targetId);
+	return block;
 }
 
 export async function liftBlock(targetId: number, actor: SessionUser, now = new Date()): Promise<boolean> {
-	return db().transaction(async (transaction) => {
+	const lifted = await db().transaction(async (transaction) => {
 		const target = await User.findByPk(targetId, { transaction });
 		if (!target) throw new ServiceError('That person no longer exists.', 404);
 		const refusal = mayBlock(actor, target, 'unblock');
@@ -94,6 +97,8 @@ export async function liftBlock(targetId: number, actor: SessionUser, now = new 
 		if (lifted) await recordAudit({ actorId: actor.id, action: 'user.unblock', targetType: 'user', targetId: target.id }, transaction);
 		return lifted > 0;
 	});
+	forgetSessionUser(targetId);
+	return lifted;
 }
 
 export type BlockListItem = {

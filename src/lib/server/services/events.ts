@@ -23,3 +23,15 @@ export async function announceRevision(event: RevisionWritten): Promise<void> {
 		}
 	}
 }
+
+/** A page row changed without a new revision (protection). */
+const vehicleListeners = new Set<(vehicleId: number) => void>();
+
+export function onVehicleChanged(listener: (vehicleId: number) => void): () => void {
+	vehicleListeners.add(listener);
+	return () => vehicleListeners.delete(listener);
+}
+
+export function announceVehicleChange(vehicleId: number): void {
+	for (const listener of vehicleListeners) listener(vehicleId);
+}

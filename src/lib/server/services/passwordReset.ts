@@ -8,7 +8,7 @@ import { config } from '../config';
 import { fieldMessages } from '../forms';
 import { sendMail } from '../mail/transport';
 import { resetMail } from '../mail/templates';
-import { emailSchema, newUserSchema } from './users';
+import { emailSchema, forgetSessionUser, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
 import { shopSettings } from './settings';
 import { ServiceError } from './errors';
@@ -77,15 +77,16 @@ export async function resetPassword(token: string, input: unknown, now = new Dat
 		throw new ServiceError(Object.values(fields)[0] ?? 'Check the form.', 400, fields);
 	}
 	const passwordHash = await hashPassword(parsed.data.password);
-	const email = await db().transaction(async (transaction) => {
+	const { email, userId } = await db().transaction(async (transaction) => {
 		const row = await usableToken('reset', token, now, { transaction, lock: true });
 		const user = row?.userId ? await User.findByPk(row.userId, { transaction, lock: transaction.LOCK.UPDATE }) : null;
 		if (!row || !user || user.status !== 'active') throw new ServiceError(RESET_UNUSABLE, 404);
 		await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction });
 		await row.update({ usedAt: now }, { transaction });
 		await revokeOpenTokens('reset', { userId: user.id }, now, transaction);
-		return user.email;
+		return { email: user.email, userId: user.id };
 	});
 	await clearSignInFailures(email);
+	forgetSessionUser(userId);
 	return { email };
 }

@@ -10,7 +10,7 @@ import { slugify, vehicleSlug } from '../../domain/slug';
 import type { SessionUser } from '../auth/guard';
 import { renderNotes, type RenderedNotes } from './rendering';
 import { recordAudit } from './audit';
-import { announceRevision } from './events';
+import { announceRevision, announceVehicleChange } from './events';
 import { EditConflictError, NoChangeError, ServiceError } from './errors';
 import { refuseBlockedAuthor } from './blocks';
 
@@ -274,6 +274,7 @@ export async function setProtection(vehicleId: number, protection: 'none' | 'mod
 		await vehicle.update({ protection }, { transaction });
 		await recordAudit({ actorId: actor.id, action: 'vehicle.protect', targetType: 'vehicle', targetId: vehicleId, details: { from, to: protection } }, transaction);
 	});
+	announceVehicleChange(vehicleId);
 }
 
 export type RevisionListItem = {

@@ -8,6 +8,12 @@ import type { SessionUser } from '../auth/guard';
 import { roleAtLeast } from '../../domain/roles';
 import { revisionById } from './revisions';
 import { ServiceError } from './errors';
+import { onRevisionWritten } from './events';
+import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
+
+// Shown on every page view; this process's confirmations, flags and saves clear it at once.
+const summaries = lookupCache<string, TrustSummary>(SHARED_STATE_TTL_MS);
+onRevisionWritten(() => summaries.clear());
 
 // Installers' marks on a page: "fitted as described" for a revision, or a measurement flagged as
 // wrong. A flag stays open while the flagged field still holds the value it had when flagged;
@@ -112,7 +118,7 @@ export async function confirmPage(vehicleId: number, input: unknown, user: Sessi
 	const parsed = trustMarkSchema.safeParse(input ?? {});
 	if (!parsed.success) throw new ServiceError(parsed.error.issues[0].message, 400, { note: parsed.error.issues[0].message });
 	const revision = await currentFor(vehicleId, parsed.data.revisionId);
-	return db().transaction(async (transaction) => {
+	const result = await db().transaction(async (transaction) => {
 		const existing = await Confirmation.findOne({
 			where: { vehicleId, revisionId: revision.id, userId: user.id, kind: 'confirm' },
 			transaction,
@@ -122,6 +128,8 @@ export async function confirmPage(vehicleId: number, input: unknown, user: Sessi
 		const row = await Confirmation.create({ vehicleId, revisionId: revision.id, userId: user.id, kind: 'confirm', fieldPath: null, note: parsed.data.note }, { transaction });
 		return { id: Number(row.id), created: true };
 	});
+	summaries.clear();
+	return result;
 }
 
 /** A measurement (or the page as a whole, with no field) flagged as wrong, with a note. */
@@ -147,6 +155,7 @@ export async function flagField(vehicleId: number, input: unknown, user: Session
 		}
 	}
 	const row = await Confirmation.create({ vehicleId, revisionId: revision.id, userId: user.id, kind: 'flag', fieldPath, note });
+	summaries.clear();
 	return { id: Number(row.id) };
 }
 
@@ -154,6 +163,11 @@ const same = (a: unknown, b: unknown) => canonicalJson(a ?? null) === canonicalJ
 
 /** What the reading view, the fit check and the job sheet show as trust for a page. */
 export async function trustSummary(vehicleId: number, units: UnitSystem = 'metric'): Promise<TrustSummary> {
+	const key = `${vehicleId}:${units}`;
+	return summaries.get(key, () => computeTrustSummary(vehicleId, units));
+}
+
+async function computeTrustSummary(vehicleId: number, units: UnitSystem): Promise<TrustSummary> {
 	const vehicle = await Vehicle.findByPk(vehicleId, { attributes: ['id', 'latestRevisionId'] });
 	if (!vehicle) throw new ServiceError('No vehicle page at this address.', 404);
 	const currentId = vehicle.latestRevisionId === null ? null : Number(vehicle.latestRevisionId);

@@ -5,6 +5,7 @@ import { hashPassword, MIN_PASSWORD_LENGTH, verifyPassword } from '../auth/passw
 import { clearSignInFailures, recordSignInFailure, signInThrottle } from '../auth/throttle';
 import type { SessionUser } from '../auth/guard';
 import { recordAudit } from './audit';
+import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 import { activeBlockFor } from './blocks';
 
 export const emailSchema = z
@@ -54,7 +55,7 @@ export function listUsers(): Promise<User[]> {
 }
 
 export async function changeRole(userId: number, role: Role, actorId: number): Promise<void> {
-	await db().transaction(async (transaction) => {
+	await afterCommitForget(userId, () => db().transaction(async (transaction) => {
 		const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
 		if (!user) throw new UserError('That user no longer exists.');
 		if (user.role === role) return;
@@ -62,11 +63,11 @@ export async function changeRole(userId: number, role: Role, actorId: number): P
 		const from = user.role;
 		await user.update({ role }, { transaction });
 		await recordAudit({ actorId, action: 'user.role', targetType: 'user', targetId: user.id, details: { from, to: role } }, transaction);
-	});
+	}));
 }
 
 export async function setUserStatus(userId: number, status: 'active' | 'disabled', actorId: number): Promise<void> {
-	await db().transaction(async (transaction) => {
+	await afterCommitForget(userId, () => db().transaction(async (transaction) => {
 		const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
 		if (!user) throw new UserError('That user no longer exists.');
 		if (user.status === status) return;
@@ -74,15 +75,34 @@ export async function setUserStatus(userId: number, status: 'active' | 'disabled
 		const from = user.status;
 		await user.update({ status }, { transaction });
 		await recordAudit({ actorId, action: 'user.status', targetType: 'user', targetId: user.id, details: { from, to: status } }, transaction);
-	});
+	}));
 }
 
 /** The signed-in user for a session, read fresh so a disabled, demoted or blocked user is refused at once. */
+/** Runs a write, then drops the person's cached session so the next request reads the committed row. */
+async function afterCommitForget<T>(userId: number, write: () => Promise<T>): Promise<T> {
+	const result = await write();
+	forgetSessionUser(userId);
+	return result;
+}
+
+type SessionSnapshot = { user: SessionUser; status: string; sessionVersion: number } | null;
+const sessionSnapshots = lookupCache<number, SessionSnapshot>(SHARED_STATE_TTL_MS);
+
+/** Every write to a person's account, role, block or password calls this, so the next request sees it. */
+export function forgetSessionUser(userId: number): void {
+	sessionSnapshots.delete(userId);
+}
+
 export async function activeSessionUser(userId: number, sessionVersion: number): Promise<SessionUser | null> {
-	const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'role', 'status', 'units', 'sessionVersion'] });
-	if (!user || user.status !== 'active' || user.sessionVersion !== sessionVersion) return null;
-	const block = await activeBlockFor(user.id);
-	return { ...toSessionUser(user), block: block ? { reason: block.reason, until: block.until } : null };
+	const snapshot = await sessionSnapshots.get(userId, async () => {
+		const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'role', 'status', 'units', 'sessionVersion'] });
+		if (!user) return null;
+		const block = await activeBlockFor(user.id);
+		return { user: { ...toSessionUser(user), block: block ? { reason: block.reason, until: block.until } : null }, status: user.status, sessionVersion: user.sessionVersion };
+	});
+	if (!snapshot || snapshot.status !== 'active' || snapshot.sessionVersion !== sessionVersion) return null;
+	return snapshot.user;
 }
 
 export type SignInResult =

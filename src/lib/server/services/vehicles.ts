@@ -3,6 +3,8 @@ import { Make, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
 import { vehicleTitle } from '../../domain/slug';
 import { revisionById, type StoredRevision } from './revisions';
 import { ServiceError } from './errors';
+import { onRevisionWritten, onVehicleChanged } from './events';
+import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
 export type VehicleSummary = {
 	id: number;
@@ -39,7 +41,16 @@ function summary(v: Vehicle): VehicleSummary {
 export type VehicleLookup = { vehicle: VehicleSummary } | { redirectTo: string } | null;
 
 /** A page by its slug; a slug it was known by before an identity change answers with the current one. */
+// Page rows are read on every view; this process's writes clear them, other instances' within the time limit.
+const bySlug = lookupCache<string, VehicleLookup>(SHARED_STATE_TTL_MS);
+onRevisionWritten(() => bySlug.clear());
+onVehicleChanged(() => bySlug.clear());
+
 export async function vehicleBySlug(slug: string): Promise<VehicleLookup> {
+	return bySlug.get(slug, () => lookUpSlug(slug));
+}
+
+async function lookUpSlug(slug: string): Promise<VehicleLookup> {
 	const v = await Vehicle.findOne({ where: { slug }, include: INCLUDE_NAMES });
 	if (v) return { vehicle: summary(v) };
 	const old = await VehicleSlug.findByPk(slug);

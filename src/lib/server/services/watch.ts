@@ -9,6 +9,9 @@ import { revisionById } from './revisions';
 import { vehicleById, type VehicleSummary } from './vehicles';
 import { visibleRevision } from './review';
 import { ServiceError } from './errors';
+import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
+
+const watching = lookupCache<string, boolean>(SHARED_STATE_TTL_MS);
 
 const HOUR_MS = 60 * 60 * 1000;
 const DIGEST_INTERVAL_MS = 24 * HOUR_MS;
@@ -35,14 +38,17 @@ export async function setNoticePreferences(userId: number, prefs: NoticePreferen
 export async function watchPage(userId: number, vehicleId: number): Promise<void> {
 	if (!(await vehicleById(vehicleId))) throw new ServiceError('That vehicle page no longer exists.', 404);
 	await Watch.bulkCreate([{ userId, vehicleId }], { ignoreDuplicates: true });
+	watching.delete(`${userId}:${vehicleId}`);
 }
 
 export async function unwatchPage(userId: number, vehicleId: number): Promise<void> {
 	await Watch.destroy({ where: { userId, vehicleId } });
+	watching.delete(`${userId}:${vehicleId}`);
 }
 
 export async function isWatching(userId: number, vehicleId: number): Promise<boolean> {
-	return (await Watch.count({ where: { userId, vehicleId } })) > 0;
+	const key = `${userId}:${vehicleId}`;
+	return watching.get(key, async () => (await Watch.count({ where: { userId, vehicleId } })) > 0);
 }
 
 export type WatchlistItem = {
@@ -87,7 +93,10 @@ const NOTIFYING_KINDS: RevisionWritten['kind'][] = ['create', 'save', 'restore']
 export async function queueNotices(event: RevisionWritten): Promise<number> {
 	if (!NOTIFYING_KINDS.includes(event.kind)) return 0;
 	const authorPrefs = await noticePreferences(event.authorId);
-	if (authorPrefs.watchOwnEdits) await Watch.bulkCreate([{ userId: event.authorId, vehicleId: event.vehicleId }], { ignoreDuplicates: true });
+	if (authorPrefs.watchOwnEdits) {
+		await Watch.bulkCreate([{ userId: event.authorId, vehicleId: event.vehicleId }], { ignoreDuplicates: true });
+		watching.delete(`${event.authorId}:${event.vehicleId}`);
+	}
 	const watchers = await Watch.findAll({
 		where: { vehicleId: event.vehicleId, userId: { [Op.ne]: event.authorId } },
 		include: [

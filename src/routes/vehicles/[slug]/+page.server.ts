@@ -8,8 +8,9 @@ import { isWatching } from '$lib/server/services/watch';
 import { trustSummary } from '$lib/server/services/trust';
 import { canEditVehicle } from '$lib/server/services/revisions';
 import { setUnits } from '$lib/server/services/preferences';
+import { deliverBody, vehicleBody } from '$lib/server/render/vehicleBody';
 
-export const load: PageServerLoad = async ({ locals, params, url }) => {
+export const load: PageServerLoad = async ({ locals, params, url, isDataRequest }) => {
 	const user = requireRole(locals, 'viewer');
 	const found = await vehicleBySlug(params.slug);
 	if (!found) error(404, 'No vehicle page at this address.');
@@ -26,8 +27,12 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const saved = Number(url.searchParams.get('saved'));
 	return {
 		vehicle,
-		content: revision.content,
+		identity: revision.content.identity,
+		photos: revision.content.photos,
 		rendered: revision.rendered,
+		// A full page view gets the cached figures spliced into its HTML (see hooks.server.ts) instead of
+		// serialising them twice; a client-side navigation receives them as data.
+		...deliverBody(locals, vehicleBody(revision, locals.units), isDataRequest),
 		revision: { id: revision.id, authorName: revision.authorName, createdAt: revision.createdAt.toISOString(), summary: revision.summary },
 		canEdit: canEditVehicle(user, vehicle),
 		watching,

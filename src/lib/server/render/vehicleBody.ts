@@ -1,0 +1,70 @@
+import { render } from 'svelte/server';
+import SectionBody from '$lib/components/vehicle/SectionBody.svelte';
+import QuickFacts from '$lib/components/vehicle/QuickFacts.svelte';
+import { sectionIsEmpty } from '$lib/components/vehicle/display';
+import { SECTION_KEYS, type SectionKey } from '$lib/domain/content/schema';
+import type { UnitSystem } from '$lib/domain/units';
+import type { StoredRevision } from '../services/revisions';
+
+export type VehicleBody = {
+	sections: Record<SectionKey, { html: string; empty: boolean }>;
+	quickFacts: string;
+	quickFactsColumns: string;
+};
+
+// A revision never changes, so its figures and tables are rendered once per unit system and kept:
+// a page view then only renders what depends on the reader (header, trust marks, watch button).
+const cache = new Map<string, VehicleBody>();
+const CACHE_LIMIT = 2_000;
+
+export function vehicleBody(revision: StoredRevision, units: UnitSystem): VehicleBody {
+	const key = `${revision.id}:${units}`;
+	const hit = cache.get(key);
+	if (hit) return hit;
+	const { content, rendered } = revision;
+	const sections = {} as VehicleBody['sections'];
+	for (const section of SECTION_KEYS) {
+		const empty = sectionIsEmpty(content, section) && !rendered[section] && !content.photos.some((p) => p.section === section);
+		sections[section] = { html: empty ? '' : render(SectionBody, { props: { section, content, units } }).body, empty };
+	}
+	const body: VehicleBody = {
+		sections,
+		quickFacts: render(QuickFacts, { props: { content, units } }).body,
+		quickFactsColumns: render(QuickFacts, { props: { content, units, columns: true } }).body
+	};
+	if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
+	cache.set(key, body);
+	return body;
+}
+
+/** Client navigations get the body as data; a full page view gets it spliced into the HTML by the handle hook. */
+export function deliverBody(locals: App.Locals, body: VehicleBody, isDataRequest: boolean) {
+	const empty = Object.fromEntries(SECTION_KEYS.map((k) => [k, body.sections[k].empty])) as Record<SectionKey, boolean>;
+	if (isDataRequest) return { empty, body };
+	const fragments: Record<string, string> = { 'quick-facts': body.quickFacts, 'quick-facts-columns': body.quickFactsColumns };
+	for (const key of SECTION_KEYS) fragments[`section-${key}`] = body.sections[key].html;
+	locals.fragments = fragments;
+	return { empty, body: null };
+}
+
+const MARK = '<div data-kp-fragment="';
+
+/** Fills the empty fragment placeholders of a rendered page with their cached HTML, in one pass. */
+export function spliceFragments(html: string, fragments: Record<string, string>): string {
+	const parts: string[] = [];
+	let from = 0;
+	for (let at = html.indexOf(MARK); at !== -1; at = html.indexOf(MARK, from)) {
+		const nameEnd = html.indexOf('"', at + MARK.length);
+		const name = html.slice(at + MARK.length, nameEnd);
+		const close = nameEnd + 2; // past `">`
+		if (!(name in fragments) || !html.startsWith('</div>', close)) {
+			parts.push(html.slice(from, close));
+			from = close;
+			continue;
+		}
+		parts.push(html.slice(from, close), fragments[name]);
+		from = close;
+	}
+	parts.push(html.slice(from));
+	return parts.join('');
+}
