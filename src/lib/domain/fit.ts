@@ -258,14 +258,23 @@ export class SeatSpaceIndex {
 		const rows = new Int32Array(size);
 		const tight = new Uint8Array(size);
 		let k = 0;
-		// NaN (not measured) propagates through min/max and fails the final >= 0.
+		// Ternaries instead of Math.min/max (about 1.5× faster here); they do not carry NaN, so a side
+		// that was not measured (NaN) is excluded explicitly: NaN === NaN is false.
 		for (let i = 0; i < size; i++) {
 			const L = l[i];
 			const W = w[i];
-			const m = Math.min(Math.max(Math.min(L - bl, W - bw), Math.min(L - bw, W - bl)), h[i] - bh);
+			const H = h[i] - bh;
+			const straightL = L - bl;
+			const straightW = W - bw;
+			const turnedL = L - bw;
+			const turnedW = W - bl;
+			const straight = straightL < straightW ? straightL : straightW;
+			const turned = turnedL < turnedW ? turnedL : turnedW;
+			const floor = straight > turned ? straight : turned;
+			const m = floor < H ? floor : H;
 			rows[k] = i;
 			tight[k] = m < tightMm ? 1 : 0;
-			k += m >= 0 ? 1 : 0;
+			k += m >= 0 && L === L && W === W ? 1 : 0;
 		}
 		return { rows: rows.slice(0, k), tight: tight.slice(0, k) };
 	}
