@@ -209,6 +209,8 @@ export class SeatSpaceIndex {
 	readonly l: Float32Array;
 	readonly w: Float32Array;
 	readonly h: Float32Array;
+	private scratchRows = new Int32Array(0);
+	private scratchTight = new Uint8Array(0);
 
 	constructor(rows: readonly SeatSpaceRow[]) {
 		const n = rows.length;
@@ -255,8 +257,13 @@ export class SeatSpaceIndex {
 		const bw = b.w + clearanceMm;
 		const bh = b.h + clearanceMm;
 		const { l, w, h, size } = this;
-		const rows = new Int32Array(size);
-		const tight = new Uint8Array(size);
+		// Scratch columns are reused between queries (a query runs to completion before the next starts).
+		if (this.scratchRows.length < size) {
+			this.scratchRows = new Int32Array(size);
+			this.scratchTight = new Uint8Array(size);
+		}
+		const rows = this.scratchRows;
+		const tight = this.scratchTight;
 		let k = 0;
 		// Ternaries instead of Math.min/max (about 1.5× faster here); they do not carry NaN, so a side
 		// that was not measured (NaN) is excluded explicitly: NaN === NaN is false.
