@@ -35,7 +35,7 @@ cleanup() {
 trap cleanup INT TERM EXIT
 
 if [ -f scripts/services.ts ]; then
-	npx tsx scripts/services.ts &
+	node --import tsx scripts/services.ts &
 	services_pid=$!
 fi
 npx tsx scripts/migrate.ts

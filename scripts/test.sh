@@ -50,7 +50,7 @@ log "unit and integration tests"
 npx vitest run
 
 log "end-to-end: building and starting the app on $ORIGIN"
-npx tsx scripts/services.ts >.data/e2e-services.log 2>&1 &
+node --import tsx scripts/services.ts >.data/e2e-services.log 2>&1 &
 services_pid=$!
 npx vite build --logLevel error >/dev/null
 npx tsx scripts/migrate.ts
