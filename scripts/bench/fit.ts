@@ -3,7 +3,7 @@
 // over an array of objects with the same rule, and against calling fitVerdict on every row.
 //   BENCH_VEHICLES  how many vehicles (default 50000)
 //   BENCH_QUERIES   how many random boxes (default 2000)
-import { fmt, summarize, writeResults } from './lib';
+import { fmt, summarize, writeResults, seededRandom } from './lib';
 import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, fitVerdict, SeatSpaceIndex, type Box, type SeatSpaceRow } from '../../src/lib/domain/fit';
 
 const VEHICLES = Number(process.env.BENCH_VEHICLES ?? 50_000);
@@ -13,15 +13,7 @@ const TARGET_P95_MS = 5;
 // fitVerdict validates its input on every call, so a full pass is slow; a few queries show the gap.
 const VERDICT_QUERIES = 20;
 
-let seed = 0x66697421;
-function random(): number {
-	// mulberry32: seeded, so every run measures the same spaces and boxes
-	seed = (seed + 0x6d2b79f5) | 0;
-	let t = seed;
-	t = Math.imul(t ^ (t >>> 15), t | 1);
-	t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-	return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-}
+const random = seededRandom(0x66697421);
 const between = (lo: number, hi: number) => lo + random() * (hi - lo);
 // Invented seat spaces; about one in ten figures is not measured yet.
 const figure = (lo: number, hi: number) => (random() < 0.1 ? null : Math.round(between(lo, hi)));

@@ -68,3 +68,15 @@ export function writeResults(name: string, results: unknown) {
 }
 
 export const fmt = (ms: number) => `${ms.toFixed(ms < 10 ? 2 : 1)} ms`;
+
+/** mulberry32: a seeded generator, so every run of a benchmark measures the same invented data. */
+export function seededRandom(seed: number): () => number {
+	let state = seed;
+	return () => {
+		state = (state + 0x6d2b79f5) | 0;
+		let t = state;
+		t = Math.imul(t ^ (t >>> 15), t | 1);
+		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+	};
+}

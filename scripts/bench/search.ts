@@ -6,7 +6,7 @@ import { execFileSync } from 'node:child_process';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 import mariadb from 'mariadb';
-import { fmt, summarize, writeResults } from './lib';
+import { fmt, summarize, writeResults, seededRandom } from './lib';
 import { BODY_STYLES, emptyContent, type BodyStyle, type VehicleContent } from '../../src/lib/domain/content/schema';
 import { identityWords, vehicleSearchSections, type SearchSection } from '../../src/lib/domain/search/document';
 import { vehicleSlug } from '../../src/lib/domain/slug';
@@ -34,15 +34,7 @@ const mb = (bytes: number) => bytes / 1024 / 1024;
 
 // ---------- invented data: seeded, so every run indexes the same vehicles ----------
 
-let seed = 0x6b69636b;
-function random(): number {
-	// mulberry32
-	seed = (seed + 0x6d2b79f5) | 0;
-	let t = seed;
-	t = Math.imul(t ^ (t >>> 15), t | 1);
-	t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-	return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-}
+const random = seededRandom(0x6b69636b);
 const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)];
 const between = (lo: number, hi: number) => lo + Math.floor(random() * (hi - lo + 1));
 const capital = (s: string) => s[0].toUpperCase() + s.slice(1);

@@ -1,15 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { BASE, DESKTOP, openBrowser, PHONE, screenshot, userFor } from './browser';
+import { BASE, browserSession, DESKTOP, PHONE, screenshot, userFor } from './browser';
 
-let context: BrowserContext;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-	({ context, close } = await openBrowser(DESKTOP));
-});
-afterAll(() => close());
+const { freshPage } = browserSession(DESKTOP);
 
 // Typing before the page has hydrated can be undone by hydration, so every visit waits for the network to settle.
 async function visit(page: Page, path: string) {
@@ -27,12 +20,6 @@ async function signInAs(page: Page, email: string, password: string) {
 
 const signInAdmin = (page: Page) => signInAs(page, userFor('admin').email, userFor('admin').password);
 
-async function freshPage(viewport = DESKTOP) {
-	await context.clearCookies();
-	const page = await context.newPage();
-	await page.setViewportSize(viewport);
-	return page;
-}
 
 describe('inviting a new member of staff', () => {
 	const address = `fitter-${Date.now()}@kickpanel.test`;

@@ -1,6 +1,7 @@
 import { mkdtempSync, readFileSync, rmSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { afterAll, beforeAll } from 'vitest';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 export const BASE = process.env.ORIGIN ?? 'http://127.0.0.1:3117';
@@ -41,4 +42,22 @@ export async function screenshot(page: Page, name: string): Promise<void> {
 	const dir = new URL('./screenshots/', import.meta.url).pathname;
 	mkdirSync(dir, { recursive: true });
 	await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
+}
+
+/** One browser for a test file, opened before its tests and closed after; each test takes a fresh signed-out page. */
+export function browserSession(defaultViewport = DESKTOP) {
+	let context: BrowserContext;
+	let close: (() => Promise<void>) | undefined;
+	beforeAll(async () => {
+		({ context, close } = await openBrowser(defaultViewport));
+	});
+	afterAll(() => close?.());
+	return {
+		async freshPage(viewport = defaultViewport): Promise<Page> {
+			await context.clearCookies();
+			const page = await context.newPage();
+			await page.setViewportSize(viewport);
+			return page;
+		}
+	};
 }

@@ -1,9 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
-import { BASE, DESKTOP, openBrowser, PHONE, screenshot, signIn, userFor } from './browser';
+import { chromium, type Page } from 'playwright-core';
+import { BASE, browserSession, DESKTOP, PHONE, screenshot, signIn, userFor } from './browser';
 import { powerWire } from '../../src/lib/domain/power';
 import { fitVerdict } from '../../src/lib/domain/fit';
 
@@ -12,20 +12,8 @@ const VEHICLE = 'Veldra Tarn 2009–2013 · Sedan';
 const VEHICLE_SLUG = 'veldra-tarn-2009-2013-sedan';
 const PART = /^AG-4D · /;
 
-let context: BrowserContext;
-let close: () => Promise<void>;
+const { freshPage } = browserSession(PHONE);
 
-beforeAll(async () => {
-	({ context, close } = await openBrowser(PHONE));
-});
-afterAll(() => close());
-
-async function freshPage(viewport = PHONE): Promise<Page> {
-	await context.clearCookies();
-	const page = await context.newPage();
-	await page.setViewportSize(viewport);
-	return page;
-}
 
 async function selectByLabel(page: Page, selector: string, label: string | RegExp) {
 	const options = await page.locator(`${selector} option`).evaluateAll((els) => els.map((e) => ({ value: (e as HTMLOptionElement).value, text: e.textContent?.trim() ?? '' })));

@@ -3,11 +3,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import sharp from 'sharp';
-import type { APIRequestContext, BrowserContext, Page } from 'playwright-core';
-import { BASE, DESKTOP, openBrowser, PHONE, screenshot, userFor } from './browser';
+import type { APIRequestContext } from 'playwright-core';
+import { BASE, browserSession, DESKTOP, PHONE, screenshot, signIn } from './browser';
 
-let context: BrowserContext;
-let close: () => Promise<void>;
+const { freshPage } = browserSession(DESKTOP);
 let dir: string;
 let slug: string;
 
@@ -17,22 +16,6 @@ async function samplePhoto(width: number, height: number): Promise<Buffer> {
 	return sharp({ create: { width, height, channels: 3, background: { r, g: 110, b: 90 }, noise: { type: 'gaussian', mean: 110, sigma: 25 } } })
 		.jpeg({ quality: 85 })
 		.toBuffer();
-}
-
-async function freshPage(viewport = DESKTOP): Promise<Page> {
-	await context.clearCookies();
-	const page = await context.newPage();
-	await page.setViewportSize(viewport);
-	return page;
-}
-
-/** Signs in once the sign-in page has finished loading its scripts, so hydration cannot clear what was typed. */
-async function signIn(page: Page, role: string): Promise<void> {
-	const user = userFor(role);
-	await page.goto(`${BASE}/signin`, { waitUntil: 'networkidle' });
-	await page.fill('#email', user.email);
-	await page.fill('#password', user.password);
-	await Promise.all([page.waitForURL((url) => !url.pathname.startsWith('/signin')), page.click('button:has-text("Sign in")')]);
 }
 
 /** The first sample page editors may change. */
@@ -46,11 +29,9 @@ async function editablePage(request: APIRequestContext): Promise<string> {
 }
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser(PHONE));
 	dir = mkdtempSync(join(tmpdir(), 'kickpanel-photos-e2e-'));
 });
 afterAll(async () => {
-	await close();
 	rmSync(dir, { recursive: true, force: true });
 });
 

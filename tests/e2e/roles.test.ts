@@ -1,21 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { BASE, DESKTOP, openBrowser, PHONE, screenshot, signIn, userFor } from './browser';
+import { describe, expect, it } from 'vitest';
+import { BASE, browserSession, DESKTOP, PHONE, screenshot, signIn, userFor } from './browser';
 
-let context: BrowserContext;
-let close: () => Promise<void>;
+const { freshPage } = browserSession(DESKTOP);
 
-beforeAll(async () => {
-	({ context, close } = await openBrowser(DESKTOP));
-});
-afterAll(() => close());
-
-async function freshPage(viewport = DESKTOP) {
-	await context.clearCookies();
-	const page = await context.newPage();
-	await page.setViewportSize(viewport);
-	return page;
-}
 
 describe('signing in by role', () => {
 	it('sends a visitor to the sign-in page', async () => {

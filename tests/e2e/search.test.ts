@@ -1,22 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { BASE, DESKTOP, openBrowser, PHONE, screenshot, signIn } from './browser';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { BASE, browserSession, DESKTOP, PHONE, screenshot, signIn } from './browser';
 import { checkDigit } from '../../src/lib/domain/vin';
 
-let context: BrowserContext;
-let close: () => Promise<void>;
+const { freshPage } = browserSession(PHONE);
 
-beforeAll(async () => {
-	({ context, close } = await openBrowser(PHONE));
-});
-afterAll(() => close());
-
-async function freshPage(viewport = PHONE): Promise<Page> {
-	await context.clearCookies();
-	const page = await context.newPage();
-	await page.setViewportSize(viewport);
-	return page;
-}
 
 /** Waits until the page's scripts have taken over the header box, so typing reaches its handlers. */
 async function headerBox(page: Page) {

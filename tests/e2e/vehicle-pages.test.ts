@@ -1,21 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { BASE, DESKTOP, openBrowser, PHONE, screenshot, signIn } from './browser';
+import { describe, expect, it } from 'vitest';
+import { BASE, browserSession, DESKTOP, PHONE, screenshot, signIn } from './browser';
 
 // A sample page no other end-to-end file edits.
 const SLUG = 'halvik-stennet-2020-2025-sedan';
-let context: BrowserContext;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-	({ context, close } = await openBrowser(PHONE));
-});
-afterAll(() => close());
+const { freshPage } = browserSession(PHONE);
 
 async function pageAs(role: string, viewport = PHONE) {
-	await context.clearCookies();
-	const page = await context.newPage();
-	await page.setViewportSize(viewport);
+	const page = await freshPage(viewport);
 	await signIn(page, role);
 	return page;
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseInput } from './validate';
 
 export type Axis = 'l' | 'w' | 'h';
 export type FitVerdict = 'fits' | 'tight' | 'no-fit' | 'not-measured';
@@ -58,11 +59,6 @@ export const fitInputSchema = z.object({
 });
 export type FitInput = z.input<typeof fitInputSchema>;
 
-function parseInput<T>(schema: z.ZodType<T>, input: unknown): T {
-	const result = schema.safeParse(input);
-	if (!result.success) throw new RangeError(result.error.issues.map((i) => i.message).join(' '));
-	return result.data;
-}
 
 // One expression shared with SeatSpaceIndex so both give identical margins.
 const margin = (space: number, part: number, clearance: number): number => space - (part + clearance);

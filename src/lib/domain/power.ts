@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseInput } from './validate';
 import { awgWire, formatAwg, STOCKED_POWER_GAUGES } from './wire';
 import { mainFuse, wireAmpacityA } from './fuse';
 
@@ -50,11 +51,6 @@ export const powerWireInputSchema = z.object({
 });
 export type PowerWireInput = z.input<typeof powerWireInputSchema>;
 
-function parseInput<T>(schema: z.ZodType<T>, input: unknown): T {
-	const result = schema.safeParse(input);
-	if (!result.success) throw new RangeError(result.error.issues.map((i) => i.message).join(' '));
-	return result.data;
-}
 
 /** Battery current: I = P_out / (efficiency × V), with P_out the total RMS output. */
 export function ampCurrent(input: AmpCurrentInput): { currentA: number } {
