@@ -5,6 +5,10 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 source scripts/lib.sh
 
+# `npm test -- e2e [vitest filters]` runs only the end-to-end tests; the default runs everything.
+only_e2e=""
+if [ "${1:-}" = "e2e" ]; then only_e2e=1; shift; fi
+
 ensure_node_modules
 apt_install mariadbd mariadb-server
 apt_install chromium chromium
@@ -43,11 +47,13 @@ bash scripts/db.sh stop >/dev/null 2>&1 || true
 rm -rf "$DB_DATA_DIR"
 bash scripts/db.sh start
 
-log "type check"
-npx svelte-kit sync >/dev/null
-npx svelte-check --tsconfig ./tsconfig.json --threshold error --output human
-log "unit and integration tests"
-npx vitest run
+if [ -z "$only_e2e" ]; then
+	log "type check"
+	npx svelte-kit sync >/dev/null
+	npx svelte-check --tsconfig ./tsconfig.json --threshold error --output human
+	log "unit and integration tests"
+	npx vitest run
+fi
 
 log "end-to-end: building and starting the app on $ORIGIN"
 node --import tsx scripts/services.ts >.data/e2e-services.log 2>&1 &
@@ -62,4 +68,4 @@ if ! wait_for_http "$ORIGIN/api/health"; then
 	cat .data/e2e-server.log >&2
 	exit 1
 fi
-npx vitest run --config tests/e2e/vitest.config.ts
+npx vitest run --config tests/e2e/vitest.config.ts "$@"

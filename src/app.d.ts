@@ -10,6 +10,8 @@ declare global {
 			units: 'metric' | 'imperial';
 			/** Cached HTML spliced into the page by the handle hook. */
 			fragments?: Record<string, string>;
+			/** What this request's load functions returned, for the page memo. */
+			viewData?: { layout?: unknown; page?: unknown };
 		}
 		interface PageData {
 			user?: SessionUser | null;

@@ -5,6 +5,10 @@ import { sessionUser } from '$lib/server/auth/session';
 import { closeDb } from '$lib/server/db';
 import { startApp } from '$lib/server/lifecycle';
 import { spliceFragments } from '$lib/server/render/vehicleBody';
+import { PageMemo, reuseRenders } from '$lib/server/render/pageMemo';
+import { layoutData } from '$lib/server/views/layout';
+import { vehiclePageData } from '$lib/server/views/vehiclePage';
+import { config } from '$lib/server/config';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -36,4 +40,14 @@ const loadUser: Handle = async ({ event, resolve }) => {
 	});
 };
 
-export const handle = sequence(authHandle, loadUser);
+// Installers reopen the same page all day: a page whose data has not changed since its last render is
+// sent again as it was rendered. Only the reading view of a vehicle page is worth it.
+const memoised: Handle =
+	config.pageMemoBytes > 0
+		? reuseRenders(new PageMemo(config.pageMemoBytes), layoutData, {
+				'/vehicles/[slug]': ({ locals, url, isDataRequest, params }) =>
+					vehiclePageData({ locals, url, isDataRequest, params: { slug: params.slug ?? '' } })
+			})
+		: ({ event, resolve }) => resolve(event);
+
+export const handle = sequence(authHandle, loadUser, memoised);

@@ -1,7 +1,5 @@
 import type { LayoutServerLoad } from './$types';
-import { shopSettings } from '$lib/server/services/settings';
+import { layoutData } from '$lib/server/views/layout';
+import { recordView } from '$lib/server/render/pageMemo';
 
-export const load: LayoutServerLoad = async ({ locals }) => {
-	const shop = await shopSettings();
-	return { user: locals.user, units: locals.units, shop };
-};
+export const load: LayoutServerLoad = async ({ locals }) => recordView(locals, 'layout', await layoutData(locals));

@@ -62,3 +62,53 @@ describe('a writer edits, a moderator puts it right', () => {
 		await page.close();
 	});
 });
+
+// Repeat views of a page are sent from the render kept for them; every change must still show.
+describe('a page opened again shows every change since', () => {
+	const OTHER = 'korvane-bristle-2016-2022-suv';
+	const seats = (page: import('playwright-core').Page) => page.textContent('#section-seats');
+
+	it('follows a watch, the units, a trust mark and a new revision', async () => {
+		const page = await pageAs('admin');
+		const url = `${BASE}/vehicles/${OTHER}`;
+		await page.goto(url, { waitUntil: 'networkidle' });
+		await page.reload({ waitUntil: 'networkidle' });
+		expect(await page.textContent('#section-power .prose')).toContain('current sensor on the negative terminal');
+		expect(await seats(page)).toContain('115');
+
+		await page.click('button:has-text("Watch this page")');
+		await page.getByRole('button', { name: /Watching/ }).waitFor();
+		await page.reload({ waitUntil: 'networkidle' });
+		expect(await page.getByRole('button', { name: /Watching/ }).count()).toBe(1);
+		await page.click('button:has-text("Watching")');
+		await page.getByRole('button', { name: 'Watch this page' }).waitFor();
+		await page.reload({ waitUntil: 'networkidle' });
+		expect(await page.getByRole('button', { name: 'Watch this page' }).count()).toBe(1);
+
+		await page.click('button:has-text("in / ft")');
+		await page.locator('button[aria-pressed="true"]:has-text("in / ft")').waitFor();
+		await page.reload({ waitUntil: 'networkidle' });
+		expect(await seats(page)).toContain('4.53 in'); // 115 mm ÷ 25.4 mm per inch (exact by definition)
+		expect(await seats(page)).not.toContain('115 mm');
+		await page.click('button:has-text("mm / m")');
+		await page.locator('button[aria-pressed="true"]:has-text("mm / m")').waitFor();
+		await page.reload({ waitUntil: 'networkidle' });
+		expect(await seats(page)).toContain('115');
+
+		await Promise.all([page.waitForURL((u) => u.searchParams.get('marked') === 'confirmed'), page.click('button:has-text("Fitted as described")')]);
+		await page.goto(url, { waitUntil: 'networkidle' });
+		expect(await page.getByTestId('trust-marks').first().textContent()).toMatch(/Confirmed by \d+ installer/);
+
+		await Promise.all([page.waitForURL(/\/trust/), page.click('a:has-text("Flag a measurement as wrong")')]);
+		expect(await page.locator('#flag-field option').count()).toBeGreaterThan(5);
+
+		await page.goto(`${url}/edit`, { waitUntil: 'networkidle' });
+		await page.fill('#f-seats-spaces-1-heightMm', '112');
+		await page.fill('#summary', 'Passenger seat height with the new mat');
+		await Promise.all([page.waitForURL(/saved=\d+/), page.click('button:has-text("Save revision")')]);
+		await page.goto(url, { waitUntil: 'networkidle' });
+		expect(await seats(page)).toContain('112');
+		expect(await page.textContent('main')).toContain('Passenger seat height with the new mat');
+		await page.close();
+	});
+});

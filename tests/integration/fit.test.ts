@@ -9,7 +9,7 @@ import { createVehicle, revisionById, saveRevision } from '../../src/lib/server/
 import { requireVehicle } from '../../src/lib/server/services/vehicles';
 import { createPart } from '../../src/lib/server/services/parts';
 import { checkVehicleFit, seatSpaceIndex, vehiclesForBox, vehiclesForPart, warmSeatSpaceIndex } from '../../src/lib/server/services/fit';
-import { confirmPage, flagField, trustSummary } from '../../src/lib/server/services/trust';
+import { confirmPage, flaggableFields, flagField, trustSummary } from '../../src/lib/server/services/trust';
 import { Confirmation } from '../../src/lib/server/db/models';
 import type { SessionUser } from '../../src/lib/server/auth/guard';
 
@@ -258,7 +258,8 @@ describe('trust marks', () => {
 		await confirmPage(vehicle.id, {}, secondViewer);
 		const summary = await trustSummary(vehicle.id);
 		expect(summary.confirmations).toMatchObject({ installers: 2, onCurrentRevision: 2, latest: { by: 'Installer Two' } });
-		expect(summary.fields.map((f) => f.path)).toContain('seats.spaces[drv].heightMm');
+		const current = await revisionById(vehicle.latestRevisionId!);
+		expect(flaggableFields(current!.content).map((f) => f.path)).toContain('seats.spaces[drv].heightMm');
 	});
 
 	it('keeps a flag open until the flagged field changes', async () => {

@@ -26,5 +26,7 @@ export const config = {
 		maxFailuresPerAddress: int('AUTH_MAX_FAILURES_ADDRESS', 20),
 		lockoutSeconds: int('AUTH_LOCKOUT_SECONDS', 15 * 60)
 	},
-	origin: env.ORIGIN ?? 'http://127.0.0.1:3000'
+	origin: env.ORIGIN ?? 'http://127.0.0.1:3000',
+	/** Memory for whole rendered pages kept for repeat views (see render/pageMemo.ts); 0 turns it off. */
+	pageMemoBytes: int('PAGE_MEMO_MB', 64) * 1024 * 1024
 };

@@ -1,5 +1,6 @@
 import { render } from 'svelte/server';
 import SectionBody from '$lib/components/vehicle/SectionBody.svelte';
+import SectionNotes from '$lib/components/vehicle/SectionNotes.svelte';
 import QuickFacts from '$lib/components/vehicle/QuickFacts.svelte';
 import { sectionIsEmpty } from '$lib/components/vehicle/display';
 import { SECTION_KEYS, type SectionKey } from '$lib/domain/content/schema';
@@ -7,12 +8,13 @@ import type { UnitSystem } from '$lib/domain/units';
 import type { StoredRevision } from '../services/revisions';
 
 export type VehicleBody = {
-	sections: Record<SectionKey, { html: string; empty: boolean }>;
+	/** Per section: its figures and tables, its notes, and whether anything is recorded at all. */
+	sections: Record<SectionKey, { html: string; notes: string; empty: boolean }>;
 	quickFacts: string;
 	quickFactsColumns: string;
 };
 
-// A revision never changes, so its figures and tables are rendered once per unit system and kept:
+// A revision never changes, so its figures, tables and notes are rendered once per unit system and kept:
 // a page view then only renders what depends on the reader (header, trust marks, watch button).
 const cache = new Map<string, VehicleBody>();
 const CACHE_LIMIT = 2_000;
@@ -25,7 +27,12 @@ export function vehicleBody(revision: StoredRevision, units: UnitSystem): Vehicl
 	const sections = {} as VehicleBody['sections'];
 	for (const section of SECTION_KEYS) {
 		const empty = sectionIsEmpty(content, section) && !rendered[section] && !content.photos.some((p) => p.section === section);
-		sections[section] = { html: empty ? '' : render(SectionBody, { props: { section, content, units } }).body, empty };
+		const notes = rendered[section];
+		sections[section] = {
+			html: empty ? '' : render(SectionBody, { props: { section, content, units } }).body,
+			notes: notes ? render(SectionNotes, { props: { html: notes } }).body : '',
+			empty
+		};
 	}
 	const body: VehicleBody = {
 		sections,
@@ -39,12 +46,18 @@ export function vehicleBody(revision: StoredRevision, units: UnitSystem): Vehicl
 
 /** Client navigations get the body as data; a full page view gets it spliced into the HTML by the handle hook. */
 export function deliverBody(locals: App.Locals, body: VehicleBody, isDataRequest: boolean) {
-	const empty = Object.fromEntries(SECTION_KEYS.map((k) => [k, body.sections[k].empty])) as Record<SectionKey, boolean>;
-	if (isDataRequest) return { empty, body };
+	const outline = Object.fromEntries(SECTION_KEYS.map((k) => [k, { empty: body.sections[k].empty, notes: body.sections[k].notes !== '' }])) as Record<
+		SectionKey,
+		{ empty: boolean; notes: boolean }
+	>;
+	if (isDataRequest) return { outline, body };
 	const fragments: Record<string, string> = { 'quick-facts': body.quickFacts, 'quick-facts-columns': body.quickFactsColumns };
-	for (const key of SECTION_KEYS) fragments[`section-${key}`] = body.sections[key].html;
+	for (const key of SECTION_KEYS) {
+		fragments[`section-${key}`] = body.sections[key].html;
+		fragments[`notes-${key}`] = body.sections[key].notes;
+	}
 	locals.fragments = fragments;
-	return { empty, body: null };
+	return { outline, body: null };
 }
 
 const MARK = '<div data-kp-fragment="';

@@ -45,15 +45,16 @@ export type TrustSummary = {
 	/** Open flags keyed by field path ("" for the page as a whole). */
 	flagsByField: Record<string, TrustFlag[]>;
 	closedFlags: number;
-	/** Fields a flag can name, for the flag form: every measurement on the current revision. */
-	fields: { path: string; label: string }[];
 };
+
+/** A field a flag can name: every measurement on the current revision. */
+export type FlagChoice = { path: string; label: string };
 
 const MEASURE_KINDS = new Set(['mm', 'm', 'ohm', 'amp', 'choice', 'flag']);
 
 /** Every measured or chosen field on a page, as paths with their names, for the flag form. */
-export function flaggableFields(content: VehicleContent): { path: string; label: string }[] {
-	const out: { path: string; label: string }[] = [];
+export function flaggableFields(content: VehicleContent): FlagChoice[] {
+	const out: FlagChoice[] = [];
 	const walk = (node: unknown, path: string) => {
 		if (Array.isArray(node)) {
 			for (const entry of node) {
@@ -224,7 +225,6 @@ async function computeTrustSummary(vehicleId: number, units: UnitSystem): Promis
 		},
 		openFlags,
 		flagsByField,
-		closedFlags,
-		fields: current ? flaggableFields(current.content) : []
+		closedFlags
 	};
 }

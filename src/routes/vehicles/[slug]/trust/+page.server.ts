@@ -4,7 +4,8 @@ import { requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
 import { ServiceError } from '$lib/server/services/errors';
 import { requireVehicle } from '$lib/server/services/vehicles';
-import { confirmPage, flagField, trustSummary } from '$lib/server/services/trust';
+import { confirmPage, flaggableFields, flagField, trustSummary } from '$lib/server/services/trust';
+import { revisionById } from '$lib/server/services/revisions';
 
 /** Back to the page the form was on, never off the site. */
 function backTo(form: FormData, slug: string, mark: string): string {
@@ -20,7 +21,11 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	requireRole(locals, 'viewer');
 	try {
 		const vehicle = await requireVehicle(params.slug);
-		return { vehicle: { slug: vehicle.slug, title: vehicle.title }, trust: await trustSummary(vehicle.id, locals.units) };
+		const [trust, current] = await Promise.all([
+			trustSummary(vehicle.id, locals.units),
+			vehicle.latestRevisionId ? revisionById(vehicle.latestRevisionId) : null
+		]);
+		return { vehicle: { slug: vehicle.slug, title: vehicle.title }, trust, fields: current ? flaggableFields(current.content) : [] };
 	} catch (err) {
 		asHttpError(err);
 	}

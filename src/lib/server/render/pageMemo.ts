@@ -1,0 +1,141 @@
+// Whole rendered pages, kept for repeat views.
+//
+// A page's HTML is a pure function of its address and of what its load functions return, so when a
+// view's data is exactly the data of an earlier render, the bytes of that render are sent again
+// instead of being rebuilt. The data is read through the same short-lived caches the loads use, so a
+// reused page is never staler than a freshly rendered one would be: any change — a new revision, a
+// trust mark, a watch, a role, the reader's units — changes the data, and so the key.
+import type { Handle, RequestEvent } from '@sveltejs/kit';
+
+type Entry = { body: Uint8Array<ArrayBuffer>; headers: [string, string][] };
+export type ViewPart = 'layout' | 'page';
+
+export function memoKey(url: URL, layout: unknown, page: unknown): string {
+	return `${url.pathname}${url.search}\n${JSON.stringify([layout, page])}`;
+}
+
+/**
+ * Whether JSON spells the value out in full. A Map, a Set or a class instance would stringify as `{}`,
+ * so two different data could share a key: a render whose data holds one is not kept.
+ */
+export function isPlainData(value: unknown): boolean {
+	if (value === null || value === undefined) return true;
+	const type = typeof value;
+	if (type === 'string' || type === 'number' || type === 'boolean') return true;
+	if (type !== 'object') return false;
+	if (value instanceof Date) return true;
+	if (Array.isArray(value)) return value.every(isPlainData);
+	const proto = Object.getPrototypeOf(value);
+	if (proto !== Object.prototype && proto !== null) return false;
+	return Object.values(value as object).every(isPlainData);
+}
+
+/** A size-bounded store of rendered pages, least recently used first out. */
+export class PageMemo {
+	private entries = new Map<string, Entry>();
+	private used = 0;
+	hits = 0;
+	misses = 0;
+
+	constructor(private readonly maxBytes: number) {}
+
+	get size() {
+		return this.entries.size;
+	}
+
+	get bytes() {
+		return this.used;
+	}
+
+	get(key: string): Entry | undefined {
+		const entry = this.entries.get(key);
+		if (!entry) {
+			this.misses++;
+			return undefined;
+		}
+		this.hits++;
+		this.entries.delete(key);
+		this.entries.set(key, entry);
+		return entry;
+	}
+
+	set(key: string, entry: Entry): void {
+		const cost = entry.body.byteLength + key.length * 2;
+		if (cost > this.maxBytes) return;
+		const previous = this.entries.get(key);
+		if (previous) this.forget(key, previous);
+		while (this.used + cost > this.maxBytes) {
+			const [oldestKey, oldest] = this.entries.entries().next().value!;
+			this.forget(oldestKey, oldest);
+		}
+		this.entries.set(key, entry);
+		this.used += cost;
+	}
+
+	clear(): void {
+		this.entries.clear();
+		this.used = 0;
+	}
+
+	private forget(key: string, entry: Entry) {
+		this.entries.delete(key);
+		this.used -= entry.body.byteLength + key.length * 2;
+	}
+}
+
+/** Called by a memoised route's load functions with what they return, so the render is stored under exactly that data. */
+export function recordView<T>(locals: App.Locals, part: ViewPart, data: T): T {
+	(locals.viewData ??= {})[part] = data;
+	return data;
+}
+
+/** The kept bytes as a response. Streamed, so the body is not copied for every view; nothing ever writes to it. */
+function replay(entry: Entry): Response {
+	const body = new ReadableStream<Uint8Array>({
+		start(controller) {
+			controller.enqueue(entry.body);
+			controller.close();
+		}
+	});
+	return new Response(body, { status: 200, headers: entry.headers });
+}
+
+type ViewData = (event: RequestEvent) => Promise<unknown>;
+
+/**
+ * A handle that answers a GET of a memoised route from an earlier render when its data is unchanged.
+ * `views` maps a route id to the function its page load returns; `layout` is the root layout's.
+ */
+export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Promise<unknown>, views: Record<string, ViewData>): Handle {
+	return async ({ event, resolve }) => {
+		const view = event.route.id ? views[event.route.id] : undefined;
+		if (!view || event.request.method !== 'GET' || event.isDataRequest || !event.locals.user) return resolve(event);
+		let key: string;
+		try {
+			key = memoKey(event.url, await layout(event.locals), await view(event));
+		} catch {
+			// A redirect, a 404 or a refusal: the normal render answers it properly.
+			return resolve(event);
+		}
+		const hit = memo.get(key);
+		if (hit) return replay(hit);
+
+		const response = await resolve(event);
+		const seen = event.locals.viewData;
+		if (
+			response.status !== 200 ||
+			!seen?.layout ||
+			!seen.page ||
+			!response.headers.has('etag') || // streamed responses carry no ETag and are not kept
+			response.headers.has('set-cookie') ||
+			!response.headers.get('content-type')?.startsWith('text/html') ||
+			!isPlainData(seen)
+		) {
+			return response;
+		}
+		const body = new Uint8Array(await response.arrayBuffer());
+		const headers = [...response.headers];
+		memo.set(memoKey(event.url, seen.layout, seen.page), { body, headers });
+		return new Response(body, { status: 200, headers });
+	};
+}

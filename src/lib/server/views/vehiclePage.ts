@@ -1,0 +1,43 @@
+import { error, redirect, type RequestEvent } from '@sveltejs/kit';
+import { requireRole } from '../auth/guard';
+import { vehicleBySlug } from '../services/vehicles';
+import { visibleRevision } from '../services/review';
+import { isWatching } from '../services/watch';
+import { trustSummary } from '../services/trust';
+import { canEditVehicle } from '../services/revisions';
+import { deliverBody, vehicleBody } from '../render/vehicleBody';
+
+type VehiclePageEvent = Pick<RequestEvent<{ slug: string }>, 'locals' | 'params' | 'url' | 'isDataRequest'>;
+
+/** Everything the reading view of a vehicle page shows, for the signed-in reader. */
+export async function vehiclePageData({ locals, params, url, isDataRequest }: VehiclePageEvent) {
+	const user = requireRole(locals, 'viewer');
+	const found = await vehicleBySlug(params.slug);
+	if (!found) error(404, 'No vehicle page at this address.');
+	if ('redirectTo' in found) redirect(301, `/vehicles/${found.redirectTo}`);
+	const { vehicle } = found;
+	const [{ revision, newerAwaitingReview }, watching, trust] = await Promise.all([
+		visibleRevision(vehicle, user),
+		isWatching(user.id, vehicle.id),
+		trustSummary(vehicle.id, locals.units)
+	]);
+	if (!revision) {
+		error(404, newerAwaitingReview ? 'This new page is waiting for a moderator to review it.' : 'This vehicle page has no saved revision yet.');
+	}
+	const saved = Number(url.searchParams.get('saved'));
+	return {
+		vehicle,
+		identity: revision.content.identity,
+		photos: revision.content.photos,
+		// A full page view gets the cached figures and notes spliced into its HTML (see hooks.server.ts) instead of
+		// serialising them twice; a client-side navigation receives them as data.
+		...deliverBody(locals, vehicleBody(revision, locals.units), isDataRequest),
+		revision: { id: revision.id, authorName: revision.authorName, createdAt: revision.createdAt.toISOString(), summary: revision.summary },
+		canEdit: canEditVehicle(user, vehicle),
+		watching,
+		trust,
+		newerAwaitingReview,
+		units: locals.units,
+		flash: Number.isInteger(saved) && saved > 0 ? { revisionId: saved, merged: url.searchParams.get('merged') === '1' } : null
+	};
+}

@@ -1,0 +1,169 @@
+import { describe, expect, it, vi } from 'vitest';
+import type { RequestEvent } from '@sveltejs/kit';
+import { isPlainData, memoKey, PageMemo, recordView, reuseRenders } from '../../../src/lib/server/render/pageMemo';
+
+const encoder = new TextEncoder();
+const entry = (text: string) => ({ body: encoder.encode(text), headers: [['content-type', 'text/html']] as [string, string][] });
+
+describe('PageMemo', () => {
+	it('returns what was stored under the same key and counts hits and misses', () => {
+		const memo = new PageMemo(10_000);
+		expect(memo.get('a')).toBeUndefined();
+		memo.set('a', entry('<p>a</p>'));
+		expect(new TextDecoder().decode(memo.get('a')!.body)).toBe('<p>a</p>');
+		expect({ hits: memo.hits, misses: memo.misses, size: memo.size }).toEqual({ hits: 1, misses: 1, size: 1 });
+	});
+
+	it('stays within its byte budget, dropping the least recently used page first', () => {
+		// Each entry costs its body (100 bytes) plus its one-character key counted as two bytes.
+		const memo = new PageMemo(3 * 102);
+		for (const k of ['a', 'b', 'c']) memo.set(k, entry('x'.repeat(100)));
+		memo.get('a'); // a is now the most recently used
+		memo.set('d', entry('x'.repeat(100)));
+		expect(memo.get('b')).toBeUndefined();
+		expect(memo.get('a')).toBeDefined();
+		expect(memo.get('c')).toBeDefined();
+		expect(memo.get('d')).toBeDefined();
+		expect(memo.bytes).toBeLessThanOrEqual(3 * 102);
+	});
+
+	it('replaces an entry stored again under its key without counting it twice', () => {
+		const memo = new PageMemo(1_000);
+		memo.set('a', entry('x'.repeat(100)));
+		memo.set('a', entry('y'.repeat(100)));
+		expect(memo.size).toBe(1);
+		expect(memo.bytes).toBe(102);
+	});
+
+	it('does not keep a page larger than the whole budget', () => {
+		const memo = new PageMemo(50);
+		memo.set('a', entry('x'.repeat(100)));
+		expect(memo.size).toBe(0);
+	});
+});
+
+describe('memoKey', () => {
+	const url = new URL('http://shop.test/vehicles/a');
+	it('differs when the address, the query or any datum differs', () => {
+		const base = memoKey(url, { user: { id: 1 } }, { watching: false });
+		expect(memoKey(url, { user: { id: 1 } }, { watching: false })).toBe(base);
+		expect(memoKey(new URL('http://shop.test/vehicles/b'), { user: { id: 1 } }, { watching: false })).not.toBe(base);
+		expect(memoKey(new URL('http://shop.test/vehicles/a?marked=confirmed'), { user: { id: 1 } }, { watching: false })).not.toBe(base);
+		expect(memoKey(url, { user: { id: 2 } }, { watching: false })).not.toBe(base);
+		expect(memoKey(url, { user: { id: 1 } }, { watching: true })).not.toBe(base);
+	});
+});
+
+describe('isPlainData', () => {
+	it('accepts what JSON spells out in full', () => {
+		expect(isPlainData({ a: [1, 'two', null, true, { b: new Date(0) }], c: undefined })).toBe(true);
+		expect(isPlainData(Object.create(null))).toBe(true);
+	});
+	it('refuses maps, sets, class instances and functions, which would stringify alike', () => {
+		expect(isPlainData({ a: new Map([[1, 2]]) })).toBe(false);
+		expect(isPlainData([new Set([1])])).toBe(false);
+		expect(isPlainData({ a: new (class Row {})() })).toBe(false);
+		expect(isPlainData({ a: () => 1 })).toBe(false);
+	});
+});
+
+describe('reuseRenders', () => {
+	type Fake = { layout: unknown; page: unknown };
+	function setup(opts: { headers?: Record<string, string>; status?: number; streamed?: boolean } = {}) {
+		const state: Fake = { layout: { user: { id: 1 } }, page: { watching: false } };
+		const memo = new PageMemo(1_000_000);
+		const handle = reuseRenders(memo, async () => state.layout, {
+			'/vehicles/[slug]': async () => {
+				if (state.page === 'missing') throw new Error('404');
+				return state.page;
+			}
+		});
+		let renders = 0;
+		const call = async (over: Partial<RequestEvent> = {}) => {
+			const event = {
+				route: { id: '/vehicles/[slug]' },
+				request: new Request('http://shop.test/vehicles/a'),
+				url: new URL('http://shop.test/vehicles/a'),
+				isDataRequest: false,
+				locals: { user: { id: 1 }, units: 'metric' },
+				...over
+			} as unknown as RequestEvent;
+			const resolve = vi.fn(async (e: RequestEvent) => {
+				renders++;
+				recordView(e.locals, 'layout', state.layout);
+				recordView(e.locals, 'page', state.page);
+				const headers = new Headers({ 'content-type': 'text/html', etag: `"${renders}"`, ...opts.headers });
+				// SvelteKit sends a streamed page without an ETag.
+				if (opts.streamed) headers.delete('etag');
+				return new Response(`<p>render ${renders} ${JSON.stringify(state.page)}</p>`, { status: opts.status ?? 200, headers });
+			});
+			const response = await handle({ event, resolve });
+			return { text: await response.text(), status: response.status, etag: response.headers.get('etag') };
+		};
+		return { state, memo, call, renders: () => renders };
+	}
+
+	it('renders once and sends the same bytes and headers while the data is unchanged', async () => {
+		const t = setup();
+		const first = await t.call();
+		const second = await t.call();
+		expect(t.renders()).toBe(1);
+		expect(second).toEqual(first);
+	});
+
+	it('renders again as soon as any of the data changes, and keeps both', async () => {
+		const t = setup();
+		await t.call();
+		t.state.page = { watching: true };
+		expect((await t.call()).text).toContain('"watching":true');
+		t.state.page = { watching: false };
+		expect((await t.call()).text).toContain('"watching":false');
+		expect(t.renders()).toBe(2);
+	});
+
+	it('keys by reader: another user gets a render of their own', async () => {
+		const t = setup();
+		await t.call();
+		t.state.layout = { user: { id: 2 } };
+		await t.call({ locals: { user: { id: 2 }, units: 'metric' } } as Partial<RequestEvent>);
+		expect(t.renders()).toBe(2);
+	});
+
+	it('leaves alone other routes, data requests, other methods and visitors not signed in', async () => {
+		const t = setup();
+		await t.call({ route: { id: '/changes' } } as Partial<RequestEvent>);
+		await t.call({ route: { id: '/changes' } } as Partial<RequestEvent>);
+		await t.call({ isDataRequest: true });
+		await t.call({ isDataRequest: true });
+		await t.call({ request: new Request('http://shop.test/vehicles/a', { method: 'POST' }) });
+		await t.call({ request: new Request('http://shop.test/vehicles/a', { method: 'POST' }) });
+		await t.call({ locals: { user: null, units: 'metric' } } as Partial<RequestEvent>);
+		await t.call({ locals: { user: null, units: 'metric' } } as Partial<RequestEvent>);
+		expect(t.renders()).toBe(8);
+		expect(t.memo.size).toBe(0);
+	});
+
+	it('lets the normal render answer when the view cannot be read (a 404, a redirect)', async () => {
+		const t = setup();
+		t.state.page = 'missing';
+		await t.call();
+		expect(t.renders()).toBe(1);
+	});
+
+	it('keeps no streamed page, no page that sets a cookie and no error page', async () => {
+		for (const opts of [{ streamed: true }, { headers: { 'set-cookie': 'a=b' } }, { status: 404 }]) {
+			const t = setup(opts);
+			await t.call();
+			await t.call();
+			expect(t.renders()).toBe(2);
+		}
+	});
+
+	it('keeps no page whose data JSON cannot spell out', async () => {
+		const t = setup();
+		t.state.page = { flags: new Map([['a', 1]]) };
+		await t.call();
+		await t.call();
+		expect(t.renders()).toBe(2);
+	});
+});
