@@ -256,7 +256,7 @@ describe('trust marks', () => {
 		expect(first.created).toBe(true);
 		expect(again).toEqual({ id: first.id, created: false });
 		await confirmPage(vehicle.id, {}, secondViewer);
-		const summary = await trustSummary(vehicle.id);
+		const summary = await trustSummary((await latest(tarrow)).vehicle);
 		expect(summary.confirmations).toMatchObject({ installers: 2, onCurrentRevision: 2, latest: { by: 'Installer Two' } });
 		const current = await revisionById(vehicle.latestRevisionId!);
 		expect(flaggableFields(current!.content).map((f) => f.path)).toContain('seats.spaces[drv].heightMm');
@@ -265,7 +265,7 @@ describe('trust marks', () => {
 	it('keeps a flag open until the flagged field changes', async () => {
 		const { vehicle, rev } = await latest(tarrow);
 		await flagField(vehicle.id, { fieldPath: 'seats.spaces[drv].heightMm', note: 'Only 55 mm with the seat fully down.' }, viewer);
-		let summary = await trustSummary(vehicle.id);
+		let summary = await trustSummary((await latest(tarrow)).vehicle);
 		expect(summary.openFlags).toEqual([
 			expect.objectContaining({ fieldPath: 'seats.spaces[drv].heightMm', label: 'Driver seat space, height', by: 'Installer One', value: '60 mm' })
 		]);
@@ -275,11 +275,11 @@ describe('trust marks', () => {
 		const other = structuredClone(rev.content);
 		other.dash.depthMm = 186;
 		const saved = await saveRevision(vehicle.id, { baseRevisionId: rev.id, content: other, summary: 'dash depth' }, writer);
-		expect((await trustSummary(vehicle.id)).openFlags).toHaveLength(1);
+		expect((await trustSummary((await latest(tarrow)).vehicle)).openFlags).toHaveLength(1);
 		const fixed = structuredClone(other);
 		fixed.seats.spaces[0].heightMm = 55;
 		await saveRevision(vehicle.id, { baseRevisionId: saved.revisionId, content: fixed, summary: 'driver seat height corrected' }, writer);
-		summary = await trustSummary(vehicle.id);
+		summary = await trustSummary((await latest(tarrow)).vehicle);
 		expect(summary.openFlags).toEqual([]);
 		expect(summary.closedFlags).toBe(1);
 		// the earlier confirmations still count, but not on this revision

@@ -22,7 +22,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 			const v = await requireVehicle(slug);
 			const rev = await currentRevision(v);
 			if (rev) {
-				const [evidence, trust] = await Promise.all([measurementOrigins(v, placeReaders(rev.content)), trustSummary(v.id, locals.units)]);
+				const [evidence, trust] = await Promise.all([measurementOrigins(v, placeReaders(rev.content)), trustSummary(v, locals.units)]);
 				vehicle = {
 					slug: v.slug,
 					title: v.title,

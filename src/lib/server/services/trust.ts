@@ -162,16 +162,13 @@ export async function flagField(vehicleId: number, input: unknown, user: Session
 
 const same = (a: unknown, b: unknown) => canonicalJson(a ?? null) === canonicalJson(b ?? null);
 
-/** What the reading view, the fit check and the job sheet show as trust for a page. */
-export async function trustSummary(vehicleId: number, units: UnitSystem = 'metric'): Promise<TrustSummary> {
-	const key = `${vehicleId}:${units}`;
-	return summaries.get(key, () => computeTrustSummary(vehicleId, units));
+/** What the reading view, the fit check and the job sheet show as trust for a page, as of its latest revision. */
+export async function trustSummary(vehicle: { id: number; latestRevisionId: number | null }, units: UnitSystem = 'metric'): Promise<TrustSummary> {
+	const key = `${vehicle.id}:${vehicle.latestRevisionId}:${units}`;
+	return summaries.get(key, () => computeTrustSummary(vehicle.id, vehicle.latestRevisionId, units));
 }
 
-async function computeTrustSummary(vehicleId: number, units: UnitSystem): Promise<TrustSummary> {
-	const vehicle = await Vehicle.findByPk(vehicleId, { attributes: ['id', 'latestRevisionId'] });
-	if (!vehicle) throw new ServiceError('No vehicle page at this address.', 404);
-	const currentId = vehicle.latestRevisionId === null ? null : Number(vehicle.latestRevisionId);
+async function computeTrustSummary(vehicleId: number, currentId: number | null, units: UnitSystem): Promise<TrustSummary> {
 	const current = currentId ? await revisionById(currentId) : null;
 	const rows = await Confirmation.findAll({
 		where: { vehicleId },

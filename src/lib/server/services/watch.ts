@@ -11,7 +11,8 @@ import { visibleRevision } from './review';
 import { ServiceError } from './errors';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
-const watching = lookupCache<string, boolean>(SHARED_STATE_TTL_MS);
+// The pages each person watches, read in one query and kept briefly: every page view asks.
+const watchedBy = lookupCache<number, Set<number>>(SHARED_STATE_TTL_MS);
 
 const HOUR_MS = 60 * 60 * 1000;
 const DIGEST_INTERVAL_MS = 24 * HOUR_MS;
@@ -38,17 +39,20 @@ export async function setNoticePreferences(userId: number, prefs: NoticePreferen
 export async function watchPage(userId: number, vehicleId: number): Promise<void> {
 	if (!(await vehicleById(vehicleId))) throw new ServiceError('That vehicle page no longer exists.', 404);
 	await Watch.bulkCreate([{ userId, vehicleId }], { ignoreDuplicates: true });
-	watching.delete(`${userId}:${vehicleId}`);
+	watchedBy.delete(userId);
 }
 
 export async function unwatchPage(userId: number, vehicleId: number): Promise<void> {
 	await Watch.destroy({ where: { userId, vehicleId } });
-	watching.delete(`${userId}:${vehicleId}`);
+	watchedBy.delete(userId);
 }
 
 export async function isWatching(userId: number, vehicleId: number): Promise<boolean> {
-	const key = `${userId}:${vehicleId}`;
-	return watching.get(key, async () => (await Watch.count({ where: { userId, vehicleId } })) > 0);
+	const watched = await watchedBy.get(userId, async () => {
+		const rows = await Watch.findAll({ where: { userId }, attributes: ['vehicleId'], raw: true });
+		return new Set(rows.map((r) => Number(r.vehicleId)));
+	});
+	return watched.has(vehicleId);
 }
 
 export type WatchlistItem = {
@@ -95,7 +99,7 @@ export async function queueNotices(event: RevisionWritten): Promise<number> {
 	const authorPrefs = await noticePreferences(event.authorId);
 	if (authorPrefs.watchOwnEdits) {
 		await Watch.bulkCreate([{ userId: event.authorId, vehicleId: event.vehicleId }], { ignoreDuplicates: true });
-		watching.delete(`${event.authorId}:${event.vehicleId}`);
+		watchedBy.delete(event.authorId);
 	}
 	const watchers = await Watch.findAll({
 		where: { vehicleId: event.vehicleId, userId: { [Op.ne]: event.authorId } },

@@ -19,7 +19,7 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 	const [{ revision, newerAwaitingReview }, watching, trust] = await Promise.all([
 		visibleRevision(vehicle, user),
 		isWatching(user.id, vehicle.id),
-		trustSummary(vehicle.id, locals.units)
+		trustSummary(vehicle, locals.units)
 	]);
 	if (!revision) {
 		error(404, newerAwaitingReview ? 'This new page is waiting for a moderator to review it.' : 'This vehicle page has no saved revision yet.');

@@ -26,7 +26,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		const [parts, catalogue, trust, evidence] = await Promise.all([
 			partsByIds(partIds),
 			listParts(),
-			trustSummary(vehicle.id, locals.units),
+			trustSummary(vehicle, locals.units),
 			measurementOrigins(vehicle, placeReaders(rev.content))
 		]);
 

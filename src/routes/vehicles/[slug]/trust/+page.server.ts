@@ -22,7 +22,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	try {
 		const vehicle = await requireVehicle(params.slug);
 		const [trust, current] = await Promise.all([
-			trustSummary(vehicle.id, locals.units),
+			trustSummary(vehicle, locals.units),
 			vehicle.latestRevisionId ? revisionById(vehicle.latestRevisionId) : null
 		]);
 		return { vehicle: { slug: vehicle.slug, title: vehicle.title }, trust, fields: current ? flaggableFields(current.content) : [] };
