@@ -14,12 +14,16 @@ export type VehicleBody = {
 	quickFactsColumns: string;
 };
 
+type Outline = Record<SectionKey, { empty: boolean; notes: boolean }>;
+/** A body with what every view of it hands out, worked out once. */
+type CachedBody = { body: VehicleBody; outline: Outline; fragments: Record<string, string> };
+
 // A revision never changes, so its figures, tables and notes are rendered once per unit system and kept:
 // a page view then only renders what depends on the reader (header, trust marks, watch button).
-const cache = new Map<string, VehicleBody>();
+const cache = new Map<string, CachedBody>();
 const CACHE_LIMIT = 2_000;
 
-export function vehicleBody(revision: StoredRevision, units: UnitSystem): VehicleBody {
+export function vehicleBody(revision: StoredRevision, units: UnitSystem): CachedBody {
 	const key = `${revision.id}:${units}`;
 	const hit = cache.get(key);
 	if (hit) return hit;
@@ -39,23 +43,21 @@ export function vehicleBody(revision: StoredRevision, units: UnitSystem): Vehicl
 		quickFacts: render(QuickFacts, { props: { content, units } }).body,
 		quickFactsColumns: render(QuickFacts, { props: { content, units, columns: true } }).body
 	};
+	const outline = Object.fromEntries(SECTION_KEYS.map((k) => [k, { empty: sections[k].empty, notes: sections[k].notes !== '' }])) as Outline;
+	const fragments: Record<string, string> = { 'quick-facts': body.quickFacts, 'quick-facts-columns': body.quickFactsColumns };
+	for (const k of SECTION_KEYS) {
+		fragments[`section-${k}`] = sections[k].html;
+		fragments[`notes-${k}`] = sections[k].notes;
+	}
+	const cached = { body, outline, fragments };
 	if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
-	cache.set(key, body);
-	return body;
+	cache.set(key, cached);
+	return cached;
 }
 
 /** Client navigations get the body as data; a full page view gets it spliced into the HTML by the handle hook. */
-export function deliverBody(locals: App.Locals, body: VehicleBody, isDataRequest: boolean) {
-	const outline = Object.fromEntries(SECTION_KEYS.map((k) => [k, { empty: body.sections[k].empty, notes: body.sections[k].notes !== '' }])) as Record<
-		SectionKey,
-		{ empty: boolean; notes: boolean }
-	>;
+export function deliverBody(locals: App.Locals, { body, outline, fragments }: CachedBody, isDataRequest: boolean) {
 	if (isDataRequest) return { outline, body };
-	const fragments: Record<string, string> = { 'quick-facts': body.quickFacts, 'quick-facts-columns': body.quickFactsColumns };
-	for (const key of SECTION_KEYS) {
-		fragments[`section-${key}`] = body.sections[key].html;
-		fragments[`notes-${key}`] = body.sections[key].notes;
-	}
 	locals.fragments = fragments;
 	return { outline, body: null };
 }

@@ -25,9 +25,11 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 		error(404, newerAwaitingReview ? 'This new page is waiting for a moderator to review it.' : 'This vehicle page has no saved revision yet.');
 	}
 	const saved = Number(url.searchParams.get('saved'));
+	// The identity notes are in the cached fragments; the header needs only the names and years.
+	const { notes: _notes, ...identity } = revision.content.identity;
 	return {
 		vehicle,
-		identity: revision.content.identity,
+		identity,
 		photos: revision.content.photos,
 		// A full page view gets the cached figures and notes spliced into its HTML (see hooks.server.ts) instead of
 		// serialising them twice; a client-side navigation receives them as data.
