@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { BASE, browserSession, DESKTOP, PHONE, screenshot, userFor } from './browser';
+import { BASE, browserSession, DESKTOP, openBrowser, PHONE, screenshot, userFor } from './browser';
 
 const { freshPage } = browserSession(DESKTOP);
 
@@ -78,5 +78,32 @@ describe('inviting a new member of staff', () => {
 		await visit(page, invitePath);
 		expect(await page.textContent('main')).toContain('does not work any more');
 		await page.close();
+	});
+
+	it('signs out the other devices when the password is changed, and keeps this one', async () => {
+		const phone = await freshPage(PHONE);
+		await signInAs(phone, address, password);
+		const other = await openBrowser(DESKTOP);
+		try {
+			const desk = await other.context.newPage();
+			await signInAs(desk, address, password);
+
+			await visit(phone, '/account');
+			await phone.fill('#current', password);
+			await phone.fill('#new-password', 'right-kick-panel-7');
+			await phone.fill('#confirm', 'right-kick-panel-7');
+			await phone.click('form[action="?/password"] button');
+			await phone.getByText('Every other device was signed out; this one stays signed in.').waitFor();
+
+			await visit(phone, '/vehicles');
+			expect(new URL(phone.url()).pathname).toBe('/vehicles');
+			await visit(desk, '/vehicles');
+			expect(new URL(desk.url()).pathname).toBe('/signin');
+			await signInAs(desk, address, 'right-kick-panel-7');
+			expect(await desk.getByTestId('who').textContent()).toContain(name);
+		} finally {
+			await other.close();
+			await phone.close();
+		}
 	});
 });

@@ -269,8 +269,13 @@ describe('account settings', () => {
 		const me = await makeUser('viewer');
 		const wrong = await changePassword(me, { current: 'not-my-password', password: 'new-pass-word-1', confirm: 'new-pass-word-1' }, '10.40.0.1').catch((e) => e);
 		expect(wrong.fieldErrors.current).toMatch(/not your current password/);
-		await changePassword(me, { current: 'test-password-123', password: 'new-pass-word-1', confirm: 'new-pass-word-1' }, '10.40.0.1');
+		const before = (await User.findByPk(me.id))!.sessionVersion;
+		const after = await changePassword(me, { current: 'test-password-123', password: 'new-pass-word-1', confirm: 'new-pass-word-1' }, '10.40.0.1');
 		expect((await authenticate(me.email, 'new-pass-word-1', '10.40.0.2')).ok).toBe(true);
+		// Sessions signed in before the change no longer count; one carrying the new version does.
+		expect(after).toBe(before + 1);
+		expect(await activeSessionUser(me.id, before)).toBeNull();
+		expect(await activeSessionUser(me.id, after)).toMatchObject({ id: me.id });
 	});
 });
 

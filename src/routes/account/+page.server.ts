@@ -2,6 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
+import { renewSession } from '$lib/server/auth/session';
 import { changeName, changePassword } from '$lib/server/services/account';
 import { setUnits } from '$lib/server/services/preferences';
 import { noticePreferences, setNoticePreferences } from '$lib/server/services/watch';
@@ -34,14 +35,21 @@ export const actions: Actions = {
 		}
 		return { section: 'name', saved: 'Name saved.' };
 	},
-	password: async ({ locals, request, getClientAddress }) => {
+	password: async ({ locals, request, getClientAddress, cookies }) => {
 		const user = requireRole(locals, 'viewer');
+		let sessionVersion: number;
 		try {
-			await changePassword(user, Object.fromEntries(await request.formData()), getClientAddress());
+			sessionVersion = await changePassword(user, Object.fromEntries(await request.formData()), getClientAddress());
 		} catch (err) {
 			return refused('password', err);
 		}
-		return { section: 'password', saved: 'Password changed. Use the new one next time you sign in.' };
+		const stillSignedIn = await renewSession(cookies, sessionVersion);
+		return {
+			section: 'password',
+			saved: stillSignedIn
+				? 'Password changed. Every other device was signed out; this one stays signed in.'
+				: 'Password changed. Every device was signed out; sign in with the new password.'
+		};
 	},
 	units: async ({ locals, request }) => {
 		const user = requireRole(locals, 'viewer');

@@ -1,4 +1,4 @@
-import { decode } from '@auth/core/jwt';
+import { decode, encode } from '@auth/core/jwt';
 import type { Cookies } from '@sveltejs/kit';
 import { activeSessionUser } from '../services/users';
 import type { SessionUser } from './guard';
@@ -38,4 +38,22 @@ export async function sessionUser(cookies: Cookies): Promise<SessionUser | null>
 		return activeSessionUser(claims.uid, claims.sv);
 	}
 	return null;
+}
+
+/**
+ * After a password change ends every other session, keeps this device signed in: the same session,
+ * re-issued with the account's new session version.
+ */
+export async function renewSession(cookies: Cookies, sessionVersion: number): Promise<boolean> {
+	const secret = process.env.AUTH_SECRET ?? '';
+	for (const name of COOKIE_NAMES) {
+		const token = cookies.get(name);
+		if (!token) continue;
+		const payload = await decode({ token, secret, salt: name }).catch(() => null);
+		if (!payload) return false;
+		const renewed = await encode({ token: { ...payload, sv: sessionVersion }, secret, salt: name, maxAge: SESSION_MAX_AGE_SECONDS });
+		cookies.set(name, renewed, { path: '/', httpOnly: true, sameSite: 'lax', secure: name.startsWith('__Secure-'), maxAge: SESSION_MAX_AGE_SECONDS });
+		return true;
+	}
+	return false;
 }

@@ -31,7 +31,8 @@ export const passwordChangeSchema = z
 	.refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two new passwords are not the same; type them again.' });
 
 /** Needs the current password; wrong guesses count towards the same lock-out as failed sign-ins. */
-export async function changePassword(user: SessionUser, input: unknown, clientAddress: string): Promise<void> {
+/** Changes the password and ends every session signed in with the old one; returns the new session version for this device. */
+export async function changePassword(user: SessionUser, input: unknown, clientAddress: string): Promise<number> {
 	const parsed = passwordChangeSchema.safeParse(input);
 	if (!parsed.success) refuse(parsed.error);
 	const throttle = await signInThrottle(user.email, clientAddress);
@@ -44,5 +45,8 @@ export async function changePassword(user: SessionUser, input: unknown, clientAd
 		await recordSignInFailure(user.email, clientAddress);
 		throw new ServiceError('That is not your current password.', 400, { current: 'That is not your current password.' });
 	}
-	await row.update({ passwordHash: await hashPassword(parsed.data.password) });
+	const sessionVersion = row.sessionVersion + 1;
+	await row.update({ passwordHash: await hashPassword(parsed.data.password), sessionVersion });
+	forgetSessionUser(user.id);
+	return sessionVersion;
 }
