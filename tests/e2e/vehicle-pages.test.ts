@@ -111,4 +111,34 @@ describe('a page opened again shows every change since', () => {
 		expect(await page.textContent('main')).toContain('Passenger seat height with the new mat');
 		await page.close();
 	});
+
+	it('lets a writer put the removal steps in another order, with and without scripts', async () => {
+		const page = await pageAs('editor');
+		await page.goto(`${BASE}/vehicles/${OTHER}/edit`, { waitUntil: 'networkidle' });
+		const steps = () => page.locator('input[name^="removal.steps."]').evaluateAll((els) => els.map((e) => (e as HTMLInputElement).value));
+		const before = await steps();
+		expect(before.length).toBeGreaterThan(2);
+		await page.locator('#edit-removal').getByRole('button', { name: 'Move step 2 up' }).click();
+		expect(await steps()).toEqual([before[1], before[0], ...before.slice(2)]);
+		expect(await page.locator('#edit-removal').getByRole('button', { name: 'Move step 1 up' }).isDisabled()).toBe(true);
+		await page.fill('#summary', 'Removal order as done in the bay');
+		await Promise.all([page.waitForURL(/saved=\d+/), page.click('button:has-text("Save revision")')]);
+		expect(await page.locator('#section-removal ol li').allTextContents()).toEqual([before[1], before[0], ...before.slice(2)]);
+		await page.close();
+
+		// Without scripts the same button posts the whole form; the page comes back with the list reordered.
+		const plain = await pageAs('editor');
+		await plain.goto(`${BASE}/vehicles/${OTHER}/edit`, { waitUntil: 'networkidle' });
+		const { action, fields } = await plain.evaluate(() => {
+			const form = document.querySelector('button[value^="move:removal.steps"]')!.closest('form')!;
+			return { action: form.action, fields: [...new FormData(form)].map(([k, v]) => [k, String(v)]) };
+		});
+		const body = new URLSearchParams(fields);
+		body.set('intent', 'move:removal.steps:0:down');
+		const res = await plain.request.post(action, { headers: { origin: BASE, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }, data: body.toString() });
+		expect(res.status()).toBe(200);
+		const html = await res.text();
+		const order = [...html.matchAll(/<input[^>]*name="removal\.steps\.\d+"[^>]*>/g)].map((m) => /value="([^"]*)"/.exec(m[0])?.[1]);
+		expect(order).toEqual(before.map((t) => t.replaceAll('&', '&amp;').replaceAll('"', '&quot;')));
+	});
 });

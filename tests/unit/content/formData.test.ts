@@ -211,6 +211,35 @@ describe('form intents', () => {
 		expect(readIntent('unit:in')).toEqual({ kind: 'unit', unit: 'in' });
 		expect(readIntent(null)).toEqual({ kind: 'save' });
 		expect(readIntent('unit:furlong')).toEqual({ kind: 'save' });
+		expect(readIntent('move:removal.steps:2:up')).toEqual({ kind: 'move', list: 'removal.steps', index: 2, direction: 'up' });
+		expect(readIntent('move:removal.steps:2:sideways')).toEqual({ kind: 'save' });
+		expect(readIntent('move:removal.steps:x:down')).toEqual({ kind: 'save' });
+	});
+
+	it('moves an entry up or down by one, and nothing past either end', () => {
+		const draft = formFromContent(samplePage(), 'mm');
+		const ids = () => draft.seats.spaces.map((s) => s.id);
+		const [a, b] = ids();
+		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 1, direction: 'up' }, 'mm');
+		expect(ids()).toEqual([b, a]);
+		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 0, direction: 'up' }, 'mm');
+		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 1, direction: 'down' }, 'mm');
+		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 9, direction: 'up' }, 'mm');
+		expect(ids()).toEqual([b, a]);
+		draft.removal.steps = ['trim', 'screen', 'amplifier'];
+		applyIntent(draft, { kind: 'move', list: 'removal.steps', index: 0, direction: 'down' }, 'mm');
+		expect(draft.removal.steps).toEqual(['screen', 'trim', 'amplifier']);
+	});
+
+	it('keeps every entry when moves are pressed in any order (property)', () => {
+		fc.assert(
+			fc.property(fc.array(fc.tuple(fc.nat(6), fc.boolean()), { maxLength: 30 }), (presses) => {
+				const draft = formFromContent(samplePage(), 'mm');
+				draft.removal.steps = ['a', 'b', 'c', 'd', 'e'];
+				for (const [index, up] of presses) applyIntent(draft, { kind: 'move', list: 'removal.steps', index, direction: up ? 'up' : 'down' }, 'mm');
+				expect([...draft.removal.steps].sort()).toEqual(['a', 'b', 'c', 'd', 'e']);
+			})
+		);
 	});
 
 	it('adds a seat space on the next seat not yet recorded, and removes by position', () => {

@@ -401,14 +401,16 @@ export type EditIntent =
 	| { kind: 'stay' }
 	| { kind: 'add'; list: string }
 	| { kind: 'remove'; list: string; index: number }
+	| { kind: 'move'; list: string; index: number; direction: 'up' | 'down' }
 	| { kind: 'unit'; unit: LengthUnit };
 
-/** The value of the submit button pressed: "save", "add:seats.spaces", "remove:seats.spaces:1", "unit:in". */
+/** The value of the submit button pressed: "save", "add:seats.spaces", "remove:seats.spaces:1", "move:removal.steps:2:up", "unit:in". */
 export function readIntent(value: unknown): EditIntent {
 	const text = typeof value === 'string' ? value : 'save';
-	const [kind, list, index] = text.split(':');
+	const [kind, list, index, direction] = text.split(':');
 	if (kind === 'add' && list) return { kind, list };
 	if (kind === 'remove' && list && INDEX.test(index ?? '')) return { kind, list, index: Number(index) };
+	if (kind === 'move' && list && INDEX.test(index ?? '') && (direction === 'up' || direction === 'down')) return { kind, list, index: Number(index), direction };
 	if (kind === 'unit' && (list === 'mm' || list === 'in')) return { kind, unit: list };
 	if (kind === 'stay') return { kind };
 	return { kind: 'save' };
@@ -461,17 +463,25 @@ function blankEntry(group: Group, pattern: string): Raw {
 
 const MAX_ENTRIES = 200;
 
-/** Applies an add/remove/unit intent to the draft in place; returns the unit now in use. */
+/** Applies an add/remove/move/unit intent to the draft in place; returns the unit now in use. */
 export function applyIntent(draft: ContentDraft, intent: EditIntent, unit: LengthUnit): LengthUnit {
 	if (intent.kind === 'unit') {
 		convertDraftUnits(draft, unit, intent.unit);
 		return intent.unit;
 	}
-	if (intent.kind !== 'add' && intent.kind !== 'remove') return unit;
+	if (intent.kind !== 'add' && intent.kind !== 'remove' && intent.kind !== 'move') return unit;
 	const at = listAt(draft, intent.list);
 	if (!at) return unit;
 	if (intent.kind === 'remove') {
 		if (intent.index < at.list.length) at.list.splice(intent.index, 1);
+		return unit;
+	}
+	if (intent.kind === 'move') {
+		// Swaps the entry with its neighbour; at either end of the list nothing moves.
+		const to = intent.index + (intent.direction === 'up' ? -1 : 1);
+		if (intent.index < at.list.length && to >= 0 && to < at.list.length) {
+			[at.list[intent.index], at.list[to]] = [at.list[to], at.list[intent.index]];
+		}
 		return unit;
 	}
 	if (at.list.length >= MAX_ENTRIES) return unit;
