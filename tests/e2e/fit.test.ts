@@ -62,6 +62,25 @@ describe('will it fit, at the counter', () => {
 		await page.close();
 	});
 
+	it('finds the vehicle by typing a model and year, then answers for the part', async () => {
+		const page = await freshPage(PHONE);
+		await signIn(page, 'viewer');
+		await page.goto(`${BASE}/fit`, { waitUntil: 'networkidle' });
+		const find = page.getByLabel('Find the vehicle: model, year or VIN');
+		await find.fill('tarn 2012');
+		await page.getByRole('option', { name: /Veldra Tarn/ }).first().waitFor();
+		await find.press('ArrowDown');
+		await find.press('Enter');
+		await page.waitForURL((u) => u.searchParams.get('vehicle') === VEHICLE_SLUG);
+		// The lists below follow the vehicle picked, and the site search box did not navigate away.
+		await expect.poll(() => page.inputValue('#fit-vehicle')).toBe(VEHICLE_SLUG);
+		expect(new URL(page.url()).pathname).toBe('/fit');
+		await selectByLabel(page, '#fit-part', PART);
+		await page.getByTestId('fit-answer').locator('[data-verdict]').first().waitFor();
+		await screenshot(page, 'fit-typed-vehicle-phone');
+		await page.close();
+	});
+
 	it('works without JavaScript through the GET form', async () => {
 		const dir = mkdtempSync(join(tmpdir(), 'kickpanel-e2e-nojs-'));
 		const nojs = await chromium.launchPersistentContext(dir, {
