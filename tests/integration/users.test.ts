@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, freshDatabase } from '../helpers/database';
 import { AuditLog, User } from '../../src/lib/server/db/models';
 import { activeSessionUser, authenticate, changeRole, createUser, setUserStatus, UserError } from '../../src/lib/server/services/users';
+import { SharedLimiter } from '../../src/lib/server/auth/sharedLimiter';
+import { db } from '../../src/lib/server/db';
 
 beforeAll(() => freshDatabase('users'));
 afterAll(() => closeDb());
@@ -70,3 +72,37 @@ describe('staff accounts', () => {
 		await expect(setUserStatus(admin!.id, 'disabled', admin!.id)).rejects.toThrow(/own account/);
 	});
 });
+
+describe('limits shared by every app instance', () => {
+	// Two limiters with one prefix stand for the same limit in two app processes: both read MariaDB.
+	const instance = () => new SharedLimiter({ keyPrefix: 'test-shared', points: 3, duration: 60 });
+
+	it('counts uses made through either instance together', async () => {
+		const a = instance();
+		const b = instance();
+		await a.penalty('k1');
+		await b.penalty('k1');
+		const seen = await a.get('k1');
+		expect(seen).toMatchObject({ consumedPoints: 2, remainingPoints: 1 });
+		expect(seen!.msBeforeNext).toBeGreaterThan(55_000);
+		await b.consume('k1');
+		await expect(a.consume('k1')).rejects.toMatchObject({ consumedPoints: 4, remainingPoints: 0 });
+	});
+
+	it('starts a fresh window once the last one has ended, and forgets on delete', async () => {
+		const a = instance();
+		await a.penalty('k2', 3);
+		await db().query("UPDATE rate_limits SET expire_ms = 1 WHERE k = 'test-shared:k2'");
+		expect(await a.get('k2')).toBeNull();
+		expect(await a.penalty('k2')).toMatchObject({ consumedPoints: 1 });
+		await a.delete('k2');
+		expect(await a.get('k2')).toBeNull();
+	});
+
+	it('keeps counting correctly when many failures land at once', async () => {
+		const a = instance();
+		await Promise.all(Array.from({ length: 25 }, () => a.penalty('k3')));
+		expect(await a.get('k3')).toMatchObject({ consumedPoints: 25 });
+	});
+});
+

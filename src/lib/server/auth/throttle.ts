@@ -1,13 +1,15 @@
-import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
+import type { RateLimiterRes } from 'rate-limiter-flexible';
 import { config } from '../config';
+import { SharedLimiter } from './sharedLimiter';
 
 // Failed sign-ins are counted per account and per client address; either limit locks out for a while.
-const perAccount = new RateLimiterMemory({
+// The counts live in MariaDB, so a lockout holds on every app instance.
+const perAccount = new SharedLimiter({
 	keyPrefix: 'signin-account',
 	points: config.auth.maxFailuresPerAccount,
 	duration: config.auth.lockoutSeconds
 });
-const perAddress = new RateLimiterMemory({
+const perAddress = new SharedLimiter({
 	keyPrefix: 'signin-address',
 	points: config.auth.maxFailuresPerAddress,
 	duration: config.auth.lockoutSeconds

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
+import { RateLimiterRes } from 'rate-limiter-flexible';
+import { SharedLimiter } from '../auth/sharedLimiter';
 import { db } from '../db';
 import { AccountToken, User } from '../db/models';
 import { hashPassword } from '../auth/password';
@@ -16,8 +17,8 @@ import { ServiceError } from './errors';
 export const RESET_LIFETIME_MS = 60 * 60 * 1000;
 
 // Requests are counted per address asked for and per client, whether or not the address has an account.
-const perEmail = new RateLimiterMemory({ keyPrefix: 'reset-email', points: 3, duration: 60 * 60 });
-const perClient = new RateLimiterMemory({ keyPrefix: 'reset-client', points: 10, duration: 60 * 60 });
+const perEmail = new SharedLimiter({ keyPrefix: 'reset-email', points: 3, duration: 60 * 60 });
+const perClient = new SharedLimiter({ keyPrefix: 'reset-client', points: 10, duration: 60 * 60 });
 
 /** The one answer to every well-formed request, so it never tells whether an address has an account. */
 export const RESET_REQUESTED =
