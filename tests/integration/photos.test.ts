@@ -9,15 +9,19 @@ import exifr from 'exifr';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import { closeDb, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
+import { QueryTypes } from 'sequelize';
+import { db } from '../../src/lib/server/db';
 import { Photo, Revision } from '../../src/lib/server/db/models';
+import * as revisionPhotosMigration from '../../src/lib/server/db/migrations/2026-12-01T16-00-00_revision_photos';
 import { emptyContent } from '../../src/lib/domain/content/schema';
-import { compareRevisions, createVehicle, restoreRevision, revisionById, setProtection } from '../../src/lib/server/services/revisions';
+import { compareRevisions, createVehicle, restoreRevision, revisionById, setProtection, setRevisionHidden } from '../../src/lib/server/services/revisions';
 import { requireVehicle } from '../../src/lib/server/services/vehicles';
 import {
 	addPhotosToVehicle,
 	editPhotoDetails,
 	openRendition,
 	removePhotoFromVehicle,
+	photoVisibleTo,
 	storePhoto
 } from '../../src/lib/server/services/photos';
 import { ServiceError } from '../../src/lib/server/services/errors';
@@ -426,6 +430,33 @@ describe('photos belong to revisions', () => {
 		const served = await openRendition(idA, 'thumb');
 		expect(served).not.toBeNull();
 		expect((await sharp(await streamBytes(served!.body)).metadata()).format).toBe('webp');
+	});
+
+	it('stops showing readers a photo that is left only in hidden revisions, and shows it again when unhidden', async () => {
+		const { vehicle, rev: before } = await current();
+		const added = await addPhotosToVehicle(vehicle.id, [{ name: 'plate.jpg', bytes: await jpeg(640, 480) }], seatDetails, editor);
+		const [id] = added.photos.map((p) => p.id);
+		const otherViewer = await makeUser('viewer');
+		expect(await photoVisibleTo(id, otherViewer)).toBe(true);
+
+		// A moderator puts the page back and hides the revision that added the photo.
+		await restoreRevision(vehicle.id, before.id, moderator);
+		await setRevisionHidden(added.revisionId, true, 'shows a customer number plate', moderator);
+		expect(await photoVisibleTo(id, otherViewer)).toBe(false);
+		expect(await photoVisibleTo(id, moderator)).toBe(true);
+		expect(await photoVisibleTo(id, editor)).toBe(true); // the one who uploaded it
+
+		await setRevisionHidden(added.revisionId, false, 'plate blurred', moderator);
+		expect(await photoVisibleTo(id, otherViewer)).toBe(true);
+	});
+
+	it('fills in which revisions show which photo for revisions written before that was recorded', async () => {
+		const q = db().getQueryInterface();
+		const recorded = await db().query('SELECT photo_id, revision_id FROM revision_photos ORDER BY photo_id, revision_id', { type: QueryTypes.SELECT });
+		expect(recorded.length).toBeGreaterThan(0);
+		await q.dropTable('revision_photos');
+		await revisionPhotosMigration.up({ context: q } as Parameters<typeof revisionPhotosMigration.up>[0]);
+		expect(await db().query('SELECT photo_id, revision_id FROM revision_photos ORDER BY photo_id, revision_id', { type: QueryTypes.SELECT })).toEqual(recorded);
 	});
 
 	it('moves a photo to another section as a revision', async () => {

@@ -137,6 +137,13 @@ async function insertRevision(
 		},
 		{ transaction }
 	);
+	const photoIds = [...new Set(content.photos.map((p) => p.id))];
+	if (photoIds.length) {
+		await db().query(`INSERT IGNORE INTO revision_photos (photo_id, revision_id) VALUES ${photoIds.map(() => '(?, ?)').join(', ')}`, {
+			replacements: photoIds.flatMap((id) => [id, Number(row.id)]),
+			transaction
+		});
+	}
 	const identity = content.identity;
 	const slug = vehicleSlug(identity);
 	if (slug !== vehicle.slug) {

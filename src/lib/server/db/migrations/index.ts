@@ -3,6 +3,7 @@ import * as partsAndTrust from './2026-12-01T12-00-00_parts_and_trust';
 import * as accountsWatchReview from './2026-12-01T14-00-00_accounts_watch_review';
 import * as photos from './2026-12-01T13-00-00_photos';
 import * as rateLimits from './2026-12-01T15-00-00_rate_limits';
+import * as revisionPhotos from './2026-12-01T16-00-00_revision_photos';
 
 /** Every migration, oldest first. Add new ones at the end (see DEVELOPERS.md). */
-export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits];
+export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos];
