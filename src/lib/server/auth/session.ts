@@ -28,16 +28,22 @@ async function claimsFor(cookieName: string, token: string): Promise<SessionClai
 	return claims;
 }
 
-/** The signed-in user, re-read from MariaDB on every request so role and status changes apply at once. */
-export async function sessionUser(cookies: Cookies): Promise<SessionUser | null> {
+/** The session cookie this request carries (secure name first), if any. */
+function sessionCookie(cookies: Cookies): { name: string; token: string } | null {
 	for (const name of COOKIE_NAMES) {
 		const token = cookies.get(name);
-		if (!token) continue;
-		const claims = await claimsFor(name, token);
-		if (!claims || claims.exp * 1000 < Date.now()) return null;
-		return activeSessionUser(claims.uid, claims.sv);
+		if (token) return { name, token };
 	}
 	return null;
+}
+
+/** The signed-in user, re-read from MariaDB on every request so role and status changes apply at once. */
+export async function sessionUser(cookies: Cookies): Promise<SessionUser | null> {
+	const cookie = sessionCookie(cookies);
+	if (!cookie) return null;
+	const claims = await claimsFor(cookie.name, cookie.token);
+	if (!claims || claims.exp * 1000 < Date.now()) return null;
+	return activeSessionUser(claims.uid, claims.sv);
 }
 
 /**
@@ -45,15 +51,13 @@ export async function sessionUser(cookies: Cookies): Promise<SessionUser | null>
  * re-issued with the account's new session version.
  */
 export async function renewSession(cookies: Cookies, sessionVersion: number): Promise<boolean> {
+	const cookie = sessionCookie(cookies);
+	if (!cookie) return false;
+	const { name, token } = cookie;
 	const secret = process.env.AUTH_SECRET ?? '';
-	for (const name of COOKIE_NAMES) {
-		const token = cookies.get(name);
-		if (!token) continue;
-		const payload = await decode({ token, secret, salt: name }).catch(() => null);
-		if (!payload) return false;
-		const renewed = await encode({ token: { ...payload, sv: sessionVersion }, secret, salt: name, maxAge: SESSION_MAX_AGE_SECONDS });
-		cookies.set(name, renewed, { path: '/', httpOnly: true, sameSite: 'lax', secure: name.startsWith('__Secure-'), maxAge: SESSION_MAX_AGE_SECONDS });
-		return true;
-	}
-	return false;
+	const payload = await decode({ token, secret, salt: name }).catch(() => null);
+	if (!payload) return false;
+	const renewed = await encode({ token: { ...payload, sv: sessionVersion }, secret, salt: name, maxAge: SESSION_MAX_AGE_SECONDS });
+	cookies.set(name, renewed, { path: '/', httpOnly: true, sameSite: 'lax', secure: name.startsWith('__Secure-'), maxAge: SESSION_MAX_AGE_SECONDS });
+	return true;
 }

@@ -17,7 +17,9 @@ export class SharedLimiter {
 		return `${this.opts.keyPrefix}:${k}`.slice(0, 255);
 	}
 
-	private res(row: Row | undefined, now: number): RateLimiterRes | null {
+	/** The key's current window, or null when it has none (never counted, or the window ended). */
+	private async read(key: string, now: number): Promise<RateLimiterRes | null> {
+		const [row] = await db().query<Row>('SELECT points, expire_ms FROM rate_limits WHERE k = ?', { replacements: [key], type: QueryTypes.SELECT });
 		if (!row) return null;
 		const expire = Number(row.expire_ms);
 		if (expire <= now) return null;
@@ -25,10 +27,8 @@ export class SharedLimiter {
 		return new RateLimiterRes(Math.max(this.opts.points - consumed, 0), expire - now, consumed);
 	}
 
-	async get(k: string): Promise<RateLimiterRes | null> {
-		const now = Date.now();
-		const [row] = await db().query<Row>('SELECT points, expire_ms FROM rate_limits WHERE k = ?', { replacements: [this.key(k)], type: QueryTypes.SELECT });
-		return this.res(row, now);
+	get(k: string): Promise<RateLimiterRes | null> {
+		return this.read(this.key(k), Date.now());
 	}
 
 	/** Adds points in the current window (a fresh window when the last one ended) and returns the count. */
@@ -43,8 +43,7 @@ export class SharedLimiter {
 			{ replacements: [key, points, expire, now, now] }
 		);
 		if (++writes % SWEEP_EVERY === 0) void db().query('DELETE FROM rate_limits WHERE expire_ms <= ?', { replacements: [now] }).catch(() => undefined);
-		const [row] = await db().query<Row>('SELECT points, expire_ms FROM rate_limits WHERE k = ?', { replacements: [key], type: QueryTypes.SELECT });
-		return this.res(row, now) ?? new RateLimiterRes(this.opts.points - points, this.opts.duration * 1000, points);
+		return (await this.read(key, now)) ?? new RateLimiterRes(this.opts.points - points, this.opts.duration * 1000, points);
 	}
 
 	/** Counts one use; rejects with the RateLimiterRes once the window's points are used up. */

@@ -72,11 +72,6 @@ export class PageMemo {
 		this.used += cost;
 	}
 
-	clear(): void {
-		this.entries.clear();
-		this.used = 0;
-	}
-
 	private forget(key: string, entry: Entry) {
 		this.entries.delete(key);
 		this.used -= entry.body.byteLength + key.length * 2;

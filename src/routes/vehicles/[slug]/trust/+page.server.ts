@@ -3,9 +3,8 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
 import { ServiceError } from '$lib/server/services/errors';
-import { requireVehicle } from '$lib/server/services/vehicles';
+import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
 import { confirmPage, flaggableFields, flagField, trustSummary } from '$lib/server/services/trust';
-import { revisionById } from '$lib/server/services/revisions';
 
 /** Back to the page the form was on, never off the site. */
 function backTo(form: FormData, slug: string, mark: string): string {
@@ -23,7 +22,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		const vehicle = await requireVehicle(params.slug);
 		const [trust, current] = await Promise.all([
 			trustSummary(vehicle, locals.units),
-			vehicle.latestRevisionId ? revisionById(vehicle.latestRevisionId) : null
+			currentRevision(vehicle)
 		]);
 		return { vehicle: { slug: vehicle.slug, title: vehicle.title }, trust, fields: current ? flaggableFields(current.content) : [] };
 	} catch (err) {
