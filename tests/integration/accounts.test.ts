@@ -14,7 +14,7 @@ import { auditFilterSchema, listAudit } from '../../src/lib/server/services/audi
 import { createVehicle, saveRevision } from '../../src/lib/server/services/revisions';
 import { requireRole, type SessionUser } from '../../src/lib/server/auth/guard';
 import { emptyContent } from '../../src/lib/domain/content/schema';
-import { ServiceError } from '../../src/lib/server/services/errors';
+import { ServiceError } from '../../src/lib/server/errors';
 
 let outbox: TestOutbox;
 let admin: SessionUser;

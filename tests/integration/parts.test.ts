@@ -4,7 +4,7 @@ import { closeDb, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
 import { AuditLog, Part as PartRow } from '../../src/lib/server/db/models';
 import { createPart, deletePart, listParts, partById, partsByIds, samplePartInput, updatePart } from '../../src/lib/server/services/parts';
-import { ServiceError } from '../../src/lib/server/services/errors';
+import { ServiceError } from '../../src/lib/server/errors';
 import { readPartForm } from '../../src/lib/domain/part';
 import type { SessionUser } from '../../src/lib/server/auth/guard';
 

@@ -24,7 +24,7 @@ import {
 	photoVisibleTo,
 	storePhoto
 } from '../../src/lib/server/services/photos';
-import { ServiceError } from '../../src/lib/server/services/errors';
+import { ServiceError } from '../../src/lib/server/errors';
 import { usePhotoStore, type PhotoStore } from '../../src/lib/server/storage';
 import { FAKE_CREDENTIALS, S3PhotoStore } from '../../src/lib/server/storage/s3';
 import { startObjectStoreFake, type RunningObjectStoreFake } from '../../src/lib/server/storage/fake';

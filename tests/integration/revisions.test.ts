@@ -14,7 +14,7 @@ import {
 	setRevisionHidden
 } from '../../src/lib/server/services/revisions';
 import { vehicleBySlug } from '../../src/lib/server/services/vehicles';
-import { EditConflictError, NoChangeError, ServiceError } from '../../src/lib/server/services/errors';
+import { EditConflictError, NoChangeError, ServiceError } from '../../src/lib/server/errors';
 import type { SessionUser } from '../../src/lib/server/auth/guard';
 
 let writer: SessionUser;

@@ -8,7 +8,7 @@ import type { SessionUser } from '../../src/lib/server/auth/guard';
 import { LiveSearchIndex, searchIndex, stopSearchIndex } from '../../src/lib/server/search';
 import { createVehicle, restoreRevision, revisionById, saveRevision, setRevisionHidden } from '../../src/lib/server/services/revisions';
 import { vehicleBySlug } from '../../src/lib/server/services/vehicles';
-import { ServiceError } from '../../src/lib/server/services/errors';
+import { ServiceError } from '../../src/lib/server/errors';
 import { lookupVin } from '../../src/lib/server/vin/lookup';
 import { fakeDecode } from '../../src/lib/server/vin/fake';
 import type { DecodeResult } from '../../src/lib/server/vin/client';

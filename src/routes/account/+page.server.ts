@@ -6,7 +6,7 @@ import { renewSession } from '$lib/server/auth/session';
 import { changeName, changePassword } from '$lib/server/services/account';
 import { setUnits } from '$lib/server/services/preferences';
 import { noticePreferences, setNoticePreferences } from '$lib/server/services/watch';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { fieldMessages } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals }) => {

@@ -6,7 +6,7 @@ import { listRevisions } from '$lib/server/services/revisions';
 import { changesFilter } from '$lib/server/services/changes';
 import { listUsers } from '$lib/server/services/users';
 import { markReviewed } from '$lib/server/services/review';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	const user = requireRole(locals, 'viewer');

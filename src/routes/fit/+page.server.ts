@@ -1,9 +1,9 @@
 import type { PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { catalogue, currentRevision, listVehicles, requireVehicle } from '$lib/server/services/vehicles';
 import { listParts } from '$lib/server/services/parts';
-import { measurementOrigins, placeReaders } from '$lib/server/services/fit';
+import { measurementOrigins, placeReaders } from '$lib/server/services/evidence';
 import { trustSummary } from '$lib/server/services/trust';
 import { BODY_STYLE_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 

@@ -5,7 +5,7 @@ import { error } from '@sveltejs/kit';
 import type { SearchSection } from '../../domain/search/document';
 import { vehicleSearchSections } from '../../domain/search/document';
 import type { SearchFilters } from '../../domain/search/filters';
-import { onRevisionWritten } from '../services/events';
+import { onRevisionWritten } from '../events';
 import { VehicleSearchEngine, withNoteSnippet, type SearchOutcome, type VinCandidate } from './engine';
 import { latestRevisions, latestRevisionsOf, newestRevisionId, pagesChangedAfter, revisionContents } from './source';
 

@@ -5,7 +5,7 @@ import { recordSignInFailure, signInThrottle } from '../auth/throttle';
 import type { SessionUser } from '../auth/guard';
 import { fieldMessages } from '../forms';
 import { forgetSessionUser, newUserSchema } from './users';
-import { ServiceError } from './errors';
+import { ServiceError } from '../errors';
 
 function refuse(error: z.ZodError): never {
 	const fields = fieldMessages(error);

@@ -8,7 +8,7 @@ import { blockNotice, type EditBlock } from '../../domain/block';
 import type { SessionUser } from '../auth/guard';
 import { fieldMessages } from '../forms';
 import { recordAudit } from './audit';
-import { ServiceError } from './errors';
+import { ServiceError } from '../errors';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 const LONGEST_BLOCK_DAYS = 5 * 366;

@@ -13,7 +13,7 @@ import { emailSchema, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
 import { shopSettings } from './settings';
 import { recordAudit } from './audit';
-import { ServiceError } from './errors';
+import { ServiceError } from '../errors';
 
 export const INVITE_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
 

@@ -7,7 +7,7 @@ import type { SessionUser } from '../auth/guard';
 import { roleAtLeast } from '../../domain/roles';
 import { fieldMessages } from '../forms';
 import { recordAudit } from './audit';
-import { ServiceError } from './errors';
+import { ServiceError } from '../errors';
 
 // The kind's own figures; the box columns and names live in their own columns.
 const COLUMNS = ['kind', 'sku', 'name', 'lengthMm', 'widthMm', 'heightMm', 'notes'] as const;

@@ -12,7 +12,7 @@ import { resetMail } from '../mail/templates';
 import { emailSchema, forgetSessionUser, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
 import { shopSettings } from './settings';
-import { ServiceError } from './errors';
+import { ServiceError } from '../errors';
 
 export const RESET_LIFETIME_MS = 60 * 60 * 1000;
 

@@ -23,8 +23,8 @@ import {
 } from '../storage/renditions';
 import { canEditVehicle, revisionById, saveRevision, type StoredRevision } from './revisions';
 import { vehicleById, type VehicleSummary } from './vehicles';
-import { EditConflictError, ServiceError } from './errors';
-import { onRevisionWritten } from './events';
+import { EditConflictError, ServiceError } from '../errors';
+import { onRevisionWritten } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
 export type PhotoRecord = {

@@ -7,7 +7,7 @@ import { revisionById, type StoredRevision } from './revisions';
 import type { VehicleSummary } from './vehicles';
 import { forgetShopSettings, shopSettings } from './settings';
 import { recordAudit } from './audit';
-import { ServiceError } from './errors';
+import { ServiceError } from '../errors';
 
 export type VisibleRevision = { revision: StoredRevision | null; newerAwaitingReview: boolean };
 

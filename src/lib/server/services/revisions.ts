@@ -10,8 +10,8 @@ import { slugify, vehicleSlug } from '../../domain/slug';
 import type { SessionUser } from '../auth/guard';
 import { renderNotes, type RenderedNotes } from './rendering';
 import { recordAudit } from './audit';
-import { announceRevision, announceVehicleChange } from './events';
-import { EditConflictError, NoChangeError, ServiceError } from './errors';
+import { announceRevision, announceVehicleChange } from '../events';
+import { EditConflictError, NoChangeError, ServiceError } from '../errors';
 import { refuseBlockedAuthor } from './blocks';
 
 export type StoredRevision = {

@@ -7,8 +7,8 @@ import type { UnitSystem } from '../../domain/units';
 import type { SessionUser } from '../auth/guard';
 import { roleAtLeast } from '../../domain/roles';
 import { revisionById } from './revisions';
-import { ServiceError } from './errors';
-import { onRevisionWritten } from './events';
+import { ServiceError } from '../errors';
+import { onRevisionWritten } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
 // Shown on every page view; this process's confirmations, flags and saves clear it at once.

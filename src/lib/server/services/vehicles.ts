@@ -2,8 +2,8 @@ import { Op, fn, col } from 'sequelize';
 import { Make, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
 import { vehicleTitle } from '../../domain/slug';
 import { revisionById, type StoredRevision } from './revisions';
-import { ServiceError } from './errors';
-import { onRevisionWritten, onVehicleChanged } from './events';
+import { ServiceError } from '../errors';
+import { onRevisionWritten, onVehicleChanged } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
 export type VehicleSummary = {

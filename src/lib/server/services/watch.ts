@@ -4,11 +4,11 @@ import type { SessionUser } from '../auth/guard';
 import { config } from '../config';
 import { sendMail } from '../mail/transport';
 import { changeNoticeMail, digestMail, type ChangeLine } from '../mail/templates';
-import { onRevisionWritten, type RevisionWritten } from './events';
+import { onRevisionWritten, type RevisionWritten } from '../events';
 import { revisionById } from './revisions';
 import { vehicleById, type VehicleSummary } from './vehicles';
 import { visibleRevision } from './review';
-import { ServiceError } from './errors';
+import { ServiceError } from '../errors';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
 // The pages each person watches, read in one query and kept briefly: every page view asks.

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp, { type Metadata } from 'sharp';
-import { ServiceError } from '../services/errors';
+import { ServiceError } from '../errors';
 
 export const RENDITIONS = ['display', 'thumb'] as const;
 export type Rendition = (typeof RENDITIONS)[number];

@@ -1,7 +1,7 @@
 // A VIN typed or pasted anywhere search is offered: what it says by itself (check digit, model year,
 // manufacturer code), what the decoding service adds, and which pages it leads to.
 import { decodeVinBasics, normalizeVin, vinProblem } from '../../domain/vin';
-import { ServiceError } from '../services/errors';
+import { ServiceError } from '../errors';
 import type { VinCandidate } from '../search/engine';
 import { searchIndex } from '../search';
 import { decodeVin, type DecodedVehicle, type DecodeResult } from './client';

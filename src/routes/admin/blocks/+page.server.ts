@@ -4,7 +4,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { config } from '$lib/server/config';
 import { liftBlock, listBlocks } from '$lib/server/services/blocks';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	const user = requireRole(locals, 'moderator');

@@ -5,7 +5,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import { config } from '$lib/server/config';
 import { shopSettings } from '$lib/server/services/settings';
 import { setReviewBeforeShow } from '$lib/server/services/review';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	requireRole(locals, 'admin');

@@ -4,7 +4,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { changeRole, createUser, listUsers, newUserSchema, setUserStatus, UserError } from '$lib/server/services/users';
 import { inviteByEmail, pendingInvites, revokeInvite } from '$lib/server/services/invites';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { MailNotSent } from '$lib/server/mail/transport';
 import { config } from '$lib/server/config';
 import { ROLES } from '$lib/domain/roles';

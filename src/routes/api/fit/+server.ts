@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { checkVehicleFit, vehicleFitSchema, vehiclesForBox, vehiclesForPart } from '$lib/server/services/fit';
 import { requirePart } from '$lib/server/services/parts';
 import { fitInputSchema, fitVerdict } from '$lib/domain/fit';

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, queryInt } from '$lib/server/http';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { searchIndex } from '$lib/server/search';
 import { parseSearchFilters } from '$lib/domain/search/filters';
 import { YEAR_MAX, YEAR_MIN } from '$lib/domain/search/query';

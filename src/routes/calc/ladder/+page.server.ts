@@ -1,6 +1,6 @@
 import type { PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
 
 /** With ?vehicle=slug the form starts from that page's recorded control lines. */

@@ -1,7 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { acceptInvite, invitationFor } from '$lib/server/services/invites';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 // Open without signing in: the token in the address is the proof.
 export const load: PageServerLoad = async ({ params, locals }) => {

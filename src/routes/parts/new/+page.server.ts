@@ -2,7 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { createPart } from '$lib/server/services/parts';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { emptyPartForm, PART_KINDS, partFieldsFromForm, readPartForm, type PartKind } from '$lib/domain/part';
 
 export const load: PageServerLoad = async ({ locals, url }) => {

@@ -1,7 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { resetLinkWorks, resetPassword } from '$lib/server/services/passwordReset';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async ({ params }) => ({ works: await resetLinkWorks(params.token) });
 

@@ -4,7 +4,7 @@ import { hasRole, requireRole } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/services/revisions';
 import { changesFilter } from '$lib/server/services/changes';
 import { activeBlockFor, blockUser, liftBlock } from '$lib/server/services/blocks';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { User } from '$lib/server/db/models';
 
 function personId(raw: string): number {

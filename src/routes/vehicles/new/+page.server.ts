@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { catalogue } from '$lib/server/services/vehicles';
 import { createVehicle } from '$lib/server/services/revisions';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { CONTENT_SCHEMA_VERSION } from '$lib/domain/content/schema';
 import { vehicleSlug } from '$lib/domain/slug';
 

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { powerWire, powerWireInputSchema } from '$lib/domain/power';
 
 export const POST: RequestHandler = ({ locals, request }) =>

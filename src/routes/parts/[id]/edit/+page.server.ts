@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
 import { deletePart, requirePart, updatePart } from '$lib/server/services/parts';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { emptyPartForm, partFieldsFromForm, partFormValues, readPartForm } from '$lib/domain/part';
 
 function partId(raw: string): number {

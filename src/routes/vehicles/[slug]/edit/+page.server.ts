@@ -4,7 +4,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireRole, type SessionUser } from '$lib/server/auth/guard';
 import { currentRevision, vehicleBySlug, type VehicleSummary } from '$lib/server/services/vehicles';
 import { canEditVehicle, revisionById, saveRevision } from '$lib/server/services/revisions';
-import { EditConflictError, NoChangeError, ServiceError } from '$lib/server/services/errors';
+import { EditConflictError, NoChangeError, ServiceError } from '$lib/server/errors';
 import {
 	applyIntent,
 	conflictViews,

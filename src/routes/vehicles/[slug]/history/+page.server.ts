@@ -4,7 +4,7 @@ import type { Actions } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { requireVehicle } from '$lib/server/services/vehicles';
 import { restoreRevision, setProtection, setRevisionHidden } from '$lib/server/services/revisions';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 const revisionRef = z.object({ revisionId: z.coerce.number().int().positive('Pick a revision.') });
 

@@ -13,7 +13,7 @@ import {
 	removePhotoFromVehicle
 } from '$lib/server/services/photos';
 import { ACCEPTED_NAMES, formatBytes, photoLimits } from '$lib/server/storage/renditions';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = requireRole(locals, 'editor');

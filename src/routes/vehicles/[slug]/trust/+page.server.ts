@@ -2,7 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
 import { confirmPage, flaggableFields, flagField, trustSummary } from '$lib/server/services/trust';
 

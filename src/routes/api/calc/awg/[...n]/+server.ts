@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall } from '$lib/server/http';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 import { awgWire, parseAwg } from '$lib/domain/wire';
 import { AWG_TABLE_GAUGES } from '$lib/domain/calcInput';
 

@@ -4,7 +4,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import { apiCall } from '$lib/server/http';
 import { requireVehicle } from '$lib/server/services/vehicles';
 import { addPhotosToVehicle, photoUrl } from '$lib/server/services/photos';
-import { ServiceError } from '$lib/server/services/errors';
+import { ServiceError } from '$lib/server/errors';
 
 const text = (v: FormDataEntryValue | null) => (typeof v === 'string' ? v : undefined);
 

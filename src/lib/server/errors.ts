@@ -1,4 +1,4 @@
-import type { MergeConflict } from '../../domain/content/merge';
+import type { MergeConflict } from '../domain/content/merge';
 
 /** A refusal a person can act on; routes turn it into a 4xx with this message. */
 export class ServiceError extends Error {
