@@ -1,6 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
+import { safeNext } from '$lib/server/auth/redirects';
 import { asHttpError } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
 import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
@@ -8,12 +9,10 @@ import { confirmPage, flaggableFields, flagField, trustSummary } from '$lib/serv
 
 /** Back to the page the form was on, never off the site. */
 function backTo(form: FormData, slug: string, mark: string): string {
-	const wanted = String(form.get('redirectTo') ?? '');
-	const safe = wanted.startsWith('/') && !wanted.startsWith('//') && !wanted.startsWith('/\\') ? wanted : `/vehicles/${slug}`;
-	const [path, hash] = safe.split('#');
-	const url = new URL(path, 'http://kickpanel.local');
+	const wanted = form.get('redirectTo');
+	const url = new URL(safeNext(typeof wanted === 'string' ? wanted : null, `/vehicles/${slug}`), 'http://kickpanel.invalid');
 	url.searchParams.set('marked', mark);
-	return `${url.pathname}${url.search}${hash ? `#${hash}` : ''}`;
+	return `${url.pathname}${url.search}${url.hash}`;
 }
 
 export const load: PageServerLoad = async ({ locals, params }) => {
