@@ -9,6 +9,7 @@ import { PageMemo, reuseRenders } from '$lib/server/render/pageMemo';
 import { layoutData } from '$lib/server/views/layout';
 import { vehiclePageData } from '$lib/server/views/vehiclePage';
 import { config } from '$lib/server/config';
+import { bodyLimits, securityHeaders } from '$lib/server/perimeter';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -50,4 +51,4 @@ const memoised: Handle =
 			})
 		: ({ event, resolve }) => resolve(event);
 
-export const handle = sequence(authHandle, loadUser, memoised);
+export const handle = sequence(securityHeaders({ https: config.origin.startsWith('https:') }), bodyLimits, authHandle, loadUser, memoised);

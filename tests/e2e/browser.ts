@@ -1,7 +1,7 @@
 import { mkdtempSync, readFileSync, rmSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 export const BASE = process.env.ORIGIN ?? 'http://127.0.0.1:3117';
@@ -44,18 +44,28 @@ export async function screenshot(page: Page, name: string): Promise<void> {
 	await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
 }
 
-/** One browser for a test file, opened before its tests and closed after; each test takes a fresh signed-out page. */
+/**
+ * One browser for a test file, opened before its tests and closed after; each test takes a fresh
+ * signed-out page. Anything the Content-Security-Policy blocked on any page fails the file.
+ */
 export function browserSession(defaultViewport = DESKTOP) {
 	let context: BrowserContext;
 	let close: (() => Promise<void>) | undefined;
+	const blocked: string[] = [];
 	beforeAll(async () => {
 		({ context, close } = await openBrowser(defaultViewport));
 	});
-	afterAll(() => close?.());
+	afterAll(async () => {
+		await close?.();
+		expect(blocked, 'blocked by the Content-Security-Policy').toEqual([]);
+	});
 	return {
 		async freshPage(viewport = defaultViewport): Promise<Page> {
 			await context.clearCookies();
 			const page = await context.newPage();
+			page.on('console', (message) => {
+				if (message.type() === 'error' && /Content Security Policy/i.test(message.text())) blocked.push(`${page.url()}: ${message.text()}`);
+			});
 			await page.setViewportSize(viewport);
 			return page;
 		}

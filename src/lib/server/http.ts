@@ -19,7 +19,16 @@ export async function apiCall(body: () => Promise<Response>): Promise<Response> 
 	}
 }
 
+const JSON_TYPE = /^application\/(?:[\w.+-]+\+)?json\s*(?:;|$)/i;
+
+/**
+ * A JSON body checked against its schema. The content type must say JSON: a cross-site form can
+ * send text/plain without asking the browser first, but never application/json.
+ */
 export async function readJson<T>(request: Request, schema: ZodType<T>): Promise<T> {
+	if (!JSON_TYPE.test(request.headers.get('content-type') ?? '')) {
+		throw new ServiceError('Send the body as JSON, with the header "Content-Type: application/json".', 415);
+	}
 	let raw: unknown;
 	try {
 		raw = await request.json();

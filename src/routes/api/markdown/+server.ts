@@ -1,8 +1,9 @@
-import { error, json } from '@sveltejs/kit';
+import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { renderMarkdown } from '$lib/server/markdown';
+import { apiCall, readJson } from '$lib/server/http';
 
 const NOTES_MAX = 20_000;
 
@@ -13,10 +14,9 @@ const previewSchema = z.object({
 });
 
 /** The editor's live preview: the same rendering a saved page gets. */
-export const POST: RequestHandler = async ({ locals, request }) => {
-	requireRole(locals, 'editor');
-	const body = await request.json().catch(() => null);
-	const parsed = previewSchema.safeParse(body);
-	if (!parsed.success) error(400, parsed.error.issues[0].message);
-	return json({ html: renderMarkdown(parsed.data.text) });
-};
+export const POST: RequestHandler = ({ locals, request }) =>
+	apiCall(async () => {
+		requireRole(locals, 'editor');
+		const { text } = await readJson(request, previewSchema);
+		return json({ html: renderMarkdown(text) });
+	});
