@@ -4,7 +4,7 @@ import type { MergeConflict } from '../domain/content/merge';
 export class ServiceError extends Error {
 	constructor(
 		message: string,
-		readonly status: 400 | 403 | 404 | 409 | 413 | 415 | 422 = 400,
+		readonly status: 400 | 403 | 404 | 409 | 413 | 415 | 422 | 429 = 400,
 		readonly fieldErrors?: Record<string, string>
 	) {
 		super(message);

@@ -7,7 +7,7 @@ import { safeNext } from '$lib/server/auth/redirects';
 
 const MESSAGES: Record<string, string> = {
 	credentials: 'That e-mail and password do not match an active account. Check both and try again.',
-	locked: 'Too many failed sign-ins for this account or from this device. Wait 15 minutes, or ask an admin to reset your password.'
+	locked: 'Too many failed sign-ins for this account or from this device. Wait a little (at most 15 minutes) and try again, or ask an admin to reset your password.'
 };
 
 export const load: PageServerLoad = async ({ locals, url }) => {

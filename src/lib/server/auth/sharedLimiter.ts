@@ -31,11 +31,14 @@ export class SharedLimiter {
 		return this.read(this.key(k), Date.now());
 	}
 
-	/** Adds points in the current window (a fresh window when the last one ended) and returns the count. */
-	async penalty(k: string, points = 1): Promise<RateLimiterRes> {
+	/**
+	 * Adds points in the current window (a fresh window when the last one ended) and returns the count.
+	 * `durationSeconds` sets the length of a window this call opens (default: the limiter's own).
+	 */
+	async penalty(k: string, points = 1, durationSeconds = this.opts.duration): Promise<RateLimiterRes> {
 		const now = Date.now();
 		const key = this.key(k);
-		const expire = now + this.opts.duration * 1000;
+		const expire = now + durationSeconds * 1000;
 		await db().query(
 			`INSERT INTO rate_limits (k, points, expire_ms) VALUES (?, ?, ?)
 			 ON DUPLICATE KEY UPDATE points = IF(expire_ms <= ?, VALUES(points), points + VALUES(points)),
@@ -43,7 +46,7 @@ export class SharedLimiter {
 			{ replacements: [key, points, expire, now, now] }
 		);
 		if (++writes % SWEEP_EVERY === 0) void db().query('DELETE FROM rate_limits WHERE expire_ms <= ?', { replacements: [now] }).catch(() => undefined);
-		return (await this.read(key, now)) ?? new RateLimiterRes(this.opts.points - points, this.opts.duration * 1000, points);
+		return (await this.read(key, now)) ?? new RateLimiterRes(this.opts.points - points, durationSeconds * 1000, points);
 	}
 
 	/** Counts one use; rejects with the RateLimiterRes once the window's points are used up. */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { User } from '../db/models';
 import { hashPassword, verifyPassword } from '../auth/password';
-import { recordSignInFailure, signInThrottle } from '../auth/throttle';
+import { beginSignInAttempt, forgiveSignInTries, waitWords } from '../auth/throttle';
 import type { SessionUser } from '../auth/guard';
 import { fieldMessages } from '../forms';
 import { forgetSessionUser, newUserSchema } from './users';
@@ -30,21 +30,18 @@ export const passwordChangeSchema = z
 	})
 	.refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two new passwords are not the same; type them again.' });
 
-/** Needs the current password; wrong guesses count towards the same lock-out as failed sign-ins. */
-/** Changes the password and ends every session signed in with the old one; returns the new session version for this device. */
+/** Needs the current password (its tries count with sign-in tries); changes the password and ends every session signed in with the old one; returns the new session version for this device. */
 export async function changePassword(user: SessionUser, input: unknown, clientAddress: string): Promise<number> {
 	const parsed = passwordChangeSchema.safeParse(input);
 	if (!parsed.success) refuse(parsed.error);
-	const throttle = await signInThrottle(user.email, clientAddress);
-	if (throttle.locked) {
-		throw new ServiceError(`Too many wrong passwords. Wait ${Math.ceil(throttle.retryAfterSeconds / 60)} minutes and try again.`, 403);
-	}
+	const throttle = await beginSignInAttempt(user.email, clientAddress);
+	if (throttle.locked) throw new ServiceError(`Too many wrong passwords. Wait ${waitWords(throttle.retryAfterSeconds)} and try again.`, 403);
 	const row = await User.findByPk(user.id);
 	if (!row) throw new ServiceError('Your account no longer exists.', 404);
 	if (!(await verifyPassword(parsed.data.current, row.passwordHash))) {
-		await recordSignInFailure(user.email, clientAddress);
 		throw new ServiceError('That is not your current password.', 400, { current: 'That is not your current password.' });
 	}
+	await forgiveSignInTries(user.email, clientAddress);
 	const sessionVersion = row.sessionVersion + 1;
 	await row.update({ passwordHash: await hashPassword(parsed.data.password), sessionVersion });
 	forgetSessionUser(user.id);

@@ -1,6 +1,10 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
+import { RateLimiterRes } from 'rate-limiter-flexible';
 import { AccountToken, type TokenKind } from '../db/models';
+import { SharedLimiter } from '../auth/sharedLimiter';
+import { waitWords } from '../auth/throttle';
+import { ServiceError } from '../errors';
 
 const TOKEN_BYTES = 32;
 const TOKEN_PATTERN = /^[A-Za-z0-9_-]{43}$/;
@@ -44,4 +48,19 @@ export async function revokeOpenTokens(
 		{ where: { kind, ...who, usedAt: null, revokedAt: null, expiresAt: { [Op.gt]: now } }, transaction }
 	);
 	return count;
+}
+
+// Choosing a password through a link hashes it (deliberately slow), so posts to link pages are
+// counted per client address, whatever the token.
+const LINK_POSTS_PER_WINDOW = 20;
+const linkPosts = new SharedLimiter({ keyPrefix: 'link-post', points: LINK_POSTS_PER_WINDOW, duration: 15 * 60 });
+
+/** Counts one post to a reset or invitation link from this address; refuses with 429 past the limit. */
+export async function countLinkPost(clientAddress: string): Promise<void> {
+	try {
+		await linkPosts.consume(clientAddress);
+	} catch (err) {
+		if (!(err instanceof RateLimiterRes)) throw err;
+		throw new ServiceError(`Too many tries from this device. Wait ${waitWords(Math.max(1, Math.ceil(err.msBeforeNext / 1000)))} and try again.`, 429);
+	}
 }

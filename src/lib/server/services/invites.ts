@@ -110,6 +110,8 @@ export const INVITE_UNUSABLE = 'This invitation link has expired, was replaced b
 export async function acceptInvite(token: string, input: unknown, now = new Date()): Promise<{ email: string; userId: number }> {
 	const parsed = acceptInviteSchema.safeParse(input);
 	if (!parsed.success) refuse(parsed.error);
+	// A dead link is refused before the slow password hash, so made-up tokens cost next to nothing.
+	if (!(await usableToken('invite', token, now))) throw new ServiceError(INVITE_UNUSABLE, 404);
 	const passwordHash = await hashPassword(parsed.data.password);
 	return db().transaction(async (transaction) => {
 		// The row lock makes two tabs racing on one link end with one account and one refusal.

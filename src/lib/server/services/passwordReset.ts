@@ -77,6 +77,8 @@ export async function resetPassword(token: string, input: unknown, now = new Dat
 		const fields = fieldMessages(parsed.error);
 		throw new ServiceError(Object.values(fields)[0] ?? 'Check the form.', 400, fields);
 	}
+	// A dead link is refused before the slow password hash, so made-up tokens cost next to nothing.
+	if (!(await usableToken('reset', token, now))) throw new ServiceError(RESET_UNUSABLE, 404);
 	const passwordHash = await hashPassword(parsed.data.password);
 	const { email, userId } = await db().transaction(async (transaction) => {
 		const row = await usableToken('reset', token, now, { transaction, lock: true });

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { db } from '../db';
 import { ROLES, User, type Role } from '../db/models';
 import { hashPassword, MIN_PASSWORD_LENGTH, verifyPassword } from '../auth/password';
-import { clearSignInFailures, recordSignInFailure, signInThrottle } from '../auth/throttle';
+import { beginSignInAttempt, forgiveSignInTries } from '../auth/throttle';
 import type { SessionUser } from '../auth/guard';
 import { recordAudit } from './audit';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
@@ -115,14 +115,11 @@ export async function authenticate(emailInput: unknown, password: unknown, addre
 	if (!email.success || typeof password !== 'string' || password.length === 0 || password.length > 200) {
 		return { ok: false, reason: 'invalid' };
 	}
-	const throttle = await signInThrottle(email.data, address);
+	const throttle = await beginSignInAttempt(email.data, address);
 	if (throttle.locked) return { ok: false, reason: 'locked', retryAfterSeconds: throttle.retryAfterSeconds };
 	const user = await User.findOne({ where: { email: email.data } });
 	const matches = await verifyPassword(password, user?.passwordHash ?? null);
-	if (!user || !matches || user.status !== 'active') {
-		await recordSignInFailure(email.data, address);
-		return { ok: false, reason: 'invalid' };
-	}
-	await clearSignInFailures(email.data);
+	if (!user || !matches || user.status !== 'active') return { ok: false, reason: 'invalid' };
+	await forgiveSignInTries(email.data, address);
 	return { ok: true, user };
 }

@@ -1,6 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { acceptInvite, invitationFor } from '$lib/server/services/invites';
+import { countLinkPost } from '$lib/server/services/accountTokens';
 import { ServiceError } from '$lib/server/errors';
 
 // Open without signing in: the token in the address is the proof.
@@ -10,10 +11,11 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 };
 
 export const actions: Actions = {
-	default: async ({ params, request }) => {
+	default: async ({ params, request, getClientAddress }) => {
 		const form = Object.fromEntries(await request.formData());
 		const values = { name: String(form.name ?? '') };
 		try {
+			await countLinkPost(getClientAddress());
 			const { email } = await acceptInvite(params.token, form);
 			return { accepted: email };
 		} catch (err) {
