@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { Op } from 'sequelize';
 import { db } from '../db';
 import { Confirmation, User, Vehicle } from '../db/models';
 import { canonicalJson, FIELD_INFO, type VehicleContent } from '../../domain/content/schema';
@@ -133,7 +134,11 @@ export async function confirmPage(vehicleId: number, input: unknown, user: Sessi
 	return result;
 }
 
-/** A measurement (or the page as a whole, with no field) flagged as wrong, with a note. */
+/** Flags one person may raise on one page in a day, so the flag list stays something a moderator can read. */
+export const FLAGS_PER_PAGE_PER_DAY = 10;
+const FLAG_WINDOW_MS = 24 * 60 * 60 * 1000;
+
+/** A measurement (or the page as a whole, with no field) flagged as wrong, with a note; once per field and revision. */
 export async function flagField(vehicleId: number, input: unknown, user: SessionUser): Promise<{ id: number }> {
 	requireInstaller(user);
 	const parsed = flagSchema.safeParse(input ?? {});
@@ -155,7 +160,22 @@ export async function flagField(vehicleId: number, input: unknown, user: Session
 			throw new ServiceError(problem, 400, { fieldPath: problem });
 		}
 	}
-	const row = await Confirmation.create({ vehicleId, revisionId: revision.id, userId: user.id, kind: 'flag', fieldPath, note });
+	const row = await db().transaction(async (transaction) => {
+		// The page row is locked so two flags sent at once are counted one after the other.
+		await Vehicle.findByPk(vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
+		const mine = { vehicleId, userId: user.id, kind: 'flag' as const };
+		const already = await Confirmation.count({ where: { ...mine, revisionId: revision.id, fieldPath }, transaction });
+		if (already > 0) {
+			const message = 'You already flagged this on the current revision; a moderator will see it. Add to the page notes if there is more to say.';
+			throw new ServiceError(message, 409, { fieldPath: message });
+		}
+		const since = new Date(Date.now() - FLAG_WINDOW_MS);
+		const recent = await Confirmation.count({ where: { ...mine, createdAt: { [Op.gte]: since } }, transaction });
+		if (recent >= FLAGS_PER_PAGE_PER_DAY) {
+			throw new ServiceError(`You have flagged this page ${FLAGS_PER_PAGE_PER_DAY} times in the last day; a moderator will go through those first.`, 429);
+		}
+		return Confirmation.create({ ...mine, revisionId: revision.id, fieldPath, note }, { transaction });
+	});
 	summaries.clear();
 	return { id: Number(row.id) };
 }

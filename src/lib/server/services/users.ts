@@ -16,7 +16,13 @@ export const emailSchema = z
 
 export const newUserSchema = z.object({
 	email: emailSchema,
-	name: z.string().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.'),
+	// One line of text: a name lands in mail headers and subjects, where a line break would start a new header.
+	name: z
+		.string()
+		.trim()
+		.min(1, 'Enter a name.')
+		.max(120, 'Keep the name under 120 characters.')
+		.regex(/^[^\p{Cc}\p{Zl}\p{Zp}]*$/u, 'A name is one line of text, without line breaks or control characters.'),
 	password: z
 		.string()
 		.min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters for the password.`)
