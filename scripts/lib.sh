@@ -51,9 +51,10 @@ wait_for_http() {
 	return 1
 }
 
-# The first port from $1 upwards that nothing listens on (a leftover server must not break a run).
+# A port nothing listens on, at or a little above $1 (a leftover server must not break a run); the
+# random start keeps two test runs on one machine from picking the same one.
 free_port() {
-	local port="$1"
+	local port=$(($1 + RANDOM % 200))
 	while (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; do port=$((port + 1)); done
 	echo "$port"
 }
