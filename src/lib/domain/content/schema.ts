@@ -140,7 +140,7 @@ function requiredText(label: string, max = 80, show: Show = {}) {
 
 const NOTES_MAX = 20_000;
 
-function notes(label: string) {
+export function notes(label: string) {
 	return leaf(
 		{ label, kind: 'markdown' },
 		z
