@@ -35,5 +35,4 @@ export const textListGrid = TEXT_LISTS;
  * A group of the editor's draft. Each value is text, a list of text or a nested group, as the
  * field's kind says; the inputs bind to them by key, so the type is left open here.
  */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export type DraftGroup = Record<string, any>;

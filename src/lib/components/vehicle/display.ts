@@ -1,6 +1,6 @@
 import { formatFieldValue } from '../../domain/content/fieldDiff';
 import { SECTION_KEYS, SECTION_NAMES, VEHICLE_FIELDS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
-import type { FieldTree } from '../../domain/content/fieldTree';
+import { fieldName, type FieldTree } from '../../domain/content/fieldTree';
 import { formatLength, formatMetres, type UnitSystem } from '../../domain/units';
 
 /** "95 mm" → { value: "95", unit: "mm" }; null when not measured, for a figure card's big number. */
@@ -40,8 +40,7 @@ export function otherFacts(pattern: string, values: object, shows: readonly stri
 	const facts: Fact[] = [];
 	for (const child of group?.children ?? []) {
 		if (child.type !== 'field' || child.info.kind === 'markdown' || shows.includes(child.key) || !filled(record[child.key])) continue;
-		const label = child.info.label.charAt(0).toUpperCase() + child.info.label.slice(1);
-		facts.push({ label, value: formatFieldValue(child.pattern, record[child.key], units, fields) });
+		facts.push({ label: fieldName(child.info), value: formatFieldValue(child.pattern, record[child.key], units, fields) });
 	}
 	return facts;
 }

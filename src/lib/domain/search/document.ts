@@ -1,4 +1,4 @@
-import type { FieldNode, FieldTree, LeafNode } from '../content/fieldTree';
+import { fieldName, type FieldNode, type FieldTree, type LeafNode } from '../content/fieldTree';
 import { BODY_STYLE_NAMES, VEHICLE_FIELDS, type Identity, type SectionKey, type VehicleContent } from '../content/schema';
 import { vehicleTitle } from '../slug';
 import { plainText, searchWords } from './words';
@@ -12,8 +12,6 @@ export type SearchSection = { key: SectionKey; text: string };
 type Part = string | readonly [label: string, value: string | null];
 type Markdown = { markdown: string };
 type Parts = (Part | Markdown)[];
-
-const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 const UNIT_OF: Partial<Record<string, string>> = { mm: 'mm', m: 'm', ohm: 'Ω', amp: 'A' };
 
@@ -42,7 +40,7 @@ function leafParts(leaf: LeafNode, value: unknown, out: Parts): void {
 	if (kind === 'markdown') out.push({ markdown: typeof value === 'string' ? value : '' });
 	else if (kind === 'textList') out.push(...(Array.isArray(value) ? value.map(String) : []));
 	else if (kind === 'text') out.push(typeof value === 'string' ? value : '');
-	else if (kind === 'flag' && value === true) out.push(capital(leaf.info.label));
+	else if (kind === 'flag' && value === true) out.push(fieldName(leaf.info));
 }
 
 function nodeParts(node: FieldNode, value: unknown, out: Parts): void {
