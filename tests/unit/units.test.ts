@@ -10,7 +10,9 @@ import {
 	LengthInputError,
 	mmToIn,
 	mToFt,
-	parseLength
+	parseLength,
+	readAmps,
+	readOhms
 } from '../../src/lib/domain/units';
 
 // Reference conversions: mathjs units (international inch = 25.4 mm, foot = 0.3048 m).
@@ -158,5 +160,50 @@ describe('formatLength and formatMetres', () => {
 		expect(unit(4.5, 'm').toNumber('ft').toFixed(1)).toBe('14.8');
 		expect(formatMetres(4.5, 'imperial')).toBe('14.8 ft');
 		expect(formatMetres(5.2, 'metric', { decimals: 2 })).toBe('5.20 m');
+	});
+});
+
+describe('resistance input', () => {
+	it.each([
+		['680', 680],
+		['680 Ω', 680],
+		['2.2k', 2200],
+		['2.2 kΩ', 2200],
+		// IEC 60062 letter-and-digit code: the letter stands for the decimal point.
+		['4k7', 4700],
+		['2R2', 2.2],
+		['1M', 1_000_000],
+		['0', 0]
+	])('%s reads as %d Ω', (text, ohms) => {
+		expect(readOhms(text)).toBeCloseTo(ohms, 9);
+	});
+
+	it('explains a reading it cannot take', () => {
+		expect(() => readOhms('loud', 'Resistance')).toThrow(/Resistance: could not read "loud" as ohms/);
+	});
+
+	// IEC 60062 writes milli as a lower-case "m" and mega as "M"; a small "m" is refused with that
+	// explanation rather than read as a number.
+	it.each(['2.2m', '2.2 mΩ', '4m7', '1 mohm'])('refuses %s and says to use a capital M for megaohms', (text) => {
+		expect(() => readOhms(text, 'Vol +')).toThrow(/Vol \+: .*"m".*milli.*capital M.*2\.2M/);
+	});
+
+	it('reads 2.2M as 2.2 megaohms (IEC 60062 prefix M = 10^6)', () => {
+		expect(readOhms('2.2M')).toBeCloseTo(2_200_000, 6);
+		expect(readOhms('2M2')).toBeCloseTo(2_200_000, 6);
+	});
+});
+
+describe('fuse input', () => {
+	it.each([
+		['10', 10],
+		['7.5 A', 7.5],
+		['.5a', 0.5]
+	])('%s reads as %d A (the amp rating as printed on a blade fuse, from memory)', (text, amps) => {
+		expect(readAmps(text)).toBe(amps);
+	});
+
+	it('explains a reading it cannot take', () => {
+		expect(() => readAmps('ten', 'Fuse')).toThrow(/Fuse: could not read "ten" as amps/);
 	});
 });

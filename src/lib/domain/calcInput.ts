@@ -1,6 +1,5 @@
 import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, CHARGING_VOLTS, type AmpCurrentInput, type AmpClass, type PowerWireInput } from './power';
-import { readLength, readOhms } from './content/formData';
-import type { LengthUnit } from './units';
+import { readLength, readOhms, type LengthUnit } from './units';
 import type { ControlLine, ESeries } from './ladder';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per

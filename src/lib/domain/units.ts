@@ -127,3 +127,64 @@ export function formatMetres(
 		? `${fixed(m, opts.decimals ?? 1)} m`
 		: `${fixed(mToFt(m), opts.decimals ?? 1)} ft`;
 }
+
+// ---- Measures typed into forms ----
+
+/** The unit a length field is typed in: spaces in mm or in, cable runs in m or ft. */
+export function inputUnit(kind: 'mm' | 'm', unit: LengthUnit): string {
+	if (kind === 'mm') return unit;
+	return unit === 'mm' ? 'm' : 'ft';
+}
+
+const MM_PER_INPUT: Record<string, number> = { mm: 1, in: MM_PER_INCH, m: 1000, ft: 304.8 };
+// Enough digits that a tape reading survives: 0.1 mm, 0.01 in, 1 cm on a run.
+const DECIMALS: Record<string, number> = { mm: 1, in: 2, m: 2, ft: 2 };
+
+const trimmed = (value: number, decimals: number) => String(Number(value.toFixed(decimals)));
+
+/** A stored length (mm for spaces, m for runs) as form text in the form's unit. */
+export function lengthText(kind: 'mm' | 'm', stored: number | null, unit: LengthUnit): string {
+	if (stored === null || !Number.isFinite(stored)) return '';
+	const shown = inputUnit(kind, unit);
+	const mm = kind === 'mm' ? stored : stored * 1000;
+	return trimmed(mm / MM_PER_INPUT[shown], DECIMALS[shown]);
+}
+
+const HAS_UNIT = /[a-z"'″′“”‘’]/i;
+
+/** Typed text to a stored length: mm for spaces, m for runs. A bare number is in the form's unit. */
+export function readLength(kind: 'mm' | 'm', text: string, unit: LengthUnit): number {
+	// To the micrometre: drops float noise such as 3.5 in = 88.89999999999999 mm.
+	if (kind === 'mm') return Math.round(parseLength(text, unit) * 1000) / 1000;
+	const withUnit = HAS_UNIT.test(text) ? text : `${text.trim()} ${inputUnit('m', unit)}`;
+	return Math.round(parseLength(withUnit, 'mm') * 1000) / 1_000_000;
+}
+
+const OHMS = /^(\d+(?:\.\d+)?|\.\d+)\s*([kKmM])?\s*(?:Ω|ohms?|r)?$/i;
+// Resistor code letters standing in for the decimal point: 4k7 = 4.7 kΩ, 2R2 = 2.2 Ω (IEC 60062).
+const OHMS_CODE = /^(\d+)([kKmMRr])(\d+)$/;
+const PREFIX: Record<string, number> = { k: 1e3, K: 1e3, M: 1e6, R: 1, r: 1 };
+
+/** A typed resistance in ohms: 680, 2.2k, 4k7, 1M, 2R2. */
+export function readOhms(text: string, label = 'Resistance'): number {
+	const t = text.trim();
+	const m = OHMS_CODE.exec(t) ?? OHMS.exec(t);
+	if (!m) throw new Error(`${label}: could not read "${t}" as ohms; for example 680, 2.2k or 4k7.`);
+	const [, whole, prefix, fraction] = m;
+	// IEC 60062 writes milli as "m"; no button or resistor here is read in milliohms.
+	if (prefix === 'm') {
+		throw new Error(`${label}: "${t}" uses "m", which means milli (thousandths of an ohm); for megaohms type a capital M, for example 2.2M.`);
+	}
+	// The code form (three groups) puts its letter where the decimal point goes.
+	const value = Number(m.length === 4 ? `${whole}.${fraction}` : whole);
+	return value * (prefix ? PREFIX[prefix] : 1);
+}
+
+const AMPS = /^(\d+(?:\.\d+)?|\.\d+)\s*a?$/i;
+
+/** A typed fuse rating in amps: 10, 7.5 A. */
+export function readAmps(text: string, label = 'Fuse'): number {
+	const m = AMPS.exec(text.trim());
+	if (m) return Number(m[1]);
+	throw new Error(`${label}: could not read "${text.trim()}" as amps; for example 10 or 7.5 A.`);
+}

@@ -1,5 +1,6 @@
 import { formatFieldValue } from '../../domain/content/fieldDiff';
-import { SECTION_KEYS, SECTION_NAMES, type SectionKey, type VehicleContent } from '../../domain/content/schema';
+import { SECTION_KEYS, SECTION_NAMES, VEHICLE_FIELDS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
+import { fieldName, type FieldTree } from '../../domain/content/fieldTree';
 import { formatLength, formatMetres, type UnitSystem } from '../../domain/units';
 
 /** "95 mm" → { value: "95", unit: "mm" }; null when not measured, for a figure card's big number. */
@@ -23,6 +24,26 @@ export const shown = (pattern: string, value: unknown, units: UnitSystem) => for
 
 const filled = (v: unknown): boolean =>
 	Array.isArray(v) ? v.length > 0 : typeof v === 'string' ? v.trim() !== '' : v !== null && v !== undefined && v !== false;
+
+export type Fact = { label: string; value: string };
+
+/**
+ * The filled-in fields of a section or entry ("seats", "seats.spaces[]") that its reading
+ * component does not show in a place of its own (`shows`), labelled from the field tree. A field
+ * added to the schema appears here until a component gives it a special place. Notes (Markdown)
+ * are rendered with the section's notes, and lists by their component.
+ */
+export function otherFacts(pattern: string, values: object, shows: readonly string[], units: UnitSystem, fields: FieldTree = VEHICLE_FIELDS): Fact[] {
+	const node = fields.nodes.get(pattern.replace(/\[\]$/, ''));
+	const group = node?.type === 'list' ? node.entry : node?.type === 'group' ? node : null;
+	const record = values as Record<string, unknown>;
+	const facts: Fact[] = [];
+	for (const child of group?.children ?? []) {
+		if (child.type !== 'field' || child.info.kind === 'markdown' || shows.includes(child.key) || !filled(record[child.key])) continue;
+		facts.push({ label: fieldName(child.info), value: formatFieldValue(child.pattern, record[child.key], units, fields) });
+	}
+	return facts;
+}
 
 /** A section with nothing recorded yet besides its defaults. */
 export function sectionIsEmpty(content: VehicleContent, key: SectionKey): boolean {

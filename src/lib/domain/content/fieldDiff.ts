@@ -1,6 +1,7 @@
 import { diffWordsWithSpace } from 'diff';
 import { formatLength, formatMetres, type UnitSystem } from '../units';
-import { canonicalJson, FIELD_INFO, SECTION_KEYS, SECTION_NAMES, SEAT_NAMES, type FieldInfo, type SectionKey, type VehicleContent } from './schema';
+import type { FieldTree } from './fieldTree';
+import { canonicalJson, FIELD_INFO, SECTION_KEYS, SECTION_NAMES, SEAT_NAMES, VEHICLE_FIELDS, type FieldInfo, type SectionKey, type VehicleContent } from './schema';
 
 // Paths name a field the way a person finds it on the page: list entries by id, not
 // position, so "seats.spaces[k3f9].heightMm" still means the same seat after a reorder.
@@ -137,8 +138,8 @@ function formatOhms(ohm: number): string {
 }
 
 /** A stored value shown in the reader's units. */
-export function formatFieldValue(pattern: string, value: unknown, units: UnitSystem = 'metric'): string {
-	const info = FIELD_INFO[pattern];
+export function formatFieldValue(pattern: string, value: unknown, units: UnitSystem = 'metric', fields: FieldTree = VEHICLE_FIELDS): string {
+	const info = fields.info[pattern];
 	if (!info) return value == null ? NOT_RECORDED : String(value);
 	switch (info.kind) {
 		case 'mm':
@@ -165,18 +166,19 @@ export function formatFieldValue(pattern: string, value: unknown, units: UnitSys
 }
 
 /** One line of an added or removed entry: its filled-in fields. */
-function summarizeEntry(listPattern: string, entry: Entry, units: UnitSystem): string {
+function summarizeEntry(listPattern: string, entry: Entry, units: UnitSystem, fields: FieldTree): string {
+	const infoOf = fields.info;
 	const parts: string[] = [];
 	for (const [key, value] of Object.entries(entry)) {
 		if (key === 'id' || key === 'itemId') continue;
 		const pattern = `${listPattern}[].${key}`;
-		if (Array.isArray(value) && !FIELD_INFO[pattern]) {
+		if (Array.isArray(value) && !infoOf[pattern]) {
 			parts.push(`${value.length} ${value.length === 1 ? 'entry' : 'entries'}`);
 			continue;
 		}
-		const info = FIELD_INFO[pattern];
+		const info = infoOf[pattern];
 		if (!info || value === '' || value === null || (Array.isArray(value) && value.length === 0)) continue;
-		parts.push(`${info.label}: ${formatFieldValue(pattern, value, units)}`);
+		parts.push(`${info.label}: ${formatFieldValue(pattern, value, units, fields)}`);
 	}
 	return parts.join('; ') || 'no details yet';
 }
@@ -195,12 +197,15 @@ export interface FieldChange {
 
 export interface FieldDiffOptions {
 	units?: UnitSystem;
+	/** The page's field tree; the vehicle page's unless a test brings its own. */
+	fields?: FieldTree;
 }
 
 const same = (a: unknown, b: unknown) => canonicalJson(a) === canonicalJson(b);
 
 interface Walk {
 	units: UnitSystem;
+	fields: FieldTree;
 	out: FieldChange[];
 }
 
@@ -214,7 +219,7 @@ function walk(
 	w: Walk
 ): void {
 	if (same(before, after)) return;
-	const info = FIELD_INFO[pattern];
+	const info = w.fields.info[pattern];
 	if (info) {
 		// Section notes are long Markdown; notesChanges shows them word by word.
 		if (info.kind === 'markdown') return;
@@ -223,8 +228,8 @@ function walk(
 			section,
 			label: fieldLabel(info, noun),
 			kind: 'changed',
-			before: formatFieldValue(pattern, before, w.units),
-			after: formatFieldValue(pattern, after, w.units)
+			before: formatFieldValue(pattern, before, w.units, w.fields),
+			after: formatFieldValue(pattern, after, w.units, w.fields)
 		});
 		return;
 	}
@@ -275,7 +280,7 @@ function walkEntries(
 				label: noun,
 				kind: 'added',
 				before: null,
-				after: summarizeEntry(pattern, entry, w.units)
+				after: summarizeEntry(pattern, entry, w.units, w.fields)
 			});
 			continue;
 		}
@@ -291,7 +296,7 @@ function walkEntries(
 			section: isPhotos ? entrySection(old, section) : section,
 			label: entryNoun(pattern, old, parentNoun),
 			kind: 'removed',
-			before: summarizeEntry(pattern, old, w.units),
+			before: summarizeEntry(pattern, old, w.units, w.fields),
 			after: null
 		});
 	}
@@ -299,10 +304,10 @@ function walkEntries(
 
 /** Every structured field that differs, in page order, labelled in the trade's words. */
 export function fieldChanges(before: VehicleContent, after: VehicleContent, options: FieldDiffOptions = {}): FieldChange[] {
-	const w: Walk = { units: options.units ?? 'metric', out: [] };
+	const w: Walk = { units: options.units ?? 'metric', fields: options.fields ?? VEHICLE_FIELDS, out: [] };
 	const b: Record<string, unknown> = before;
 	const a: Record<string, unknown> = after;
-	for (const key of SECTION_KEYS) walk(b[key], a[key], [key], key, null, key, w);
+	for (const { key } of w.fields.sections) walk(b[key], a[key], [key], key, null, key as SectionKey, w);
 	walkEntries(asEntries(b.photos), asEntries(a.photos), ['photos'], 'photos', null, 'identity', w);
 	return w.out;
 }

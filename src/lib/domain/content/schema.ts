@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { fieldRegistry, fieldTree, type EditHint, type FieldInfo, type ListInfo, type SearchHint } from './fieldTree';
 
 // One vehicle page as stored in a revision. Units are metric: mm for spaces and
 // parts, m for cable runs, Ω for resistance and impedance, A for fuses.
@@ -95,46 +96,25 @@ export const FEED_KIND_NAMES: Readonly<Record<FeedKind, string>> = {
 	accessory: 'Accessory (ACC)'
 };
 
-/** How a stored value is shown and merged. */
-export type FieldKind =
-	| 'text'
-	| 'markdown'
-	| 'textList'
-	| 'mm'
-	| 'm'
-	| 'ohm'
-	| 'amp'
-	| 'year'
-	| 'flag'
-	| 'choice'
-	| 'section';
-
-export interface FieldInfo {
-	/** Section-level fields carry a full label, item fields a short one ("height"). */
-	label: string;
-	kind: FieldKind;
-	choices?: Readonly<Record<string, string>>;
-}
-
-/**
- * Every leaf field of a page, keyed by its pattern: "seats.spaces[].heightMm".
- * Filled as the schema below is built, so a label lives beside its rule.
- */
-const fieldInfo: Record<string, FieldInfo> = {};
-export const FIELD_INFO: Readonly<Record<string, FieldInfo>> = fieldInfo;
+export type { FieldInfo, FieldKind } from './fieldTree';
 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
-function leaf<T>(pattern: string, info: FieldInfo, schema: T): T {
-	fieldInfo[pattern] = info;
+/** Hints for the editor and the search document, kept beside the rule. */
+interface Show {
+	edit?: EditHint;
+	search?: SearchHint;
+}
+
+function leaf<T extends z.ZodType>(info: FieldInfo, schema: T): T {
+	fieldRegistry.add(schema as z.ZodType, info);
 	return schema;
 }
 
-function text(pattern: string, label: string, max = 300) {
+export function text(label: string, max = 300, show: Show = {}) {
 	const L = capital(label);
 	return leaf(
-		pattern,
-		{ label, kind: 'text' },
+		{ label, kind: 'text', ...show },
 		z
 			.string({ error: `${L} must be text.` })
 			.trim()
@@ -143,11 +123,13 @@ function text(pattern: string, label: string, max = 300) {
 	);
 }
 
-function requiredText(pattern: string, label: string, max = 80) {
+/** Free text a person writes in several lines: obstacles, things to avoid. */
+const longText = (label: string, max: number, show: Show = {}) => text(label, max, { ...show, edit: { multiline: true, ...show.edit } });
+
+function requiredText(label: string, max = 80, show: Show = {}) {
 	const L = capital(label);
 	return leaf(
-		pattern,
-		{ label, kind: 'text' },
+		{ label, kind: 'text', ...show },
 		z
 			.string({ error: (iss) => (iss.input === undefined ? `${L} is required.` : `${L} must be text.`) })
 			.trim()
@@ -158,9 +140,8 @@ function requiredText(pattern: string, label: string, max = 80) {
 
 const NOTES_MAX = 20_000;
 
-function notes(pattern: string, label: string) {
+export function notes(label: string) {
 	return leaf(
-		pattern,
 		{ label, kind: 'markdown' },
 		z
 			.string({ error: `${capital(label)} must be text (Markdown).` })
@@ -169,11 +150,11 @@ function notes(pattern: string, label: string) {
 	);
 }
 
-function textList(pattern: string, label: string, itemLabel: string, maxItems = 50, maxLength = 300) {
+function textList(label: string, itemLabel: string, show: Show & { maxItems?: number; maxLength?: number } = {}) {
+	const { maxItems = 50, maxLength = 300, ...hints } = show;
 	const L = capital(itemLabel);
 	return leaf(
-		pattern,
-		{ label, kind: 'textList' },
+		{ label, kind: 'textList', ...hints },
 		z
 			.array(
 				z
@@ -199,7 +180,7 @@ interface MeasureRule {
 
 const MM: MeasureRule = { unit: 'mm', min: 0, inclusive: false, max: 3000, missing: 'leave it empty if not measured' };
 
-function measure(pattern: string, label: string, kind: 'mm' | 'm' | 'ohm' | 'amp', rule: MeasureRule) {
+function measure(label: string, kind: 'mm' | 'm' | 'ohm' | 'amp', rule: MeasureRule, show: Show = {}) {
 	const L = capital(label);
 	const above = rule.inclusive ? `at least ${rule.min} ${rule.unit}` : `more than ${rule.min} ${rule.unit}`;
 	const n = z.number({ error: `${L} must be a number in ${rule.unit}, or ${rule.missing}.` });
@@ -207,15 +188,15 @@ function measure(pattern: string, label: string, kind: 'mm' | 'm' | 'ohm' | 'amp
 		rule.max,
 		{ error: `${L} must be at most ${rule.max} ${rule.unit}; check the unit.` }
 	);
-	return leaf(pattern, { label, kind }, bounded.nullable().default(null));
+	return leaf({ label, kind, ...show }, bounded.nullable().default(null));
 }
 
-const mm = (pattern: string, label: string) => measure(pattern, label, 'mm', MM);
+/** A space or part dimension, stored in mm and typed in mm or inches. */
+export const mm = (label: string, show: Show = {}, max = MM.max) => measure(label, 'mm', { ...MM, max }, show);
 
-function year(pattern: string, label: string) {
+function year(label: string) {
 	const L = capital(label);
 	return leaf(
-		pattern,
 		{ label, kind: 'year' },
 		z
 			.number({ error: (iss) => (iss.input === undefined ? `${L} is required.` : `${L} must be a year, for example 2012.`) })
@@ -225,19 +206,18 @@ function year(pattern: string, label: string) {
 	);
 }
 
-function flag(pattern: string, label: string) {
-	return leaf(pattern, { label, kind: 'flag' }, z.boolean({ error: `${capital(label)} must be yes or no.` }));
+function flag(label: string, show: Show = {}) {
+	return leaf({ label, kind: 'flag', ...show }, z.boolean({ error: `${capital(label)} must be yes or no.` }));
 }
 
 function choice<const T extends readonly [string, ...string[]]>(
-	pattern: string,
 	label: string,
 	values: T,
-	names: Readonly<Record<T[number], string>>
+	names: Readonly<Record<T[number], string>>,
+	show: Show = {}
 ) {
 	return leaf(
-		pattern,
-		{ label, kind: 'choice', choices: names },
+		{ label, kind: 'choice', choices: names, ...show },
 		z.enum(values, { error: `${capital(label)} must be one of: ${values.map((v) => names[v as T[number]]).join(', ')}.` })
 	);
 }
@@ -248,20 +228,21 @@ const itemId = z
 	.regex(ITEM_ID, { error: 'An entry id is 1 to 64 letters, digits, "-" or "_".' });
 
 /** A list of entries, each with its own id, so edits can be merged entry by entry. */
-function entries<T extends z.ZodType<{ id: string }>>(item: T, what: string, max = 100) {
+export function entries<T extends z.ZodType<{ id: string }>>(item: T, what: string, list: Omit<ListInfo, 'kind'>, max = 100) {
 	return z
 		.array(item, { error: `${capital(what)} must be a list.` })
 		.max(max, { error: `${capital(what)}: at most ${max} entries.` })
-		.superRefine((list, ctx) => {
+		.superRefine((entries, ctx) => {
 			const seen = new Set<string>();
-			list.forEach((entry, i) => {
+			entries.forEach((entry, i) => {
 				if (seen.has(entry.id)) {
 					ctx.addIssue({ code: 'custom', path: [i, 'id'], message: `Two ${what} share the id "${entry.id}".` });
 				}
 				seen.add(entry.id);
 			});
 		})
-		.default([]);
+		.default([])
+		.register(fieldRegistry, { kind: 'list', ...list });
 }
 
 function section<T extends z.ZodRawShape>(name: string, shape: T) {
@@ -275,12 +256,24 @@ function section<T extends z.ZodRawShape>(name: string, shape: T) {
 	});
 }
 
+/** One section of the page, named for the editor and the history. */
+export function pageSection<T extends z.ZodRawShape>(key: SectionKey, shape: T, hint?: string) {
+	const label = SECTION_NAMES[key];
+	const schema = section(label, shape);
+	fieldRegistry.add(schema, { kind: 'page-section', label, hint });
+	return schema;
+}
+
 // A VIN position is 0-9 or A-Z without I, O, Q (ISO 3779); * and ? are wildcards.
 const VIN_PATTERN = /^[A-HJ-NPR-Z0-9*?]{1,17}$/;
 
 const vinPatterns = leaf(
-	'identity.vinPatterns',
-	{ label: 'VIN patterns', kind: 'textList' },
+	{
+		label: 'VIN patterns',
+		kind: 'textList',
+		edit: { label: 'VIN patterns (* or ? for any character)', noun: 'VIN pattern' },
+		search: false
+	},
 	z
 		.array(
 			z
@@ -296,16 +289,17 @@ const vinPatterns = leaf(
 		.default([])
 );
 
+// Make, model and aliases are indexed as identity words, so the search document leaves them out.
 export const identitySchema = section('Identity', {
-	make: requiredText('identity.make', 'make'),
-	model: requiredText('identity.model', 'model'),
-	yearFrom: year('identity.yearFrom', 'first model year'),
-	yearTo: year('identity.yearTo', 'last model year'),
-	body: choice('identity.body', 'body style', BODY_STYLES, BODY_STYLE_NAMES),
-	market: text('identity.market', 'market / region', 200),
-	aliases: textList('identity.aliases', 'also sold as', 'an alias', 30, 120),
+	make: requiredText('make', 80, { search: false }),
+	model: requiredText('model', 80, { search: false }),
+	yearFrom: year('first model year'),
+	yearTo: year('last model year'),
+	body: choice('body style', BODY_STYLES, BODY_STYLE_NAMES, { edit: { label: 'Body' } }),
+	market: text('market / region', 200),
+	aliases: textList('also sold as', 'an alias', { maxItems: 30, maxLength: 120, edit: { noun: 'name' }, search: false }),
 	vinPatterns,
-	notes: notes('identity.notes', 'identity notes')
+	notes: notes('identity notes')
 }).superRefine((identity, ctx) => {
 	if (identity.yearTo < identity.yearFrom) {
 		ctx.addIssue({
@@ -318,8 +312,8 @@ export const identitySchema = section('Identity', {
 
 const powerRun = section('A power run', {
 	id: itemId,
-	to: text('power.runs[].to', 'run to', 120),
-	lengthM: measure('power.runs[].lengthM', 'length', 'm', {
+	to: text('run to', 120, { edit: { placeholder: 'e.g. boot floor, under passenger seat' }, search: { label: 'Run to' } }),
+	lengthM: measure('length', 'm', {
 		unit: 'm',
 		min: 0,
 		inclusive: false,
@@ -330,180 +324,209 @@ const powerRun = section('A power run', {
 
 const groundPoint = section('A ground point', {
 	id: itemId,
-	location: text('power.groundPoints[].location', 'location', 200),
-	notes: text('power.groundPoints[].notes', 'notes', 1000)
+	location: text('location', 200, { search: { label: 'Ground' } }),
+	notes: text('notes', 1000)
 });
 
-const powerSchema = section('Power & ground', {
-	batteryLocation: choice('power.batteryLocation', 'battery location', BATTERY_LOCATIONS, BATTERY_LOCATION_NAMES)
+const powerSchema = pageSection('power', {
+	batteryLocation: choice('battery location', BATTERY_LOCATIONS, BATTERY_LOCATION_NAMES, { search: { label: 'Battery', lowerCase: true } })
 		.nullable()
 		.default(null),
-	runs: entries(powerRun, 'power runs'),
-	groundPoints: entries(groundPoint, 'ground points'),
-	fuseHolderSpot: text('power.fuseHolderSpot', 'fuse holder spot', 300),
-	notes: notes('power.notes', 'power & ground notes')
+	fuseHolderSpot: text('fuse holder spot', 300, { edit: { label: 'Fuse holder spot near the battery' }, search: { label: 'Fuse holder' } }),
+	runs: entries(powerRun, 'power runs', { noun: 'power run', title: 'Cable runs from the battery' }),
+	groundPoints: entries(groundPoint, 'ground points', { noun: 'ground point', title: 'Chassis ground points' }),
+	notes: notes('power & ground notes')
 });
 
 const passage = section('A firewall passage', {
 	id: itemId,
-	location: text('firewall.passages[].location', 'location', 200),
-	kind: choice('firewall.passages[].kind', 'kind', PASSAGE_KINDS, PASSAGE_KIND_NAMES),
-	pushFrom: choice('firewall.passages[].pushFrom', 'easiest to push from', PUSH_SIDES, PUSH_SIDE_NAMES),
-	holeMm: measure('firewall.passages[].holeMm', 'hole size', 'mm', { ...MM, max: 100 }),
-	avoid: text('firewall.passages[].avoid', 'things to avoid', 1000),
-	tools: text('firewall.passages[].tools', 'tools that help', 500)
+	location: text('location', 200, { edit: { label: 'Where' }, search: false }),
+	holeMm: mm('hole size', { search: { label: 'Hole' } }, 100),
+	kind: choice('kind', PASSAGE_KINDS, PASSAGE_KIND_NAMES),
+	pushFrom: choice('easiest to push from', PUSH_SIDES, PUSH_SIDE_NAMES),
+	avoid: longText('things to avoid', 1000, { edit: { placeholder: 'Brake lines, looms…' }, search: { label: 'Avoid' } }),
+	tools: longText('tools that help', 500, { search: { label: 'Tools' } })
 });
 
-const firewallSchema = section('Firewall pass-through', {
-	passages: entries(passage, 'firewall passages'),
-	notes: notes('firewall.notes', 'firewall notes')
+const firewallSchema = pageSection('firewall', {
+	passages: entries(passage, 'firewall passages', {
+		noun: 'passage',
+		searchLine: (p) => `${PASSAGE_KIND_NAMES[p.kind as PassageKind] ?? ''}: ${p.location}`
+	}),
+	notes: notes('firewall notes')
 });
 
-const seatSpace = section('A seat space', {
+export const seatSpaceSchema = section('A seat space', {
 	id: itemId,
-	seat: choice('seats.spaces[].seat', 'seat', SEATS, SEAT_NAMES),
-	lengthMm: mm('seats.spaces[].lengthMm', 'length'),
-	widthMm: mm('seats.spaces[].widthMm', 'width'),
-	heightMm: mm('seats.spaces[].heightMm', 'height'),
-	obstacles: text('seats.spaces[].obstacles', 'obstacles', 1000),
-	boardNeeded: flag('seats.spaces[].boardNeeded', 'mounting board needed').default(false),
-	travelNotes: text('seats.spaces[].travelNotes', 'seat travel notes', 1000)
+	seat: choice('seat', SEATS, SEAT_NAMES, { edit: { span: 'col-span-2 sm:col-span-1' }, search: { label: 'Seat' } }),
+	lengthMm: mm('length'),
+	widthMm: mm('width'),
+	heightMm: mm('height'),
+	obstacles: longText('obstacles', 1000, { edit: { placeholder: 'Floor ridge, rail, duct…', row: 'grid gap-3 sm:grid-cols-2' } }),
+	travelNotes: longText('seat travel notes', 1000),
+	boardNeeded: flag('mounting board needed', { edit: { label: 'A mounting board or spacer is needed' } }).default(false)
 });
 
-const seatsSchema = section('Seat space', {
-	spaces: entries(seatSpace, 'seat spaces'),
-	notes: notes('seats.notes', 'seat space notes')
-});
+const seatsSchema = pageSection(
+	'seats',
+	{
+		spaces: entries(seatSpaceSchema, 'seat spaces', { noun: 'seat space', grid: 'grid grid-cols-2 gap-3 sm:grid-cols-4' }),
+		notes: notes('seat space notes')
+	},
+	'The usable box under each seat. Leave a size empty if it was not measured.'
+);
 
-const dashSchema = section('Dash & head unit', {
-	opening: choice('dash.opening', 'dash opening', DASH_OPENINGS, DASH_OPENING_NAMES).nullable().default(null),
-	depthMm: mm('dash.depthMm', 'usable chassis depth'),
-	kit: text('dash.kit', 'dash kit and trim', 300),
-	trimSteps: textList('dash.trimSteps', 'trim removal steps', 'a trim removal step'),
-	featuresKept: textList('dash.featuresKept', 'factory features to keep', 'a feature'),
-	notes: notes('dash.notes', 'dash notes')
+const dashSchema = pageSection('dash', {
+	opening: choice('dash opening', DASH_OPENINGS, DASH_OPENING_NAMES, { edit: { label: 'Opening' }, search: { label: 'Opening' } })
+		.nullable()
+		.default(null),
+	depthMm: mm('usable chassis depth'),
+	kit: text('dash kit and trim', 300, { edit: { label: 'Dash kit and trim needed', row: 'grid gap-4' }, search: { label: 'Kit' } }),
+	trimSteps: textList('trim removal steps', 'a trim removal step', { edit: { label: 'Trim removal steps, in order', noun: 'step', ordered: true } }),
+	featuresKept: textList('factory features to keep', 'a feature', { edit: { noun: 'feature' } }),
+	notes: notes('dash notes')
 });
 
 const wire = section('A wire', {
 	id: itemId,
-	function: text('harness.wires[].function', 'function', 120),
-	colour: text('harness.wires[].colour', 'colour', 80),
-	pin: text('harness.wires[].pin', 'pin', 40)
+	function: text('function', 120, { edit: { span: 'col-span-2 sm:col-span-1' }, search: false }),
+	colour: text('colour', 80, { edit: { label: 'Factory colour' }, search: false }),
+	pin: text('pin', 40, { search: { label: 'Pin' } })
 });
 
-const ohms = (pattern: string, label: string) =>
-	measure(pattern, label, 'ohm', { unit: 'Ω', min: 0, inclusive: true, max: 10_000_000, missing: 'leave it empty if not measured' });
+const ohms = (label: string, show: Show) =>
+	measure(label, 'ohm', { unit: 'Ω', min: 0, inclusive: true, max: 10_000_000, missing: 'leave it empty if not measured' }, show);
 
 const ladderButton = section('A steering-wheel button', {
 	id: itemId,
-	name: text('harness.ladder.lines[].buttons[].name', 'name', 80),
-	ohms: ohms('harness.ladder.lines[].buttons[].ohms', 'resistance')
+	name: text('name', 80, { edit: { label: 'Button', placeholder: 'e.g. Vol +' } }),
+	ohms: ohms('resistance', { edit: { placeholder: 'e.g. 680, 2.2k, 4k7' } })
 });
 
 const ladderLine = section('A steering-wheel control line', {
 	id: itemId,
-	name: text('harness.ladder.lines[].name', 'name', 80),
-	buttons: entries(ladderButton, 'buttons on this line', 30)
+	name: text('name', 80, { edit: { label: 'Line name', placeholder: 'e.g. SWC 1 (Key 1)' }, search: false }),
+	buttons: entries(ladderButton, 'buttons on this line', { noun: 'button', grid: 'grid grid-cols-2 gap-3', frame: 'border-l-4 border-copper-200 pl-3' }, 30)
 });
 
-const harnessSchema = section('Harness & integration', {
-	connectors: text('harness.connectors', 'connector notes', 1000),
-	wires: entries(wire, 'wires', 200),
-	factoryAmp: flag('harness.factoryAmp', 'factory amplifier').nullable().default(null),
-	reverseTrigger: text('harness.reverseTrigger', 'reverse trigger', 300),
-	illumination: text('harness.illumination', 'illumination', 300),
-	can: text('harness.can', 'CAN notes', 1000),
+const harnessSchema = pageSection('harness', {
+	factoryAmp: flag('factory amplifier', { search: false }).nullable().default(null),
+	reverseTrigger: text('reverse trigger', 300, { search: { label: 'Reverse trigger' } }),
+	illumination: text('illumination', 300, { search: { label: 'Illumination' } }),
+	connectors: longText('connector notes', 1000),
+	can: longText('CAN notes', 1000, { edit: { row: 'grid gap-4' } }),
+	wires: entries(wire, 'wires', { noun: 'wire', title: 'Wire table', grid: 'grid grid-cols-2 gap-3 sm:grid-cols-3', searchLine: (w) => `${w.function} ${w.colour}` }, 200),
 	ladder: section('The steering-wheel control ladder', {
-		lines: entries(ladderLine, 'control lines', 8)
+		lines: entries(ladderLine, 'control lines', { noun: 'control line', title: 'Steering-wheel control ladder', grid: 'grid gap-3' }, 8)
 	}).prefault({}),
-	notes: notes('harness.notes', 'harness notes')
+	notes: notes('harness notes')
 });
 
 const speakerLocation = section('A speaker location', {
 	id: itemId,
-	location: text('speakers.locations[].location', 'location', 120),
-	nominalSize: text('speakers.locations[].nominalSize', 'nominal size', 40),
-	cutoutMm: measure('speakers.locations[].cutoutMm', 'cut-out', 'mm', { ...MM, max: 500 }),
-	depthMm: measure('speakers.locations[].depthMm', 'mounting depth', 'mm', { ...MM, max: 300 }),
-	impedanceOhm: measure('speakers.locations[].impedanceOhm', 'impedance', 'ohm', {
-		unit: 'Ω',
-		min: 0,
-		inclusive: false,
-		max: 32,
-		missing: 'leave it empty if not known'
-	}),
-	grille: text('speakers.locations[].grille', 'grille notes', 500)
+	location: text('location', 120, { edit: { placeholder: 'e.g. front door' }, search: false }),
+	nominalSize: text('nominal size', 40, { edit: { placeholder: 'e.g. 6.5" or 165 mm' }, search: false }),
+	impedanceOhm: measure(
+		'impedance',
+		'ohm',
+		{ unit: 'Ω', min: 0, inclusive: false, max: 32, missing: 'leave it empty if not known' },
+		{ edit: { placeholder: 'e.g. 4' } }
+	),
+	cutoutMm: mm('cut-out', {}, 500),
+	depthMm: mm('mounting depth', {}, 300),
+	grille: text('grille notes', 500)
 });
 
-const speakersSchema = section('Speakers', {
-	locations: entries(speakerLocation, 'speaker locations'),
-	notes: notes('speakers.notes', 'speaker notes')
+const speakersSchema = pageSection('speakers', {
+	locations: entries(speakerLocation, 'speaker locations', {
+		noun: 'speaker location',
+		grid: 'grid grid-cols-2 gap-3 sm:grid-cols-3',
+		searchLine: (s) => `${s.location} ${s.nominalSize}`
+	}),
+	notes: notes('speaker notes')
 });
 
 const feed = section('An accessory feed', {
 	id: itemId,
-	name: text('camera.feeds[].name', 'name', 120),
-	kind: choice('camera.feeds[].kind', 'kind', FEED_KINDS, FEED_KIND_NAMES),
-	fuseA: measure('camera.feeds[].fuseA', 'fuse', 'amp', {
-		unit: 'A',
-		min: 0,
-		inclusive: false,
-		max: 400,
-		missing: 'leave it empty if not known'
+	name: text('name', 120, { edit: { label: 'Feed' }, search: false }),
+	kind: choice('kind', FEED_KINDS, FEED_KIND_NAMES),
+	fuseA: measure(
+		'fuse',
+		'amp',
+		{ unit: 'A', min: 0, inclusive: false, max: 400, missing: 'leave it empty if not known' },
+		{ edit: { placeholder: 'e.g. 10' } }
+	),
+	location: text('location', 200, { edit: { label: 'Where' }, search: false })
+});
+
+const cameraSchema = pageSection('camera', {
+	mounting: longText('camera mounting', 500, { search: { label: 'Camera' } }),
+	triggerSource: longText('camera trigger source', 300, { search: { label: 'Trigger' } }),
+	feeds: entries(feed, 'accessory feeds', {
+		noun: 'accessory feed',
+		title: 'Hard-wire feeds',
+		grid: 'grid grid-cols-2 gap-3 sm:grid-cols-4',
+		searchLine: (f) => `${f.name} (${(FEED_KIND_NAMES[f.kind as FeedKind] ?? '').toLowerCase()}) ${f.location}`
 	}),
-	location: text('camera.feeds[].location', 'location', 200)
+	notes: notes('camera notes')
 });
 
-const cameraSchema = section('Camera & accessories', {
-	mounting: text('camera.mounting', 'camera mounting', 500),
-	triggerSource: text('camera.triggerSource', 'camera trigger source', 300),
-	feeds: entries(feed, 'accessory feeds'),
-	notes: notes('camera.notes', 'camera notes')
-});
-
-const removalSchema = section('Removal & surprises', {
-	steps: textList('removal.steps', 'removal steps', 'a removal step'),
-	surprises: textList('removal.surprises', 'surprises', 'a surprise'),
-	notes: notes('removal.notes', 'removal notes')
+const removalSchema = pageSection('removal', {
+	steps: textList('removal steps', 'a removal step', { edit: { label: 'What comes out, in order', noun: 'step', ordered: true } }),
+	surprises: textList('surprises', 'a surprise', { edit: { noun: 'surprise' } }),
+	notes: notes('removal notes')
 });
 
 const photo = section('A photo', {
 	// A photo's sha256 (64 hex digits) or another stored photo id.
 	id: itemId,
 	section: leaf(
-		'photos[].section',
 		{ label: 'section', kind: 'section' },
 		z.enum(SECTION_KEYS, { error: `A photo belongs to one of: ${SECTION_KEYS.map((k) => SECTION_NAMES[k]).join(', ')}.` })
 	),
 	// The passage, seat space, speaker… the photo shows, when it shows one.
-	itemId: leaf('photos[].itemId', { label: 'shows entry', kind: 'text' }, itemId.nullable().default(null)),
-	caption: text('photos[].caption', 'caption', 300),
-	alt: text('photos[].alt', 'description for screen readers', 300)
+	itemId: leaf({ label: 'shows entry', kind: 'text' }, itemId.nullable().default(null)),
+	caption: text('caption', 300),
+	alt: text('description for screen readers', 300)
 });
 
-export const vehicleContentSchema = z.strictObject(
-	{
-		schemaVersion: z.literal(CONTENT_SCHEMA_VERSION, {
-			error: `This page uses a content version this app does not read (expected version ${CONTENT_SCHEMA_VERSION}).`
-		}),
-		identity: identitySchema,
-		power: powerSchema.prefault({}),
-		firewall: firewallSchema.prefault({}),
-		seats: seatsSchema.prefault({}),
-		dash: dashSchema.prefault({}),
-		harness: harnessSchema.prefault({}),
-		speakers: speakersSchema.prefault({}),
-		camera: cameraSchema.prefault({}),
-		removal: removalSchema.prefault({}),
-		photos: entries(photo, 'photos', 200)
-	},
-	{
-		error: (iss) =>
-			iss.code === 'unrecognized_keys'
-				? `The page has fields this version does not know: ${iss.keys.join(', ')}.`
-				: 'A vehicle page must be a JSON object.'
-	}
-);
+/** The rule of a whole page around its sections; a fixture page for tests is built the same way. */
+export function pageSchema<T extends z.ZodRawShape>(sections: T) {
+	return z.strictObject(
+		{
+			schemaVersion: z.literal(CONTENT_SCHEMA_VERSION, {
+				error: `This page uses a content version this app does not read (expected version ${CONTENT_SCHEMA_VERSION}).`
+			}),
+			...sections,
+			photos: entries(photo, 'photos', { noun: 'photo' }, 200)
+		},
+		{
+			error: (iss) =>
+				iss.code === 'unrecognized_keys'
+					? `The page has fields this version does not know: ${iss.keys.join(', ')}.`
+					: 'A vehicle page must be a JSON object.'
+		}
+	);
+}
+
+export const vehicleContentSchema = pageSchema({
+	identity: identitySchema.register(fieldRegistry, { kind: 'page-section', label: SECTION_NAMES.identity }),
+	// A section left out of stored content reads as empty.
+	power: powerSchema.prefault({}),
+	firewall: firewallSchema.prefault({}),
+	seats: seatsSchema.prefault({}),
+	dash: dashSchema.prefault({}),
+	harness: harnessSchema.prefault({}),
+	speakers: speakersSchema.prefault({}),
+	camera: cameraSchema.prefault({}),
+	removal: removalSchema.prefault({})
+});
+
+/** The vehicle page's field tree: what the form, the editor, the diff and search walk. */
+export const VEHICLE_FIELDS = fieldTree(vehicleContentSchema);
+
+/** Every leaf field of a page, keyed by its pattern: "seats.spaces[].heightMm". */
+export const FIELD_INFO: Readonly<Record<string, FieldInfo>> = VEHICLE_FIELDS.info;
 
 export type VehicleContent = z.output<typeof vehicleContentSchema>;
 export type VehicleContentInput = z.input<typeof vehicleContentSchema>;

@@ -5,16 +5,9 @@ import { requireRole, type SessionUser } from '$lib/server/auth/guard';
 import { currentRevision, vehicleBySlug, type VehicleSummary } from '$lib/server/services/vehicles';
 import { canEditVehicle, revisionById, saveRevision } from '$lib/server/services/revisions';
 import { EditConflictError, NoChangeError, ServiceError } from '$lib/server/errors';
-import {
-	applyIntent,
-	conflictViews,
-	contentFromForm,
-	draftFromEntries,
-	formFromContent,
-	readIntent,
-	type ContentDraft,
-	type ConflictView
-} from '$lib/domain/content/formData';
+import { contentFromForm, draftFromEntries, formFromContent, type ContentDraft } from '$lib/domain/content/formCodec';
+import { applyIntent, readIntent } from '$lib/domain/content/editIntents';
+import { conflictViews, type ConflictView } from '$lib/domain/content/conflictViews';
 import { applyResolution, type MergeConflict } from '$lib/domain/content/merge';
 import { parseContent } from '$lib/domain/content/schema';
 import type { LengthUnit } from '$lib/domain/units';

@@ -8,7 +8,7 @@ import { trustSummary } from '$lib/server/services/trust';
 import { ServiceError } from '$lib/server/errors';
 import { jobSheet } from '$lib/domain/jobSheet';
 import { readNumber } from '$lib/domain/calcInput';
-import { readLength } from '$lib/domain/content/formData';
+import { readLength } from '$lib/domain/units';
 import { BODY_STYLE_NAMES, BATTERY_LOCATION_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 
 const LENGTH_FIELDS = ['power', 'ground', 'remote', 'speaker'] as const;

@@ -1,53 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { unit } from 'mathjs';
-import {
-	applyIntent,
-	contentFromDraft,
-	contentFromForm,
-	convertDraftUnits,
-	draftFromEntries,
-	formEntries,
-	formFromContent,
-	readIntent,
-	readOhms
-} from '../../../src/lib/domain/content/formData';
-import { emptyContent, type VehicleContent } from '../../../src/lib/domain/content/schema';
-
-// Sample data: an invented vehicle with invented measurements.
-function samplePage(): VehicleContent {
-	const page = emptyContent({ make: 'Tarnell', model: 'Brisk', yearFrom: 2010, yearTo: 2014, body: 'hatchback', aliases: ['Brisk Sport'] });
-	page.power.batteryLocation = 'boot';
-	page.power.runs.push({ id: 'run1', to: 'Boot floor', lengthM: 4.5 });
-	page.firewall.passages.push({
-		id: 'pass1',
-		location: 'Driver side, above the pedal box',
-		kind: 'factory-grommet',
-		pushFrom: 'engine-bay',
-		holeMm: 20,
-		avoid: 'Brake line behind the grommet',
-		tools: 'Stiff fish wire'
-	});
-	page.seats.spaces.push(
-		{ id: 'drv', seat: 'driver', lengthMm: 410, widthMm: 300, heightMm: 95, obstacles: 'Floor ridge', boardNeeded: true, travelNotes: '' },
-		{ id: 'pas', seat: 'passenger', lengthMm: 400, widthMm: null, heightMm: 88.5, obstacles: '', boardNeeded: false, travelNotes: '' }
-	);
-	page.dash.opening = 'double-din';
-	page.dash.depthMm = 160;
-	page.dash.trimSteps.push('Pull the vent surround', 'Two screws under the unit');
-	page.harness.factoryAmp = false;
-	page.harness.ladder.lines.push({
-		id: 'l1',
-		name: 'SWC 1',
-		buttons: [
-			{ id: 'b1', name: 'Vol +', ohms: 680 },
-			{ id: 'b2', name: 'Vol −', ohms: 2200 }
-		]
-	});
-	page.camera.feeds.push({ id: 'f1', name: 'Camera', kind: 'switched', fuseA: 7.5, location: 'Reverse lamp' });
-	page.removal.notes = 'Line one\nLine two';
-	return page;
-}
+import { contentFromDraft, contentFromForm, draftFromEntries, formEntries, formFromContent } from '../../../src/lib/domain/content/formCodec';
+import { applyIntent, convertDraftUnits } from '../../../src/lib/domain/content/editIntents';
+import { samplePage } from './samplePage';
 
 const mm = (value: number, from: string) => unit(value, from).toNumber('mm');
 
@@ -181,94 +137,5 @@ describe('form ↔ content', () => {
 		expect(entries).toContainEqual(['seats.spaces.0.boardNeeded', 'yes']);
 		const content = contentFromForm(entries, 'mm', page).content!;
 		expect(content.seats.spaces.map((s) => s.boardNeeded)).toEqual([true, false]);
-	});
-});
-
-describe('resistance input', () => {
-	it.each([
-		['680', 680],
-		['680 Ω', 680],
-		['2.2k', 2200],
-		['2.2 kΩ', 2200],
-		// IEC 60062 letter-and-digit code: the letter stands for the decimal point.
-		['4k7', 4700],
-		['2R2', 2.2],
-		['1M', 1_000_000],
-		['0', 0]
-	])('%s reads as %d Ω', (text, ohms) => {
-		expect(readOhms(text)).toBeCloseTo(ohms, 9);
-	});
-
-	it('explains a reading it cannot take', () => {
-		expect(() => readOhms('loud', 'Resistance')).toThrow(/Resistance: could not read "loud" as ohms/);
-	});
-});
-
-describe('form intents', () => {
-	it('reads the pressed button', () => {
-		expect(readIntent('add:seats.spaces')).toEqual({ kind: 'add', list: 'seats.spaces' });
-		expect(readIntent('remove:harness.ladder.lines.0.buttons:3')).toEqual({ kind: 'remove', list: 'harness.ladder.lines.0.buttons', index: 3 });
-		expect(readIntent('unit:in')).toEqual({ kind: 'unit', unit: 'in' });
-		expect(readIntent(null)).toEqual({ kind: 'save' });
-		expect(readIntent('unit:furlong')).toEqual({ kind: 'save' });
-		expect(readIntent('move:removal.steps:2:up')).toEqual({ kind: 'move', list: 'removal.steps', index: 2, direction: 'up' });
-		expect(readIntent('move:removal.steps:2:sideways')).toEqual({ kind: 'save' });
-		expect(readIntent('move:removal.steps:x:down')).toEqual({ kind: 'save' });
-	});
-
-	it('moves an entry up or down by one, and nothing past either end', () => {
-		const draft = formFromContent(samplePage(), 'mm');
-		const ids = () => draft.seats.spaces.map((s) => s.id);
-		const [a, b] = ids();
-		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 1, direction: 'up' }, 'mm');
-		expect(ids()).toEqual([b, a]);
-		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 0, direction: 'up' }, 'mm');
-		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 1, direction: 'down' }, 'mm');
-		applyIntent(draft, { kind: 'move', list: 'seats.spaces', index: 9, direction: 'up' }, 'mm');
-		expect(ids()).toEqual([b, a]);
-		draft.removal.steps = ['trim', 'screen', 'amplifier'];
-		applyIntent(draft, { kind: 'move', list: 'removal.steps', index: 0, direction: 'down' }, 'mm');
-		expect(draft.removal.steps).toEqual(['screen', 'trim', 'amplifier']);
-	});
-
-	it('keeps every entry when moves are pressed in any order (property)', () => {
-		fc.assert(
-			fc.property(fc.array(fc.tuple(fc.nat(6), fc.boolean()), { maxLength: 30 }), (presses) => {
-				const draft = formFromContent(samplePage(), 'mm');
-				draft.removal.steps = ['a', 'b', 'c', 'd', 'e'];
-				for (const [index, up] of presses) applyIntent(draft, { kind: 'move', list: 'removal.steps', index, direction: up ? 'up' : 'down' }, 'mm');
-				expect([...draft.removal.steps].sort()).toEqual(['a', 'b', 'c', 'd', 'e']);
-			})
-		);
-	});
-
-	it('adds a seat space on the next seat not yet recorded, and removes by position', () => {
-		const draft = formFromContent(samplePage(), 'mm');
-		applyIntent(draft, { kind: 'add', list: 'seats.spaces' }, 'mm');
-		expect(draft.seats.spaces[2].seat).toBe('rear');
-		expect(draft.seats.spaces[2].heightMm).toBe('');
-		applyIntent(draft, { kind: 'remove', list: 'seats.spaces', index: 0 }, 'mm');
-		expect(draft.seats.spaces.map((s) => s.id)).toEqual(['pas', draft.seats.spaces[1].id]);
-	});
-
-	it('adds a button to a nested ladder line and ignores a path that is not a list', () => {
-		const draft = formFromContent(samplePage(), 'mm');
-		applyIntent(draft, { kind: 'add', list: 'harness.ladder.lines.0.buttons' }, 'mm');
-		expect(draft.harness.ladder.lines[0].buttons).toHaveLength(3);
-		const before = JSON.stringify(draft);
-		applyIntent(draft, { kind: 'add', list: 'identity.make' }, 'mm');
-		applyIntent(draft, { kind: 'add', list: 'harness.ladder.lines.9.buttons' }, 'mm');
-		expect(JSON.stringify(draft)).toBe(before);
-	});
-
-	it('switching the unit retypes readable lengths and leaves unreadable text alone', () => {
-		const draft = formFromContent(samplePage(), 'mm');
-		draft.seats.spaces[1].widthMm = 'wide';
-		const now = applyIntent(draft, { kind: 'unit', unit: 'in' }, 'mm');
-		expect(now).toBe('in');
-		// 410 mm in inches to two decimals (mathjs reference).
-		expect(Number(draft.seats.spaces[0].lengthMm)).toBeCloseTo(unit(410, 'mm').toNumber('inch'), 2);
-		expect(Number(draft.power.runs[0].lengthM)).toBeCloseTo(unit(4.5, 'm').toNumber('ft'), 2);
-		expect(draft.seats.spaces[1].widthMm).toBe('wide');
 	});
 });
