@@ -1,7 +1,6 @@
-import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
+import { formAction } from '$lib/server/forms';
 import { acceptInvite, invitationFor } from '$lib/server/services/invites';
-import { ServiceError } from '$lib/server/errors';
 
 // Open without signing in: the token in the address is the proof.
 export const load: PageServerLoad = async ({ params, locals }) => {
@@ -10,15 +9,13 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 };
 
 export const actions: Actions = {
-	default: async ({ params, request }) => {
-		const form = Object.fromEntries(await request.formData());
-		const values = { name: String(form.name ?? '') };
-		try {
-			const { email } = await acceptInvite(params.token, form);
-			return { accepted: email };
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { values, errors: err.fieldErrors ?? { form: err.message } });
-			throw err;
-		}
-	}
+	default: async ({ params, request }) =>
+		formAction(
+			request,
+			async (posted) => {
+				const { email } = await acceptInvite(params.token, Object.fromEntries(posted));
+				return { accepted: email };
+			},
+			{ values: ['name'] }
+		)
 };

@@ -1,18 +1,13 @@
-import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
+import { formAction } from '$lib/server/forms';
 import { resetLinkWorks, resetPassword } from '$lib/server/services/passwordReset';
-import { ServiceError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async ({ params }) => ({ works: await resetLinkWorks(params.token) });
 
 export const actions: Actions = {
-	default: async ({ params, request }) => {
-		try {
-			const { email } = await resetPassword(params.token, Object.fromEntries(await request.formData()));
+	default: async ({ params, request }) =>
+		formAction(request, async (posted) => {
+			const { email } = await resetPassword(params.token, Object.fromEntries(posted));
 			return { done: email };
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { errors: err.fieldErrors ?? { form: err.message } });
-			throw err;
-		}
-	}
+		})
 };
