@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { isActionFailure, isRedirect, redirect, error, isHttpError } from '@sveltejs/kit';
+import { isActionFailure, isRedirect, redirect, error, isHttpError, type ActionFailure } from '@sveltejs/kit';
 import { z } from 'zod';
-import { formAction } from '../../src/lib/server/forms';
+import { formAction, type FormFailure } from '../../src/lib/server/forms';
 import { EditConflictError, ServiceError } from '../../src/lib/server/errors';
 
 function post(fields: Record<string, string>): Request {
@@ -13,7 +13,7 @@ function post(fields: Record<string, string>): Request {
 async function failureOf(result: Promise<unknown>) {
 	const answer = await result;
 	if (!isActionFailure(answer)) throw new Error(`expected a refusal, got ${JSON.stringify(answer)}`);
-	return answer;
+	return answer as unknown as ActionFailure<FormFailure<unknown>>;
 }
 
 describe('one failure path for form actions', () => {
