@@ -48,9 +48,10 @@ rm -rf "$DB_DATA_DIR"
 bash scripts/db.sh start
 
 if [ -z "$only_e2e" ]; then
-	log "type check"
+	log "type check, import cycles and layers"
 	npx svelte-kit sync >/dev/null
 	npx svelte-check --tsconfig ./tsconfig.json --threshold error --output human
+	npm run --silent check:layers
 	log "unit and integration tests"
 	npx vitest run
 fi

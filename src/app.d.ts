@@ -1,4 +1,4 @@
-import type { SessionUser } from '$lib/server/auth/guard';
+import type { SessionUser } from '$lib/domain/sessionUser';
 
 declare global {
 	namespace App {

@@ -1,6 +1,6 @@
 import { SvelteKitAuth, CredentialsSignin } from '@auth/sveltekit';
 import Credentials from '@auth/sveltekit/providers/credentials';
-import { config } from '$lib/server/config';
+import { authSecret, config } from '$lib/server/config';
 import { authenticate } from '$lib/server/services/users';
 import { SESSION_MAX_AGE_SECONDS } from '$lib/server/auth/session';
 
@@ -13,7 +13,7 @@ class TooManyAttempts extends CredentialsSignin {
 
 export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (event) => ({
 	trustHost: config.auth.trustHost,
-	secret: process.env.AUTH_SECRET,
+	secret: authSecret(),
 	basePath: '/auth',
 	session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_SECONDS },
 	pages: { signIn: '/signin', error: '/signin' },

@@ -1,7 +1,8 @@
 import { redirect, type Handle, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from './auth';
-import { sessionUser } from '$lib/server/auth/session';
+import { sessionClaims } from '$lib/server/auth/session';
+import { activeSessionUser } from '$lib/server/services/users';
 import { closeDb } from '$lib/server/db';
 import { startApp } from '$lib/server/lifecycle';
 import { spliceFragments } from '$lib/server/render/vehicleBody';
@@ -22,7 +23,8 @@ export const init: ServerInit = async () => {
 const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite'];
 
 const loadUser: Handle = async ({ event, resolve }) => {
-	event.locals.user = await sessionUser(event.cookies);
+	const claims = await sessionClaims(event.cookies);
+	event.locals.user = claims ? await activeSessionUser(claims.uid, claims.sv) : null;
 	event.locals.units = event.locals.user?.units ?? (event.cookies.get('units') === 'imperial' ? 'imperial' : 'metric');
 	const path = event.url.pathname;
 	const isPublic = path === '/signin' || PUBLIC_PREFIXES.some((p) => path.startsWith(p));

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startMailCapture, type RunningCapture } from '../../src/lib/server/mail/capture';
 import { listCaptured, type CapturedMail } from '../../src/lib/server/mail/outbox';
+import { config } from '../../src/lib/server/config';
 
 export type TestOutbox = {
 	capture: RunningCapture;
@@ -15,9 +16,9 @@ export type TestOutbox = {
 export async function startTestOutbox(): Promise<TestOutbox> {
 	const dir = mkdtempSync(join(tmpdir(), 'kickpanel-outbox-'));
 	const capture = await startMailCapture({ port: 0, dir });
-	process.env.SMTP_HOST = '127.0.0.1';
-	process.env.SMTP_PORT = String(capture.port);
-	process.env.MAIL_CAPTURE_DIR = dir;
+	config.mail.host = '127.0.0.1';
+	config.mail.port = capture.port;
+	config.mail.captureDir = dir;
 	return {
 		capture,
 		to: (address) => listCaptured({ dir, to: address }),

@@ -1,6 +1,6 @@
 import type { Role } from '../../src/lib/domain/roles';
 import { createUser, toSessionUser } from '../../src/lib/server/services/users';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 let counter = 0;
 

@@ -12,7 +12,8 @@ import { activeBlockFor, blockUser, liftBlock } from '../../src/lib/server/servi
 import { changePassword } from '../../src/lib/server/services/account';
 import { auditFilterSchema, listAudit } from '../../src/lib/server/services/audit';
 import { createVehicle, saveRevision } from '../../src/lib/server/services/revisions';
-import { requireRole, type SessionUser } from '../../src/lib/server/auth/guard';
+import { requireRole } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 import { emptyContent } from '../../src/lib/domain/content/schema';
 import { ServiceError } from '../../src/lib/server/errors';
 

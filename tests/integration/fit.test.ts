@@ -11,7 +11,7 @@ import { createPart } from '../../src/lib/server/services/parts';
 import { checkVehicleFit, seatSpaceIndex, vehiclesForBox, vehiclesForPart, warmSeatSpaceIndex } from '../../src/lib/server/services/fit';
 import { confirmPage, flaggableFields, flagField, trustSummary } from '../../src/lib/server/services/trust';
 import { Confirmation } from '../../src/lib/server/db/models';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 // Invented makes, models and measurements (sample data only).
 let writer: SessionUser;

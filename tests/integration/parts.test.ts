@@ -6,7 +6,7 @@ import { AuditLog, Part as PartRow } from '../../src/lib/server/db/models';
 import { createPart, deletePart, listParts, partById, partsByIds, samplePartInput, updatePart } from '../../src/lib/server/services/parts';
 import { ServiceError } from '../../src/lib/server/errors';
 import { readPartForm } from '../../src/lib/domain/part';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 let moderator: SessionUser;
 let admin: SessionUser;

@@ -26,9 +26,10 @@ import {
 } from '../../src/lib/server/services/photos';
 import { ServiceError } from '../../src/lib/server/errors';
 import { usePhotoStore, type PhotoStore } from '../../src/lib/server/storage';
-import { FAKE_CREDENTIALS, S3PhotoStore } from '../../src/lib/server/storage/s3';
+import { S3PhotoStore } from '../../src/lib/server/storage/s3';
+import { S3_FAKE_CREDENTIALS as FAKE_CREDENTIALS } from '../../src/lib/server/config';
 import { startObjectStoreFake, type RunningObjectStoreFake } from '../../src/lib/server/storage/fake';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 const BUCKET = 'kickpanel-photos-test';
 let fake: RunningObjectStoreFake;

@@ -7,7 +7,7 @@ import { createVehicle, listRevisions, revisionById, saveRevision, setRevisionHi
 import { markReviewed, reviewState, setReviewBeforeShow, visibleRevision } from '../../src/lib/server/services/review';
 import { vehicleById } from '../../src/lib/server/services/vehicles';
 import { shopSettings } from '../../src/lib/server/services/settings';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 let editor: SessionUser;
 let moderator: SessionUser;

@@ -15,7 +15,7 @@ import {
 } from '../../src/lib/server/services/revisions';
 import { vehicleBySlug } from '../../src/lib/server/services/vehicles';
 import { EditConflictError, NoChangeError, ServiceError } from '../../src/lib/server/errors';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 let writer: SessionUser;
 let moderator: SessionUser;

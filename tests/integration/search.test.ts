@@ -4,7 +4,7 @@ import { closeDb, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
 import { parseContent, type VehicleContent } from '../../src/lib/domain/content/schema';
 import { checkDigit } from '../../src/lib/domain/vin';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 import { LiveSearchIndex, searchIndex, stopSearchIndex } from '../../src/lib/server/search';
 import { createVehicle, restoreRevision, revisionById, saveRevision, setRevisionHidden } from '../../src/lib/server/services/revisions';
 import { vehicleBySlug } from '../../src/lib/server/services/vehicles';

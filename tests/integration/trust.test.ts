@@ -7,7 +7,7 @@ import { requireVehicle } from '../../src/lib/server/services/vehicles';
 import { flaggableFields, flagField, FLAGS_PER_PAGE_PER_DAY } from '../../src/lib/server/services/trust';
 import { createUser } from '../../src/lib/server/services/users';
 import { Confirmation } from '../../src/lib/server/db/models';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 let writer: SessionUser;
 let viewer: SessionUser;

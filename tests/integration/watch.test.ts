@@ -17,7 +17,7 @@ import {
 	watchPage
 } from '../../src/lib/server/services/watch';
 import { config } from '../../src/lib/server/config';
-import type { SessionUser } from '../../src/lib/server/auth/guard';
+import type { SessionUser } from '../../src/lib/domain/sessionUser';
 
 let outbox: TestOutbox;
 let stopNotices: () => void;

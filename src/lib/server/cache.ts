@@ -1,3 +1,5 @@
+import { config } from './config';
+
 /**
  * A small in-process cache with a time limit. Writes made by this process clear the entries they touch
  * at once; the time limit bounds how stale an entry can be after another instance's write.
@@ -48,4 +50,4 @@ export function lookupCache<K, V>(ttlMs: number, limit = 10_000) {
 }
 
 /** How long another instance's change can take to show here (role, block, page row, watch, trust marks). */
-export const SHARED_STATE_TTL_MS = Number(process.env.SHARED_STATE_TTL_MS ?? 2_000);
+export const SHARED_STATE_TTL_MS = config.sharedStateTtlMs;

@@ -1,10 +1,11 @@
+import type { ZodError } from 'zod';
 import type { MergeConflict } from '../domain/content/merge';
 
 /** A refusal a person can act on; routes turn it into a 4xx with this message. */
 export class ServiceError extends Error {
 	constructor(
 		message: string,
-		readonly status: 400 | 403 | 404 | 409 | 413 | 415 | 422 | 429 = 400,
+		readonly status: 400 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503 = 400,
 		readonly fieldErrors?: Record<string, string>
 	) {
 		super(message);
@@ -29,4 +30,14 @@ export class EditConflictError extends ServiceError {
 			409
 		);
 	}
+}
+
+/** zod issues as one message per field path, for showing beside each input. */
+export function fieldMessages(error: ZodError): Record<string, string> {
+	const out: Record<string, string> = {};
+	for (const issue of error.issues) {
+		const key = issue.path.length ? issue.path.join('.') : 'form';
+		out[key] ??= issue.message;
+	}
+	return out;
 }

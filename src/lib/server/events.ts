@@ -35,3 +35,15 @@ export function onVehicleChanged(listener: (vehicleId: number) => void): () => v
 export function announceVehicleChange(vehicleId: number): void {
 	for (const listener of vehicleListeners) listener(vehicleId);
 }
+
+/** A person's account, role, status, block, password or preferences changed: cached copies must go. */
+const accountListeners = new Set<(userId: number) => void>();
+
+export function onAccountChanged(listener: (userId: number) => void): () => void {
+	accountListeners.add(listener);
+	return () => accountListeners.delete(listener);
+}
+
+export function announceAccountChange(userId: number): void {
+	for (const listener of accountListeners) listener(userId);
+}

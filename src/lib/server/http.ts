@@ -1,7 +1,6 @@
 import { error, isHttpError, json } from '@sveltejs/kit';
 import type { ZodType } from 'zod';
-import { EditConflictError, ServiceError } from './errors';
-import { fieldMessages } from './forms';
+import { EditConflictError, ServiceError, fieldMessages } from './errors';
 
 /** Runs an API handler body and answers refusals as JSON 4xx with a message a person understands. */
 export async function apiCall(body: () => Promise<Response>): Promise<Response> {

@@ -1,3 +1,4 @@
+import { authSecret } from './config';
 import { databaseIsUp } from './db';
 import { warmSeatSpaceIndex } from './services/fit';
 import { startWatchNotices } from './services/watch';
@@ -5,6 +6,8 @@ import { searchIndex, stopSearchIndex } from './search';
 
 /** Work done once when the server starts: check the database, warm caches. */
 export async function startApp(): Promise<void> {
+	// Refuse to serve at all rather than sign sessions with an empty key.
+	authSecret();
 	// Watch notices and the hourly digest check; the timer stops with the server.
 	process.once('sveltekit:shutdown', startWatchNotices());
 	// The search index builds in the background and then polls for other instances' saves.

@@ -1,9 +1,11 @@
-import { fail, isRedirect, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { CredentialsSignin } from '@auth/sveltekit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { signIn } from '../../auth';
 import { safeNext } from '$lib/server/auth/redirects';
+import { ServiceError } from '$lib/server/errors';
+import { formAction } from '$lib/server/forms';
 
 const MESSAGES: Record<string, string> = {
 	credentials: 'That e-mail and password do not match an active account. Check both and try again.',
@@ -23,20 +25,19 @@ const signInForm = z.object({
 });
 
 export const actions: Actions = {
-	default: async (event) => {
-		const form = Object.fromEntries(await event.request.clone().formData());
-		const parsed = signInForm.safeParse(form);
-		if (!parsed.success) {
-			return fail(400, { email: String(form.email ?? ''), message: parsed.error.issues[0].message });
-		}
-		try {
-			await signIn(event);
-		} catch (err) {
-			if (isRedirect(err)) throw err;
-			if (err instanceof CredentialsSignin) {
-				return fail(400, { email: String(form.email ?? ''), message: MESSAGES[err.code] ?? MESSAGES.credentials });
-			}
-			throw err;
-		}
-	}
+	// Auth.js reads the same body again, so the form is read from a copy.
+	default: async (event) =>
+		formAction(
+			event.request.clone(),
+			async (posted) => {
+				signInForm.parse(Object.fromEntries(posted));
+				try {
+					await signIn(event);
+				} catch (err) {
+					if (err instanceof CredentialsSignin) throw new ServiceError(MESSAGES[err.code] ?? MESSAGES.credentials, 400);
+					throw err;
+				}
+			},
+			{ values: ['email'] }
+		)
 };

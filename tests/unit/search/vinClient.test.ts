@@ -2,7 +2,8 @@ import { readFileSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { decodeVin, vinDecoderSettings } from '../../../src/lib/server/vin/client';
+import { decodeVin } from '../../../src/lib/server/vin/client';
+import { readConfig } from '../../../src/lib/server/config';
 import { FAKE_CATALOGUE, fakeDecode, startVinDecoderFake } from '../../../src/lib/server/vin/fake';
 import { localServices } from '../../../src/lib/server/local-services';
 import { vinDecoderFake } from '../../../src/lib/server/vin/fake';
@@ -120,8 +121,8 @@ describe('decodeVin', () => {
 	});
 
 	it('takes its address from VIN_DECODE_URL, defaulting to the local fake', () => {
-		expect(vinDecoderSettings({}).url).toBe('http://127.0.0.1:3391');
-		expect(vinDecoderSettings({ VIN_DECODE_URL: 'https://decoder.example.test/', VIN_DECODE_TIMEOUT_MS: '750' })).toEqual({
+		expect(readConfig({}).vin.url).toBe('http://127.0.0.1:3391');
+		expect(readConfig({ VIN_DECODE_URL: 'https://decoder.example.test/', VIN_DECODE_TIMEOUT_MS: '750' }).vin).toMatchObject({
 			url: 'https://decoder.example.test',
 			timeoutMs: 750,
 			apiKey: null

@@ -1,4 +1,4 @@
-import type { TrustFlag, TrustSummary } from '../../server/services/trust';
+import type { TrustFlag, TrustSummary } from '../../domain/trust';
 
 export type { TrustFlag, TrustSummary };
 

@@ -1,16 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { roleAtLeast, type Role } from '../../domain/roles';
-import { blockNotice, type EditBlock } from '../../domain/block';
-
-export type SessionUser = {
-	id: number;
-	email: string;
-	name: string;
-	role: Role;
-	units: 'metric' | 'imperial';
-	/** Set while a moderator's block on editing is in force. */
-	block?: EditBlock | null;
-};
+import { blockNotice } from '../../domain/block';
+import type { SessionUser } from '../../domain/sessionUser';
 
 export function hasRole(user: SessionUser | null | undefined, role: Role): boolean {
 	return roleAtLeast(user?.role, role);

@@ -1,12 +1,12 @@
 import { decode, encode } from '@auth/core/jwt';
 import type { Cookies } from '@sveltejs/kit';
-import { activeSessionUser } from '../services/users';
-import type { SessionUser } from './guard';
+import { authSecret } from '../config';
 
 export const SESSION_MAX_AGE_SECONDS = 12 * 60 * 60;
 const COOKIE_NAMES = ['__Secure-authjs.session-token', 'authjs.session-token'];
 
-type SessionClaims = { uid: number; sv: number; exp: number };
+/** Who a session cookie names (user id, session version) and until when it holds. */
+export type SessionClaims = { uid: number; sv: number; exp: number };
 // Decrypting the session token is the costly part of a request; tokens are immutable, so cache them briefly.
 const decoded = new Map<string, SessionClaims | null>();
 const CACHE_LIMIT = 5_000;
@@ -16,7 +16,7 @@ async function claimsFor(cookieName: string, token: string): Promise<SessionClai
 	if (decoded.has(key)) return decoded.get(key)!;
 	let claims: SessionClaims | null = null;
 	try {
-		const payload = await decode({ token, secret: process.env.AUTH_SECRET ?? '', salt: cookieName });
+		const payload = await decode({ token, secret: authSecret(), salt: cookieName });
 		if (payload && typeof payload.uid === 'number' && typeof payload.exp === 'number') {
 			claims = { uid: payload.uid, sv: typeof payload.sv === 'number' ? payload.sv : 1, exp: payload.exp };
 		}
@@ -37,13 +37,13 @@ function sessionCookie(cookies: Cookies): { name: string; token: string } | null
 	return null;
 }
 
-/** The signed-in user, re-read from MariaDB on every request so role and status changes apply at once. */
-export async function sessionUser(cookies: Cookies): Promise<SessionUser | null> {
+/** The unexpired claims of this request's session cookie; the person behind them is read by the users service. */
+export async function sessionClaims(cookies: Cookies): Promise<SessionClaims | null> {
 	const cookie = sessionCookie(cookies);
 	if (!cookie) return null;
 	const claims = await claimsFor(cookie.name, cookie.token);
 	if (!claims || claims.exp * 1000 < Date.now()) return null;
-	return activeSessionUser(claims.uid, claims.sv);
+	return claims;
 }
 
 /**
@@ -54,7 +54,7 @@ export async function renewSession(cookies: Cookies, sessionVersion: number): Pr
 	const cookie = sessionCookie(cookies);
 	if (!cookie) return false;
 	const { name, token } = cookie;
-	const secret = process.env.AUTH_SECRET ?? '';
+	const secret = authSecret();
 	const payload = await decode({ token, secret, salt: name }).catch(() => null);
 	if (!payload) return false;
 	const renewed = await encode({ token: { ...payload, sv: sessionVersion }, secret, salt: name, maxAge: SESSION_MAX_AGE_SECONDS });

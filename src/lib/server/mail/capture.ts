@@ -1,6 +1,7 @@
 import { SMTPServer } from 'smtp-server';
 import type { AddressInfo } from 'node:net';
-import type { LocalService } from '../local-services';
+import type { LocalService } from '../localService';
+import { config } from '../config';
 import { keepCaptured, outboxDir } from './outbox';
 import { readMessage } from './rfc822';
 
@@ -46,7 +47,7 @@ export function startMailCapture(options: { port?: number; host?: string; dir?: 
 			});
 		}
 	});
-	const port = options.port ?? Number(process.env.SMTP_CAPTURE_PORT || 2525);
+	const port = options.port ?? config.mail.capturePort;
 	return new Promise((resolvePromise, reject) => {
 		server.once('error', reject);
 		server.listen(port, host, () => {
@@ -67,7 +68,7 @@ export function startMailCapture(options: { port?: number; host?: string; dir?: 
 // With a real mail server configured, the capture stays off.
 export const mailCapture: LocalService = {
 	start: async () =>
-		process.env.SMTP_HOST
-			? { name: 'mail: SMTP_HOST is set, so no local capture', url: `smtp://${process.env.SMTP_HOST}`, stop: async () => {} }
+		config.mail.configuredHost
+			? { name: 'mail: SMTP_HOST is set, so no local capture', url: `smtp://${config.mail.configuredHost}`, stop: async () => {} }
 			: startMailCapture()
 };

@@ -2,6 +2,7 @@ import { mkdir, readdir, readFile, writeFile } from 'node:fs/promises';
 import { randomBytes } from 'node:crypto';
 import { join, resolve } from 'node:path';
 import type { ReadMessage } from './rfc822';
+import { config } from '../config';
 
 /** A message the local capture received: what was said on the wire, and a reading of it for people. */
 export type CapturedMail = ReadMessage & {
@@ -13,7 +14,7 @@ export type CapturedMail = ReadMessage & {
 
 /** Both the app and the capture resolve this from the project root, so they agree without extra settings. */
 export function outboxDir(): string {
-	return resolve(process.cwd(), process.env.MAIL_CAPTURE_DIR || '.data/outbox');
+	return resolve(process.cwd(), config.mail.captureDir);
 }
 
 const ID_PATTERN = /^[0-9]{13}-[0-9a-f]{8}$/;

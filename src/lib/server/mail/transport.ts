@@ -1,31 +1,13 @@
 import { createTransport, type Transporter } from 'nodemailer';
 
-export type MailSettings = {
-	host: string;
-	port: number;
-	secure: boolean;
-	user: string | null;
-	pass: string | null;
-	from: string;
-};
+import { config } from '../config';
 
-function portFrom(raw: string | undefined, fallback: number): number {
-	if (!raw) return fallback;
-	const n = Number(raw);
-	if (!Number.isInteger(n) || n < 1 || n > 65535) throw new Error(`SMTP_PORT must be a port number, got "${raw}"`);
-	return n;
-}
+type MailSettings = Pick<typeof config.mail, 'host' | 'port' | 'secure' | 'user' | 'pass' | 'from'>;
 
-/** Read from the environment each time, so a test can point mail at its own capture server. */
-export function mailSettings(env = process.env): MailSettings {
-	return {
-		host: env.SMTP_HOST || '127.0.0.1',
-		port: portFrom(env.SMTP_PORT || env.SMTP_CAPTURE_PORT, 2525),
-		secure: env.SMTP_SECURE === 'true' || env.SMTP_SECURE === '1',
-		user: env.SMTP_USER || null,
-		pass: env.SMTP_PASS || null,
-		from: env.MAIL_FROM || 'Kickpanel <no-reply@kickpanel.test>'
-	};
+/** Read on every send, so a test can point mail at its own capture server. */
+function mailSettings(): MailSettings {
+	const { host, port, secure, user, pass, from } = config.mail;
+	return { host, port, secure, user, pass, from };
 }
 
 let cached: { key: string; transporter: Transporter } | null = null;

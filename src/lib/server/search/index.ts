@@ -6,6 +6,7 @@ import type { SearchSection } from '../../domain/search/document';
 import { vehicleSearchSections } from '../../domain/search/document';
 import type { SearchFilters } from '../../domain/search/filters';
 import { onRevisionWritten } from '../events';
+import { config } from '../config';
 import { VehicleSearchEngine, withNoteSnippet, type SearchOutcome, type VinCandidate } from './engine';
 import { latestRevisions, latestRevisionsOf, newestRevisionId, pagesChangedAfter, revisionContents } from './source';
 
@@ -182,8 +183,7 @@ let shared: LiveSearchIndex | null = null;
 export function searchIndex(): LiveSearchIndex {
 	if (!shared) {
 		shared = new LiveSearchIndex();
-		const raw = Number(process.env.SEARCH_POLL_MS ?? DEFAULT_POLL_MS);
-		shared.start({ pollMs: Number.isFinite(raw) && raw >= 0 ? raw : DEFAULT_POLL_MS });
+		shared.start({ pollMs: config.searchPollMs });
 	}
 	return shared;
 }

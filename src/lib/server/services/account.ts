@@ -2,10 +2,10 @@ import { z } from 'zod';
 import { User } from '../db/models';
 import { hashPassword, verifyPassword } from '../auth/password';
 import { beginSignInAttempt, forgiveSignInTries, waitWords } from '../auth/throttle';
-import type { SessionUser } from '../auth/guard';
-import { fieldMessages } from '../forms';
-import { forgetSessionUser, newUserSchema } from './users';
-import { ServiceError } from '../errors';
+import type { SessionUser } from '../../domain/sessionUser';
+import { newUserSchema } from './users';
+import { announceAccountChange } from '../events';
+import { ServiceError, fieldMessages } from '../errors';
 
 function refuse(error: z.ZodError): never {
 	const fields = fieldMessages(error);
@@ -18,7 +18,7 @@ export async function changeName(userId: number, input: unknown): Promise<string
 	const parsed = nameSchema.safeParse(input);
 	if (!parsed.success) refuse(parsed.error);
 	await User.update({ name: parsed.data.name }, { where: { id: userId } });
-	forgetSessionUser(userId);
+	announceAccountChange(userId);
 	return parsed.data.name;
 }
 
@@ -44,6 +44,6 @@ export async function changePassword(user: SessionUser, input: unknown, clientAd
 	await forgiveSignInTries(user.email, clientAddress);
 	const sessionVersion = row.sessionVersion + 1;
 	await row.update({ passwordHash: await hashPassword(parsed.data.password), sessionVersion });
-	forgetSessionUser(user.id);
+	announceAccountChange(user.id);
 	return sessionVersion;
 }

@@ -1,14 +1,13 @@
-import { forgetSessionUser } from './users';
 import { z } from 'zod';
 import { Op } from 'sequelize';
 import { db } from '../db';
 import { Block, User } from '../db/models';
 import { ROLES, roleAtLeast, type Role } from '../../domain/roles';
 import { blockNotice, type EditBlock } from '../../domain/block';
-import type { SessionUser } from '../auth/guard';
-import { fieldMessages } from '../forms';
+import type { SessionUser } from '../../domain/sessionUser';
 import { recordAudit } from './audit';
-import { ServiceError } from '../errors';
+import { ServiceError, fieldMessages } from '../errors';
+import { announceAccountChange } from '../events';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 const LONGEST_BLOCK_DAYS = 5 * 366;
@@ -80,7 +79,7 @@ export async function blockUser(targetId: number, input: unknown, actor: Session
 		);
 		return { reason: row.reason, until: until.toISOString() };
 	});
-	forgetSessionUser(targetId);
+	announceAccountChange(targetId);
 	return block;
 }
 
@@ -97,7 +96,7 @@ export async function liftBlock(targetId: number, actor: SessionUser, now = new 
 		if (lifted) await recordAudit({ actorId: actor.id, action: 'user.unblock', targetType: 'user', targetId: target.id }, transaction);
 		return lifted > 0;
 	});
-	forgetSessionUser(targetId);
+	announceAccountChange(targetId);
 	return lifted;
 }
 

@@ -4,16 +4,15 @@ import { db } from '../db';
 import { AccountToken, User } from '../db/models';
 import { ROLES, roleAtLeast, type Role } from '../../domain/roles';
 import { hashPassword } from '../auth/password';
-import type { SessionUser } from '../auth/guard';
+import type { SessionUser } from '../../domain/sessionUser';
 import { config } from '../config';
-import { fieldMessages } from '../forms';
-import { sendMail } from '../mail/transport';
+import { MailNotSent, sendMail } from '../mail/transport';
 import { inviteMail } from '../mail/templates';
 import { emailSchema, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
 import { shopSettings } from './settings';
 import { recordAudit } from './audit';
-import { ServiceError } from '../errors';
+import { ServiceError, fieldMessages } from '../errors';
 
 export const INVITE_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
 
@@ -63,6 +62,7 @@ export async function inviteByEmail(input: unknown, admin: SessionUser, now = ne
 		await sendMail({ to: email, ...inviteMail({ shopName: shop.shopName, inviterName: admin.name, role, link: `${config.origin}/invite/${token}`, expiresAt }) });
 	} catch (err) {
 		await row.update({ revokedAt: new Date() });
+		if (err instanceof MailNotSent) throw new ServiceError(`${err.message}. Nothing was sent; try again.`, 503);
 		throw err;
 	}
 	return { email, role, expiresAt };

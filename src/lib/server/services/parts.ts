@@ -2,12 +2,21 @@ import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
 import { db } from '../db';
 import { Part as PartRow } from '../db/models';
-import { PART_KINDS, partInputSchema, type Part, type PartData, type PartKind } from '../../domain/part';
-import type { SessionUser } from '../auth/guard';
+import {
+	emptyPartForm,
+	PART_KINDS,
+	partFieldsFromForm,
+	partInputSchema,
+	readPartForm,
+	type Part,
+	type PartData,
+	type PartFormValues,
+	type PartKind
+} from '../../domain/part';
+import type { SessionUser } from '../../domain/sessionUser';
 import { roleAtLeast } from '../../domain/roles';
-import { fieldMessages } from '../forms';
 import { recordAudit } from './audit';
-import { ServiceError } from '../errors';
+import { ServiceError, fieldMessages } from '../errors';
 
 // The kind's own figures; the box columns and names live in their own columns.
 const COLUMNS = ['kind', 'sku', 'name', 'lengthMm', 'widthMm', 'heightMm', 'notes'] as const;
@@ -28,6 +37,18 @@ function toPart(row: PartRow): Part {
 	const parsed = partInputSchema.safeParse(data);
 	if (!parsed.success) throw new Error(`Part ${row.id} (${row.sku}) does not read as a ${row.kind}: ${parsed.error.issues[0]?.message}`);
 	return { id: row.id, ...parsed.data };
+}
+
+/** The catalogue form as posted, read in the unit it was typed in; a refusal names each field at fault. */
+export function partFromForm(posted: FormData): PartData {
+	const read = readPartForm(partFieldsFromForm(posted.entries()), posted.get('unit') === 'in' ? 'in' : 'mm');
+	if (!read.ok) throw new ServiceError('Some fields need attention; nothing was saved.', 400, read.errors);
+	return read.part;
+}
+
+/** The catalogue form as posted, to show again after a refusal. */
+export function postedPartForm(posted: FormData): PartFormValues {
+	return { ...emptyPartForm(), ...partFieldsFromForm(posted.entries()) };
 }
 
 function toColumns(part: PartData) {

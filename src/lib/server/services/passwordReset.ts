@@ -6,13 +6,13 @@ import { AccountToken, User } from '../db/models';
 import { hashPassword } from '../auth/password';
 import { clearSignInFailures } from '../auth/throttle';
 import { config } from '../config';
-import { fieldMessages } from '../forms';
 import { sendMail } from '../mail/transport';
 import { resetMail } from '../mail/templates';
-import { emailSchema, forgetSessionUser, newUserSchema } from './users';
+import { emailSchema, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
 import { shopSettings } from './settings';
-import { ServiceError } from '../errors';
+import { ServiceError, fieldMessages } from '../errors';
+import { announceAccountChange } from '../events';
 
 export const RESET_LIFETIME_MS = 60 * 60 * 1000;
 
@@ -90,6 +90,6 @@ export async function resetPassword(token: string, input: unknown, now = new Dat
 		return { email: user.email, userId: user.id };
 	});
 	await clearSignInFailures(email);
-	forgetSessionUser(userId);
+	announceAccountChange(userId);
 	return { email };
 }

@@ -4,15 +4,13 @@ import { db } from '../db';
 import { Photo } from '../db/models';
 import { SECTION_KEYS, SECTION_NAMES, type Photo as PhotoEntry, type SectionKey, type VehicleContent } from '../../domain/content/schema';
 import { roleAtLeast } from '../../domain/roles';
-import type { SessionUser } from '../auth/guard';
-import { fieldMessages } from '../forms';
+import type { SessionUser } from '../../domain/sessionUser';
 import { photoStore } from '../storage';
 import type { StoredObject } from '../storage/store';
 import {
 	checkSize,
 	fileLabel,
 	inspectUpload,
-	photoLimits,
 	renditionKey,
 	RENDITIONS,
 	RENDITION_TYPE,
@@ -23,9 +21,10 @@ import {
 } from '../storage/renditions';
 import { canEditVehicle, revisionById, saveRevision, type StoredRevision } from './revisions';
 import { vehicleById, type VehicleSummary } from './vehicles';
-import { EditConflictError, ServiceError } from '../errors';
+import { EditConflictError, ServiceError, fieldMessages } from '../errors';
 import { onRevisionWritten } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
+import { config } from '../config';
 
 export type PhotoRecord = {
 	id: string;
@@ -118,7 +117,7 @@ async function checkOne(upload: Upload, limits: PhotoLimits): Promise<Checked> {
 
 /** Every file is checked before any is stored; one refusal refuses the lot, with every reason. */
 async function checkAll(uploads: Upload[]): Promise<Checked[]> {
-	const limits = photoLimits();
+	const limits = config.photos;
 	const results: Checked[] = [];
 	const refusals: ServiceError[] = [];
 	const seen = new Set<string>();

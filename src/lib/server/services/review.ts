@@ -2,7 +2,7 @@ import { Op } from 'sequelize';
 import { db } from '../db';
 import { Revision, Setting } from '../db/models';
 import { roleAtLeast } from '../../domain/roles';
-import type { SessionUser } from '../auth/guard';
+import type { SessionUser } from '../../domain/sessionUser';
 import { revisionById, type StoredRevision } from './revisions';
 import type { VehicleSummary } from './vehicles';
 import { forgetShopSettings, shopSettings } from './settings';

@@ -7,7 +7,7 @@ import { mergeContent } from '../../domain/content/merge';
 import { fieldChanges, notesChanges } from '../../domain/content/fieldDiff';
 import { roleAtLeast, type Role } from '../../domain/roles';
 import { slugify, vehicleSlug } from '../../domain/slug';
-import type { SessionUser } from '../auth/guard';
+import type { SessionUser } from '../../domain/sessionUser';
 import { renderNotes, type RenderedNotes } from './rendering';
 import { recordAudit } from './audit';
 import { announceRevision, announceVehicleChange } from '../events';

@@ -5,12 +5,13 @@ import { Confirmation, User, Vehicle } from '../db/models';
 import { canonicalJson, FIELD_INFO, type VehicleContent } from '../../domain/content/schema';
 import { describePath, parsePath, patternOf, valueAtPath, formatFieldValue } from '../../domain/content/fieldDiff';
 import type { UnitSystem } from '../../domain/units';
-import type { SessionUser } from '../auth/guard';
+import type { SessionUser } from '../../domain/sessionUser';
 import { roleAtLeast } from '../../domain/roles';
 import { revisionById } from './revisions';
 import { ServiceError } from '../errors';
 import { onRevisionWritten } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
+import type { TrustFlag, TrustSummary } from '../../domain/trust';
 
 // Shown on every page view; this process's confirmations, flags and saves clear it at once.
 const summaries = lookupCache<string, TrustSummary>(SHARED_STATE_TTL_MS);
@@ -19,34 +20,6 @@ onRevisionWritten(() => summaries.clear());
 // Installers' marks on a page: "fitted as described" for a revision, or a measurement flagged as
 // wrong. A flag stays open while the flagged field still holds the value it had when flagged;
 // an edit that changes (or removes) the field closes it, naming the revision that did.
-
-export type TrustFlag = {
-	id: number;
-	fieldPath: string | null;
-	label: string;
-	note: string;
-	by: string;
-	at: string;
-	revisionId: number;
-	/** The flagged value as it reads today, in the reader's units. */
-	value: string | null;
-};
-
-export type TrustSummary = {
-	vehicleId: number;
-	revisionId: number | null;
-	confirmations: {
-		/** Different installers who marked any revision as fitted as described. */
-		installers: number;
-		/** Of those, how many marked the current revision. */
-		onCurrentRevision: number;
-		latest: { by: string; at: string; revisionId: number; note: string } | null;
-	};
-	openFlags: TrustFlag[];
-	/** Open flags keyed by field path ("" for the page as a whole). */
-	flagsByField: Record<string, TrustFlag[]>;
-	closedFlags: number;
-};
 
 /** A field a flag can name: every measurement on the current revision. */
 export type FlagChoice = { path: string; label: string };

@@ -3,10 +3,12 @@ import { db } from '../db';
 import { ROLES, User, type Role } from '../db/models';
 import { hashPassword, MIN_PASSWORD_LENGTH, verifyPassword } from '../auth/password';
 import { beginSignInAttempt, forgiveSignInTries } from '../auth/throttle';
-import type { SessionUser } from '../auth/guard';
+import type { SessionUser } from '../../domain/sessionUser';
 import { recordAudit } from './audit';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 import { activeBlockFor } from './blocks';
+import { announceAccountChange, onAccountChanged } from '../events';
+import { ServiceError } from '../errors';
 
 export const emailSchema = z
 	.string({ error: 'Enter an e-mail address.' })
@@ -31,12 +33,13 @@ export const newUserSchema = z.object({
 });
 export type NewUser = z.infer<typeof newUserSchema>;
 
-export class UserError extends Error {
+/** A refused account change, naming the field at fault when there is one. */
+export class UserError extends ServiceError {
 	constructor(
 		message: string,
 		readonly field?: string
 	) {
-		super(message);
+		super(message, 400, field ? { [field]: message } : undefined);
 	}
 }
 
@@ -84,21 +87,20 @@ export async function setUserStatus(userId: number, status: 'active' | 'disabled
 	}));
 }
 
-/** The signed-in user for a session, read fresh so a disabled, demoted or blocked user is refused at once. */
 /** Runs a write, then drops the person's cached session so the next request reads the committed row. */
 async function afterCommitForget<T>(userId: number, write: () => Promise<T>): Promise<T> {
 	const result = await write();
-	forgetSessionUser(userId);
+	announceAccountChange(userId);
 	return result;
 }
 
 type SessionSnapshot = { user: SessionUser; status: string; sessionVersion: number } | null;
 const sessionSnapshots = lookupCache<number, SessionSnapshot>(SHARED_STATE_TTL_MS);
 
-/** Every write to a person's account, role, block or password calls this, so the next request sees it. */
-export function forgetSessionUser(userId: number): void {
-	sessionSnapshots.delete(userId);
-}
+// Every write to a person's account, role, block or password announces it, so the next request sees it.
+onAccountChanged((userId) => sessionSnapshots.delete(userId));
+
+/** The signed-in user for a session, read fresh so a disabled, demoted or blocked user is refused at once. */
 
 export async function activeSessionUser(userId: number, sessionVersion: number): Promise<SessionUser | null> {
 	const snapshot = await sessionSnapshots.get(userId, async () => {

@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import { NotificationPreference, PendingNotice, User, Watch, type NoticeMode } from '../db/models';
-import type { SessionUser } from '../auth/guard';
+import type { SessionUser } from '../../domain/sessionUser';
 import { config } from '../config';
 import { sendMail } from '../mail/transport';
 import { changeNoticeMail, digestMail, type ChangeLine } from '../mail/templates';

@@ -1,8 +1,8 @@
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import S3rver from 's3rver';
-import type { LocalService } from '../local-services';
-import { DEFAULT_BUCKET, DEFAULT_FAKE_PORT } from './s3';
+import type { LocalService } from '../localService';
+import { config } from '../config';
 
 export type RunningObjectStoreFake = { name: string; url: string; port: number; bucket: string; stop(): Promise<void> };
 
@@ -13,9 +13,9 @@ export type RunningObjectStoreFake = { name: string; url: string; port: number; 
 export async function startObjectStoreFake(
 	options: { port?: number; directory?: string; bucket?: string } = {}
 ): Promise<RunningObjectStoreFake> {
-	const port = options.port ?? Number(process.env.S3_FAKE_PORT || DEFAULT_FAKE_PORT);
-	const directory = resolve(options.directory ?? (process.env.S3_FAKE_DIR || '.data/s3'));
-	const bucket = options.bucket ?? (process.env.S3_BUCKET || DEFAULT_BUCKET);
+	const port = options.port ?? config.s3.fakePort;
+	const directory = resolve(options.directory ?? config.s3.fakeDir);
+	const bucket = options.bucket ?? config.s3.bucket;
 	mkdirSync(directory, { recursive: true });
 	const server = new S3rver({ address: '127.0.0.1', port, silent: true, directory, configureBuckets: [{ name: bucket }] });
 	const address = await server.run();
@@ -30,7 +30,7 @@ export async function startObjectStoreFake(
 
 export const objectStoreFake: LocalService = {
 	async start() {
-		const endpoint = process.env.S3_ENDPOINT;
+		const endpoint = config.s3.configuredEndpoint;
 		// A configured endpoint is a real bucket (or someone else's fake): nothing to stand in for.
 		if (endpoint) return { name: 'object storage: S3_ENDPOINT is set, so no local fake; photos are kept', url: endpoint, stop: async () => {} };
 		return startObjectStoreFake();

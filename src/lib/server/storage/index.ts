@@ -1,4 +1,5 @@
-import { S3PhotoStore, s3ConfigFromEnv } from './s3';
+import { config } from '../config';
+import { S3PhotoStore } from './s3';
 import type { PhotoStore } from './store';
 
 export type { PhotoStore, StoredObject, StoredObjectInfo } from './store';
@@ -7,7 +8,7 @@ let current: PhotoStore | null = null;
 
 /** The store photos go to: the bucket the environment names, or the local fake by default. */
 export function photoStore(): PhotoStore {
-	current ??= new S3PhotoStore(s3ConfigFromEnv());
+	current ??= new S3PhotoStore(config.s3);
 	return current;
 }
 

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp, { type Metadata } from 'sharp';
 import { ServiceError } from '../errors';
+import { config } from '../config';
 
 export const RENDITIONS = ['display', 'thumb'] as const;
 export type Rendition = (typeof RENDITIONS)[number];
@@ -21,20 +22,6 @@ export type PhotoLimits = { maxBytes: number; maxPixels: number };
 
 const MB = 1024 * 1024;
 
-function positiveInt(raw: string | undefined, name: string, fallback: number): number {
-	if (raw === undefined || raw === '') return fallback;
-	const n = Number(raw);
-	if (!Number.isInteger(n) || n <= 0) throw new Error(`${name} must be a whole number above 0, got "${raw}"`);
-	return n;
-}
-
-/** Read at call time so an operator's change applies without a rebuild. */
-export function photoLimits(env: NodeJS.ProcessEnv = process.env): PhotoLimits {
-	return {
-		maxBytes: positiveInt(env.PHOTO_MAX_BYTES, 'PHOTO_MAX_BYTES', 15 * MB),
-		maxPixels: positiveInt(env.PHOTO_MAX_PIXELS, 'PHOTO_MAX_PIXELS', 60_000_000)
-	};
-}
 
 // Decided from the bytes, never the name or declared type. The prebuilt image library reads AVIF
 // but has no HEVC decoder, so HEIC is tried and, when it fails, refused with advice.
@@ -82,7 +69,7 @@ export function sha256Hex(bytes: Uint8Array): string {
 }
 
 /** Empty and oversized files are refused before anything else reads them. */
-export function checkSize(bytes: Uint8Array, name: string, limits: PhotoLimits = photoLimits()): void {
+export function checkSize(bytes: Uint8Array, name: string, limits: PhotoLimits = config.photos): void {
 	const label = fileLabel(name);
 	if (bytes.byteLength === 0) {
 		throw new ServiceError(`${label} is empty (0 bytes). Choose the photo again; if it lives in a cloud folder, download it to the device first.`, 400);
@@ -109,7 +96,7 @@ function undecodable(label: string): ServiceError {
  * then the display and thumbnail renditions, turned upright and with every bit of metadata (GPS,
  * camera, time) left behind. Throws a ServiceError a person can act on; writes nothing.
  */
-export async function inspectUpload(bytes: Uint8Array, name: string, limits: PhotoLimits = photoLimits()): Promise<CheckedPhoto> {
+export async function inspectUpload(bytes: Uint8Array, name: string, limits: PhotoLimits = config.photos): Promise<CheckedPhoto> {
 	checkSize(bytes, name, limits);
 	const label = fileLabel(name);
 	const type = await fileTypeFromBuffer(bytes);

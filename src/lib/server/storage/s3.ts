@@ -1,10 +1,6 @@
 import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import type { PhotoStore, StoredObject, StoredObjectInfo } from './store';
 
-export const DEFAULT_BUCKET = 'kickpanel-photos';
-export const DEFAULT_FAKE_PORT = 4569;
-/** The local fake accepts these fixed keys; a real bucket gets its own from the environment. */
-export const FAKE_CREDENTIALS = { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } as const;
 
 export type S3StoreConfig = {
 	endpoint: string;
@@ -14,25 +10,6 @@ export type S3StoreConfig = {
 	credentials?: { accessKeyId: string; secretAccessKey: string };
 	forcePathStyle: boolean;
 };
-
-function flag(raw: string | undefined, fallback: boolean): boolean {
-	if (raw === undefined || raw === '') return fallback;
-	return !['0', 'false', 'no', 'off'].includes(raw.trim().toLowerCase());
-}
-
-/** Read at call time so a test or script can point the store elsewhere before first use. */
-export function s3ConfigFromEnv(env: NodeJS.ProcessEnv = process.env): S3StoreConfig {
-	const usingFake = !env.S3_ENDPOINT;
-	const keyId = env.S3_ACCESS_KEY_ID;
-	const secret = env.S3_SECRET_ACCESS_KEY;
-	return {
-		endpoint: env.S3_ENDPOINT || `http://127.0.0.1:${env.S3_FAKE_PORT || DEFAULT_FAKE_PORT}`,
-		bucket: env.S3_BUCKET || DEFAULT_BUCKET,
-		region: env.S3_REGION || 'us-east-1',
-		credentials: keyId && secret ? { accessKeyId: keyId, secretAccessKey: secret } : usingFake ? { ...FAKE_CREDENTIALS } : undefined,
-		forcePathStyle: flag(env.S3_FORCE_PATH_STYLE, true)
-	};
-}
 
 function isNotFound(err: unknown): boolean {
 	const e = err as { name?: string; $metadata?: { httpStatusCode?: number } };

@@ -2,6 +2,7 @@
 // (they are worked out locally); it only adds make, model and body. Any failure degrades to
 // "decoder unavailable" and never breaks a lookup.
 import { z } from 'zod';
+import { config } from '../config';
 
 export type DecodedVehicle = { make: string; model: string; modelYear: number | null; body: string | null };
 
@@ -27,20 +28,14 @@ export const decoderAnswerSchema = z.object({
 });
 export type DecoderAnswer = z.infer<typeof decoderAnswerSchema>;
 
-export function vinDecoderSettings(env: NodeJS.ProcessEnv = process.env) {
-	const timeout = Number(env.VIN_DECODE_TIMEOUT_MS ?? 2_000);
-	return {
-		url: (env.VIN_DECODE_URL || `http://127.0.0.1:${env.VIN_DECODE_PORT || 3391}`).replace(/\/+$/, ''),
-		timeoutMs: Number.isFinite(timeout) && timeout > 0 ? timeout : 2_000,
-		apiKey: env.VIN_DECODE_KEY || null
-	};
-}
+type DecoderSettings = { url: string; timeoutMs: number; apiKey: string | null };
 
 export async function decodeVin(
 	vin: string,
-	opts: Partial<ReturnType<typeof vinDecoderSettings>> & { fetch?: typeof fetch } = {}
+	opts: Partial<DecoderSettings> & { fetch?: typeof fetch } = {}
 ): Promise<DecodeResult> {
-	const settings = { ...vinDecoderSettings(), ...opts };
+	const { url, timeoutMs, apiKey } = config.vin;
+	const settings = { url, timeoutMs, apiKey, ...opts };
 	const doFetch = opts.fetch ?? fetch;
 	let res: Response;
 	try {

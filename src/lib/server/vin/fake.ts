@@ -3,7 +3,8 @@
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { modelYear, normalizeVin, vinProblem } from '../../domain/vin';
-import type { LocalService } from '../local-services';
+import type { LocalService } from '../localService';
+import { config } from '../config';
 import type { DecoderAnswer } from './client';
 
 /**
@@ -50,7 +51,7 @@ function listen(server: Server, port: number): Promise<number> {
 }
 
 /** Starts the fake on VIN_DECODE_PORT (default 3391; 0 picks a free port). */
-export async function startVinDecoderFake(port = Number(process.env.VIN_DECODE_PORT ?? 3391)) {
+export async function startVinDecoderFake(port = config.vin.fakePort) {
 	const server = createServer((req, res) => {
 		const send = (status: number, body: unknown) => {
 			res.writeHead(status, { 'content-type': 'application/json' });
@@ -74,7 +75,7 @@ export async function startVinDecoderFake(port = Number(process.env.VIN_DECODE_P
 // With a hosted decoder configured, the fake stays off.
 export const vinDecoderFake: LocalService = {
 	start: async () =>
-		process.env.VIN_DECODE_URL
-			? { name: 'VIN decoder: VIN_DECODE_URL is set, so no local fake', url: process.env.VIN_DECODE_URL, stop: async () => {} }
+		config.vin.configuredUrl
+			? { name: 'VIN decoder: VIN_DECODE_URL is set, so no local fake', url: config.vin.configuredUrl, stop: async () => {} }
 			: startVinDecoderFake()
 };

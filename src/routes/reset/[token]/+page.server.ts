@@ -1,20 +1,15 @@
-import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
+import { formAction } from '$lib/server/forms';
 import { resetLinkWorks, resetPassword } from '$lib/server/services/passwordReset';
 import { countLinkPost } from '$lib/server/services/accountTokens';
-import { ServiceError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async ({ params }) => ({ works: await resetLinkWorks(params.token) });
 
 export const actions: Actions = {
-	default: async ({ params, request, getClientAddress }) => {
-		try {
+	default: async ({ params, request, getClientAddress }) =>
+		formAction(request, async (posted) => {
 			await countLinkPost(getClientAddress());
-			const { email } = await resetPassword(params.token, Object.fromEntries(await request.formData()));
+			const { email } = await resetPassword(params.token, Object.fromEntries(posted));
 			return { done: email };
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { errors: err.fieldErrors ?? { form: err.message } });
-			throw err;
-		}
-	}
+		})
 };

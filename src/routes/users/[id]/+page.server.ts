@@ -1,10 +1,10 @@
-import { error, fail } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { hasRole, requireRole } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/services/revisions';
 import { changesFilter } from '$lib/server/services/changes';
 import { activeBlockFor, blockUser, liftBlock } from '$lib/server/services/blocks';
-import { ServiceError } from '$lib/server/errors';
+import { formAction } from '$lib/server/forms';
 import { User } from '$lib/server/db/models';
 
 function personId(raw: string): number {
@@ -38,24 +38,20 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 export const actions: Actions = {
 	block: async ({ locals, params, request }) => {
 		const moderator = requireRole(locals, 'moderator');
-		const form = Object.fromEntries(await request.formData());
-		const values = { reason: String(form.reason ?? ''), until: String(form.until ?? '') };
-		try {
-			const block = await blockUser(personId(params.id), form, moderator);
-			return { message: `Blocked from editing until ${block.until.slice(0, 10)}.` };
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { values, errors: err.fieldErrors ?? { form: err.message } });
-			throw err;
-		}
+		return formAction(
+			request,
+			async (posted) => {
+				const block = await blockUser(personId(params.id), Object.fromEntries(posted), moderator);
+				return { message: `Blocked from editing until ${block.until.slice(0, 10)}.` };
+			},
+			{ values: ['reason', 'until'] }
+		);
 	},
-	lift: async ({ locals, params }) => {
+	lift: async ({ locals, params, request }) => {
 		const moderator = requireRole(locals, 'moderator');
-		try {
+		return formAction(request, async () => {
 			const lifted = await liftBlock(personId(params.id), moderator);
 			return { message: lifted ? 'Block lifted; they can edit again.' : 'There was no block in force.' };
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { errors: { form: err.message } });
-			throw err;
-		}
+		});
 	}
 };

@@ -1,9 +1,10 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
+import { ServiceError } from '$lib/server/errors';
+import { formAction, textFields } from '$lib/server/forms';
 import { catalogue } from '$lib/server/services/vehicles';
 import { createVehicle } from '$lib/server/services/revisions';
-import { ServiceError } from '$lib/server/errors';
 import { CONTENT_SCHEMA_VERSION } from '$lib/domain/content/schema';
 import { vehicleSlug } from '$lib/domain/slug';
 
@@ -30,39 +31,45 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 
 const year = (v: string) => (v.trim() === '' ? undefined : Number(v.trim()));
 
+function identityFrom(values: Values) {
+	return {
+		make: values.make,
+		model: values.model,
+		yearFrom: year(values.yearFrom),
+		yearTo: year(values.yearTo) ?? year(values.yearFrom),
+		body: values.body,
+		market: values.market,
+		aliases: values.aliases
+			.split(/\r?\n/)
+			.map((a) => a.trim())
+			.filter(Boolean)
+	};
+}
+
+/** What was typed, and on a clash the address of the page that already covers it. */
+function typedAgain(posted: FormData, refusal: unknown): Values & { existing: string | null } {
+	const values = textFields(posted, FIELDS) as Values;
+	const identity = identityFrom(values);
+	const clash = refusal instanceof ServiceError && refusal.status === 409;
+	const existing =
+		clash && typeof identity.yearFrom === 'number' && typeof identity.yearTo === 'number'
+			? vehicleSlug({ ...identity, yearFrom: identity.yearFrom, yearTo: identity.yearTo })
+			: null;
+	return { ...values, existing };
+}
+
 export const actions: Actions = {
 	default: async ({ locals, request }) => {
 		const user = requireRole(locals, 'editor');
-		const form = await request.formData();
-		const values = Object.fromEntries(FIELDS.map((f) => [f, String(form.get(f) ?? '')])) as Values;
-		const identity = {
-			make: values.make,
-			model: values.model,
-			yearFrom: year(values.yearFrom),
-			yearTo: year(values.yearTo) ?? year(values.yearFrom),
-			body: values.body,
-			market: values.market,
-			aliases: values.aliases
-				.split(/\r?\n/)
-				.map((a) => a.trim())
-				.filter(Boolean)
-		};
-		let slug: string;
-		try {
-			({ slug } = await createVehicle({ schemaVersion: CONTENT_SCHEMA_VERSION, identity }, user, 'New page'));
-		} catch (err) {
-			if (!(err instanceof ServiceError)) throw err;
-			const errors: Record<string, string> = {};
-			for (const [path, message] of Object.entries(err.fieldErrors ?? {})) {
-				const field = path.replace(/^identity\./, '').split('.')[0];
-				errors[field] ??= message;
-			}
-			const existing =
-				err.status === 409 && typeof identity.yearFrom === 'number' && typeof identity.yearTo === 'number'
-					? vehicleSlug({ ...identity, yearFrom: identity.yearFrom, yearTo: identity.yearTo })
-					: null;
-			return fail(err.status, { values, errors, message: err.message, existing });
-		}
-		redirect(303, `/vehicles/${slug}/edit?created=1`);
+		return formAction(
+			request,
+			async (posted) => {
+				const identity = identityFrom(textFields(posted, FIELDS) as Values);
+				const { slug } = await createVehicle({ schemaVersion: CONTENT_SCHEMA_VERSION, identity }, user, 'New page');
+				redirect(303, `/vehicles/${slug}/edit?created=1`);
+			},
+			// The service names content paths ("identity.yearTo"); the form names inputs ("yearTo").
+			{ values: typedAgain, inputName: (path) => path.replace(/^identity\./, '').split('.')[0] }
+		);
 	}
 };

@@ -1,10 +1,10 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
-import { deletePart, requirePart, updatePart } from '$lib/server/services/parts';
-import { ServiceError } from '$lib/server/errors';
-import { emptyPartForm, partFieldsFromForm, partFormValues, readPartForm } from '$lib/domain/part';
+import { formAction } from '$lib/server/forms';
+import { deletePart, partFromForm, postedPartForm, requirePart, updatePart } from '$lib/server/services/parts';
+import { partFormValues } from '$lib/domain/part';
 
 function partId(raw: string): number {
 	const id = Number(raw);
@@ -27,28 +27,24 @@ export const actions: Actions = {
 	save: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'moderator');
 		const id = partId(params.id);
-		const form = await request.formData();
-		const unit = form.get('unit') === 'in' ? 'in' : 'mm';
-		const fields = partFieldsFromForm(form.entries());
-		const values = { ...emptyPartForm(), ...fields };
-		const read = readPartForm(fields, unit);
-		if (!read.ok) return fail(400, { values, errors: read.errors });
-		try {
-			await updatePart(id, read.part, user);
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { values, errors: { form: err.message, ...(err.fieldErrors ?? {}) } });
-			throw err;
-		}
-		redirect(303, `/parts/${id}?saved=1`);
+		return formAction(
+			request,
+			async (posted) => {
+				await updatePart(id, partFromForm(posted), user);
+				redirect(303, `/parts/${id}?saved=1`);
+			},
+			{ action: 'save', values: postedPartForm }
+		);
 	},
-	delete: async ({ locals, params }) => {
+	delete: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'moderator');
-		try {
-			await deletePart(partId(params.id), user);
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { message: err.message });
-			throw err;
-		}
-		redirect(303, '/parts?deleted=1');
+		return formAction(
+			request,
+			async () => {
+				await deletePart(partId(params.id), user);
+				redirect(303, '/parts?deleted=1');
+			},
+			{ action: 'delete' }
+		);
 	}
 };

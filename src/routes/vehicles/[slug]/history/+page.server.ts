@@ -1,53 +1,42 @@
-import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
+import { formAction } from '$lib/server/forms';
 import { requireVehicle } from '$lib/server/services/vehicles';
 import { restoreRevision, setProtection, setRevisionHidden } from '$lib/server/services/revisions';
-import { ServiceError } from '$lib/server/errors';
 
 const revisionRef = z.object({ revisionId: z.coerce.number().int().positive('Pick a revision.') });
-
-async function moderate<T>(run: () => Promise<T>) {
-	try {
-		return await run();
-	} catch (err) {
-		if (err instanceof ServiceError) return fail(err.status, { message: err.message });
-		throw err;
-	}
-}
+const hideForm = revisionRef.extend({
+	hidden: z.enum(['true', 'false']),
+	reason: z.string().trim().max(300, 'Keep the reason under 300 characters.').default('')
+});
+const protectForm = z.object({ protection: z.enum(['none', 'moderators'], { error: 'Choose who may edit.' }) });
 
 export const actions: Actions = {
 	restore: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'moderator');
-		const parsed = revisionRef.safeParse(Object.fromEntries(await request.formData()));
-		if (!parsed.success) return fail(400, { message: parsed.error.issues[0].message });
-		return moderate(async () => {
+		return formAction(request, async (posted) => {
+			const { revisionId } = revisionRef.parse(Object.fromEntries(posted));
 			const vehicle = await requireVehicle(params.slug);
-			const saved = await restoreRevision(vehicle.id, parsed.data.revisionId, user);
-			return { message: `Restored revision ${parsed.data.revisionId} as new revision ${saved.revisionId}.` };
+			const saved = await restoreRevision(vehicle.id, revisionId, user);
+			return { message: `Restored revision ${revisionId} as new revision ${saved.revisionId}.` };
 		});
 	},
 	hide: async ({ locals, request }) => {
 		const user = requireRole(locals, 'moderator');
-		const parsed = revisionRef
-			.extend({ hidden: z.enum(['true', 'false']), reason: z.string().trim().max(300, 'Keep the reason under 300 characters.').default('') })
-			.safeParse(Object.fromEntries(await request.formData()));
-		if (!parsed.success) return fail(400, { message: parsed.error.issues[0].message });
-		return moderate(async () => {
-			const hidden = parsed.data.hidden === 'true';
-			await setRevisionHidden(parsed.data.revisionId, hidden, parsed.data.reason, user);
-			return { message: hidden ? `Revision ${parsed.data.revisionId} hidden.` : `Revision ${parsed.data.revisionId} shown again.` };
+		return formAction(request, async (posted) => {
+			const { revisionId, hidden, reason } = hideForm.parse(Object.fromEntries(posted));
+			await setRevisionHidden(revisionId, hidden === 'true', reason, user);
+			return { message: hidden === 'true' ? `Revision ${revisionId} hidden.` : `Revision ${revisionId} shown again.` };
 		});
 	},
 	protect: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'moderator');
-		const parsed = z.object({ protection: z.enum(['none', 'moderators'], { error: 'Choose who may edit.' }) }).safeParse(Object.fromEntries(await request.formData()));
-		if (!parsed.success) return fail(400, { message: parsed.error.issues[0].message });
-		return moderate(async () => {
+		return formAction(request, async (posted) => {
+			const { protection } = protectForm.parse(Object.fromEntries(posted));
 			const vehicle = await requireVehicle(params.slug);
-			await setProtection(vehicle.id, parsed.data.protection, user);
-			return { message: parsed.data.protection === 'moderators' ? 'Page protected: only moderators can edit it now.' : 'Protection removed: editors can edit again.' };
+			await setProtection(vehicle.id, protection, user);
+			return { message: protection === 'moderators' ? 'Page protected: only moderators can edit it now.' : 'Protection removed: editors can edit again.' };
 		});
 	}
 };

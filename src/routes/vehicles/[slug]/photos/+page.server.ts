@@ -1,4 +1,4 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
@@ -12,8 +12,9 @@ import {
 	photosBySection,
 	removePhotoFromVehicle
 } from '$lib/server/services/photos';
-import { ACCEPTED_NAMES, formatBytes, photoLimits } from '$lib/server/storage/renditions';
-import { ServiceError } from '$lib/server/errors';
+import { ACCEPTED_NAMES, formatBytes } from '$lib/server/storage/renditions';
+import { config } from '$lib/server/config';
+import { formAction, textFields } from '$lib/server/forms';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = requireRole(locals, 'editor');
@@ -23,7 +24,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	const { vehicle } = found;
 	const revision = await currentRevision(vehicle);
 	if (!revision) error(404, 'This vehicle page has no saved revision yet.');
-	const limits = photoLimits();
+	const limits = config.photos;
 	return {
 		vehicle: { slug: vehicle.slug, title: vehicle.title, protection: vehicle.protection },
 		revisionId: revision.id,
@@ -33,77 +34,59 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	};
 };
 
-const text = (v: FormDataEntryValue | null) => (typeof v === 'string' ? v : '');
-
 const photoRef = z.object({
 	photoId: z.string().refine(isPhotoId, { error: 'Pick a photo on this page.' }),
 	baseRevisionId: z.coerce.number().int().positive({ error: 'Reload the page and try again.' })
 });
 
-type Outcome = { form: 'upload' | 'caption' | 'remove'; message: string; revisionId: number; photoId?: string };
-
-/** Service refusals come back to the form that caused them, with what was typed kept. */
-async function attempt(run: () => Promise<Outcome>, keep: Record<string, unknown>) {
-	try {
-		return await run();
-	} catch (err) {
-		if (err instanceof ServiceError) return fail(err.status, { ...keep, message: err.message, errors: err.fieldErrors ?? {} });
-		throw err;
-	}
-}
+const DETAILS = ['section', 'caption', 'alt'] as const;
 
 export const actions: Actions = {
 	upload: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'editor');
-		const form = await request.formData();
-		const values = { section: text(form.get('section')), caption: text(form.get('caption')), alt: text(form.get('alt')) };
-		// A file input left empty still posts one nameless, zero-byte part.
-		const files = form.getAll('files').filter((f): f is File => typeof f !== 'string' && (f.name !== '' || f.size > 0));
-		return attempt(
-			async () => {
+		return formAction(
+			request,
+			async (posted) => {
+				// A file input left empty still posts one nameless, zero-byte part.
+				const files = posted.getAll('files').filter((f): f is File => typeof f !== 'string' && (f.name !== '' || f.size > 0));
 				const vehicle = await requireVehicle(params.slug);
 				const uploads = await Promise.all(files.map(async (f) => ({ name: f.name, bytes: new Uint8Array(await f.arrayBuffer()) })));
-				const added = await addPhotosToVehicle(vehicle.id, uploads, values, user);
+				const added = await addPhotosToVehicle(vehicle.id, uploads, textFields(posted, DETAILS), user);
 				const n = added.photos.length;
-				return { form: 'upload' as const, message: `${n === 1 ? 'Photo' : `${n} photos`} added as revision ${added.revisionId}.`, revisionId: added.revisionId };
+				return { action: 'upload', message: `${n === 1 ? 'Photo' : `${n} photos`} added as revision ${added.revisionId}.`, revisionId: added.revisionId };
 			},
-			{ form: 'upload', values }
+			{ action: 'upload', values: DETAILS }
 		);
 	},
 	caption: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'editor');
-		const form = await request.formData();
-		const values = { section: text(form.get('section')), caption: text(form.get('caption')), alt: text(form.get('alt')) };
-		const ref = photoRef.safeParse({ photoId: text(form.get('photoId')), baseRevisionId: text(form.get('baseRevisionId')) });
-		if (!ref.success) return fail(400, { form: 'caption', message: ref.error.issues[0].message, errors: {} });
-		const { photoId, baseRevisionId } = ref.data;
-		return attempt(
-			async () => {
+		return formAction(
+			request,
+			async (posted) => {
+				const { photoId, baseRevisionId } = photoRef.parse(textFields(posted, ['photoId', 'baseRevisionId']));
 				const vehicle = await requireVehicle(params.slug);
-				const saved = await editPhotoDetails(vehicle.id, photoId, { baseRevisionId, details: values }, user);
-				return { form: 'caption' as const, photoId, message: `Photo details saved as revision ${saved.revisionId}.`, revisionId: saved.revisionId };
+				const saved = await editPhotoDetails(vehicle.id, photoId, { baseRevisionId, details: textFields(posted, DETAILS) }, user);
+				return { action: 'caption', photoId, message: `Photo details saved as revision ${saved.revisionId}.`, revisionId: saved.revisionId };
 			},
-			{ form: 'caption', photoId, values }
+			{ action: 'caption', values: [...DETAILS, 'photoId'] }
 		);
 	},
 	remove: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'editor');
-		const form = await request.formData();
-		const ref = photoRef.safeParse({ photoId: text(form.get('photoId')), baseRevisionId: text(form.get('baseRevisionId')) });
-		if (!ref.success) return fail(400, { form: 'remove', message: ref.error.issues[0].message, errors: {} });
-		const { photoId, baseRevisionId } = ref.data;
-		return attempt(
-			async () => {
+		return formAction(
+			request,
+			async (posted) => {
+				const { photoId, baseRevisionId } = photoRef.parse(textFields(posted, ['photoId', 'baseRevisionId']));
 				const vehicle = await requireVehicle(params.slug);
 				const saved = await removePhotoFromVehicle(vehicle.id, photoId, { baseRevisionId }, user);
 				return {
-					form: 'remove' as const,
+					action: 'remove',
 					photoId,
 					message: `Photo removed from the page as revision ${saved.revisionId}. Earlier revisions still show it, and restoring one brings it back.`,
 					revisionId: saved.revisionId
 				};
 			},
-			{ form: 'remove', photoId }
+			{ action: 'remove', values: ['photoId'] }
 		);
 	}
 };

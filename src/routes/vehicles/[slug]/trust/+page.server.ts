@@ -1,9 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { safeNext } from '$lib/server/auth/redirects';
 import { asHttpError } from '$lib/server/http';
-import { ServiceError } from '$lib/server/errors';
+import { formAction } from '$lib/server/forms';
 import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
 import { confirmPage, flaggableFields, flagField, trustSummary } from '$lib/server/services/trust';
 
@@ -32,31 +32,27 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 export const actions: Actions = {
 	confirm: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'viewer');
-		const form = await request.formData();
-		let slug: string;
-		try {
-			const vehicle = await requireVehicle(params.slug);
-			slug = vehicle.slug;
-			await confirmPage(vehicle.id, { revisionId: form.get('revisionId') || undefined, note: String(form.get('note') ?? '') }, user);
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { action: 'confirm', message: err.message, errors: err.fieldErrors ?? {} });
-			throw err;
-		}
-		redirect(303, backTo(form, slug, 'confirmed'));
+		return formAction(
+			request,
+			async (posted) => {
+				const vehicle = await requireVehicle(params.slug);
+				await confirmPage(vehicle.id, { revisionId: posted.get('revisionId') || undefined, note: String(posted.get('note') ?? '') }, user);
+				redirect(303, backTo(posted, vehicle.slug, 'confirmed'));
+			},
+			{ action: 'confirm' }
+		);
 	},
 	flag: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'viewer');
-		const form = await request.formData();
-		const values = { fieldPath: String(form.get('fieldPath') ?? ''), note: String(form.get('note') ?? '') };
-		let slug: string;
-		try {
-			const vehicle = await requireVehicle(params.slug);
-			slug = vehicle.slug;
-			await flagField(vehicle.id, { ...values, revisionId: form.get('revisionId') || undefined }, user);
-		} catch (err) {
-			if (err instanceof ServiceError) return fail(err.status, { action: 'flag', message: err.message, values, errors: err.fieldErrors ?? {} });
-			throw err;
-		}
-		redirect(303, backTo(form, slug, 'flagged'));
+		return formAction(
+			request,
+			async (posted) => {
+				const vehicle = await requireVehicle(params.slug);
+				const flag = { fieldPath: String(posted.get('fieldPath') ?? ''), note: String(posted.get('note') ?? '') };
+				await flagField(vehicle.id, { ...flag, revisionId: posted.get('revisionId') || undefined }, user);
+				redirect(303, backTo(posted, vehicle.slug, 'flagged'));
+			},
+			{ action: 'flag', values: ['fieldPath', 'note'] }
+		);
 	}
 };
