@@ -4,7 +4,7 @@ import { closeDb, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
 import { db } from '../../src/lib/server/db';
 import { emptyContent, type VehicleContent } from '../../src/lib/domain/content/schema';
-import { createVehicle, listRevisions, restoreRevision, revisionById, saveRevision, setRevisionHidden } from '../../src/lib/server/services/revisions';
+import { createVehicle, listRevisions, restoreRevision, revisionById, saveRevision, setRevisionHidden, type StoredRevision } from '../../src/lib/server/services/revisions';
 import { measurementOrigins, placeReaders } from '../../src/lib/server/services/evidence';
 import { requireVehicle } from '../../src/lib/server/services/vehicles';
 import { NOTES_RENDERER_VERSION } from '../../src/lib/server/services/rendering';
@@ -181,7 +181,7 @@ describe('hidden revisions', () => {
 				else hidden.delete(victim);
 			}
 			const e = await evidence('ostrel-eske-2014-2019-wagon');
-			const visible = [];
+			const visible: StoredRevision[] = [];
 			for (const id of [...ids].reverse()) if (!hidden.has(id)) visible.push((await revisionById(id))!);
 			// From the newest visible revision back, while the figures stay equal.
 			for (const [key, read] of Object.entries(figures)) {

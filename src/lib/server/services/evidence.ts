@@ -26,21 +26,30 @@ export type Evidence = {
  * credit goes to the oldest visible revision after the last visible one whose figures differ. When a
  * hidden edit changed a place and a later edit put the figures back, the credit stays with whoever
  * entered them before the hidden edit. The current revision is never hidden.
+ *
+ * Usually the revision that set the figures and the one before it are both visible, and the answer is
+ * that revision, found by primary key; only otherwise does the statement step over the page's visible
+ * revisions (an index range on vehicle, hidden, id).
  */
 const ORIGINS_SQL = `
-SELECT o.part, m.id, m.created_at AS createdAt, u.name AS authorName
-FROM revision_origins o
-JOIN revisions m ON m.id = (
-	SELECT MIN(v.id) FROM revisions v
-	WHERE v.vehicle_id = :vehicleId AND v.hidden = 0 AND v.id <= :current AND v.id > COALESCE((
-		SELECT b.id FROM revisions b
-		WHERE b.vehicle_id = :vehicleId AND b.hidden = 0 AND b.id < o.origin_revision_id
-			AND NOT EXISTS (SELECT 1 FROM revision_origins x WHERE x.revision_id = b.id AND x.part = o.part AND x.digest = o.digest)
-		ORDER BY b.id DESC LIMIT 1
-	), 0)
-)
-LEFT JOIN users u ON u.id = m.author_id
-WHERE o.revision_id = :current AND o.part IN (:parts)`;
+SELECT t.part, m.id, m.created_at AS createdAt, u.name AS authorName
+FROM (
+	SELECT o.part, CASE WHEN og.hidden = 0 AND (pa.id IS NULL OR pa.hidden = 0) THEN og.id ELSE (
+		SELECT MIN(v.id) FROM revisions v
+		WHERE v.vehicle_id = :vehicleId AND v.hidden = 0 AND v.id <= :current AND v.id > COALESCE((
+			SELECT b.id FROM revisions b
+			WHERE b.vehicle_id = :vehicleId AND b.hidden = 0 AND b.id < o.origin_revision_id
+				AND NOT EXISTS (SELECT 1 FROM revision_origins x WHERE x.revision_id = b.id AND x.part = o.part AND x.digest = o.digest)
+			ORDER BY b.id DESC LIMIT 1
+		), 0)
+	) END AS credit
+	FROM revision_origins o
+	JOIN revisions og ON og.id = o.origin_revision_id
+	LEFT JOIN revisions pa ON pa.id = og.parent_id
+	WHERE o.revision_id = :current AND o.part IN (:parts)
+) t
+JOIN revisions m ON m.id = t.credit
+LEFT JOIN users u ON u.id = m.author_id`;
 
 /** Who entered the figures now shown for each place, by evidence key (the keys of `places`). */
 export async function measurementOrigins(vehicle: VehicleSummary, places: Readonly<Record<string, unknown>>): Promise<Record<string, Evidence>> {
