@@ -18,13 +18,13 @@ type Outline = Record<SectionKey, { empty: boolean; notes: boolean }>;
 /** A body with what every view of it hands out, worked out once. */
 type CachedBody = { body: VehicleBody; outline: Outline; fragments: Record<string, string> };
 
-// A revision never changes, so its figures, tables and notes are rendered once per unit system and kept:
-// a page view then only renders what depends on the reader (header, trust marks, watch button).
+// A body depends on the content alone, so it is rendered once per content and unit system and kept (a
+// restore shares its revision's): a page view then only renders what depends on the reader.
 const cache = new Map<string, CachedBody>();
 const CACHE_LIMIT = 2_000;
 
 export function vehicleBody(revision: StoredRevision, units: UnitSystem): CachedBody {
-	const key = `${revision.id}:${units}`;
+	const key = `${revision.sha256}:${units}`;
 	const hit = cache.get(key);
 	if (hit) return hit;
 	const { content, rendered } = revision;

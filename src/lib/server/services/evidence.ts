@@ -1,7 +1,7 @@
-import { Op } from 'sequelize';
-import { Revision, User } from '../db/models';
+import { QueryTypes } from 'sequelize';
+import { db } from '../db';
 import type { VehicleContent } from '../../domain/content/schema';
-import { revisionById } from './revisions';
+import { placeFigures } from '../../domain/origins';
 import { currentRevision, type VehicleSummary } from './vehicles';
 
 // Who measured the figures a page shows now, and in which revision.
@@ -15,77 +15,74 @@ export type Evidence = {
 	measuredInRevisionId: number;
 	measuredBy: string;
 	measuredAt: string;
-	/** True when the walk back stopped at its limit: the figures may be older still. */
+	/** True when the figures may be older than the revision named. The whole history is recorded, so never. */
 	orAtLeastSince: boolean;
 };
 
-const HISTORY_WALK_LIMIT = 200;
-
-/**
- * Who entered the figures now shown for each place. Walks back from the current revision while a
- * place's figures stay the same; hidden revisions are skipped, as their authors are not shown.
+/*
+ * One look-up over revision_origins (see history/origins.ts). For each place the current revision
+ * records the revision that set its figures. Hidden revisions are passed over, as their authors are
+ * not shown: the line of revisions with these figures runs back through visible revisions only, so the
+ * credit goes to the oldest visible revision after the last visible one whose figures differ. When a
+ * hidden edit changed a place and a later edit put the figures back, the credit stays with whoever
+ * entered them before the hidden edit. The current revision is never hidden.
+ *
+ * Usually the revision that set the figures and the one before it are both visible, and the answer is
+ * that revision, found by primary key; only otherwise does the statement step over the page's visible
+ * revisions (an index range on vehicle, hidden, id).
  */
-export async function measurementOrigins(
-	vehicle: VehicleSummary,
-	places: Record<string, (content: VehicleContent) => unknown>
-): Promise<Record<string, Evidence>> {
+const ORIGINS_SQL = `
+SELECT t.part, m.id, m.created_at AS createdAt, u.name AS authorName
+FROM (
+	SELECT o.part, CASE WHEN og.hidden = 0 AND (pa.id IS NULL OR pa.hidden = 0) THEN og.id ELSE (
+		SELECT MIN(v.id) FROM revisions v
+		WHERE v.vehicle_id = :vehicleId AND v.hidden = 0 AND v.id <= :current AND v.id > COALESCE((
+			SELECT b.id FROM revisions b
+			WHERE b.vehicle_id = :vehicleId AND b.hidden = 0 AND b.id < o.origin_revision_id
+				AND NOT EXISTS (SELECT 1 FROM revision_origins x WHERE x.revision_id = b.id AND x.part = o.part AND x.digest = o.digest)
+			ORDER BY b.id DESC LIMIT 1
+		), 0)
+	) END AS credit
+	FROM revision_origins o
+	JOIN revisions og ON og.id = o.origin_revision_id
+	LEFT JOIN revisions pa ON pa.id = og.parent_id
+	WHERE o.revision_id = :current AND o.part IN (:parts)
+) t
+JOIN revisions m ON m.id = t.credit
+LEFT JOIN users u ON u.id = m.author_id`;
+
+/** Who entered the figures now shown for each place, by evidence key (the keys of `places`). */
+export async function measurementOrigins(vehicle: VehicleSummary, places: Readonly<Record<string, unknown>>): Promise<Record<string, Evidence>> {
 	const current = await currentRevision(vehicle);
 	if (!current) return {};
-	const history = await Revision.findAll({
-		where: { vehicleId: vehicle.id, hidden: false, id: { [Op.lte]: current.id } },
-		attributes: ['id', 'createdAt', 'authorId'],
-		include: [{ model: User, as: 'author', attributes: ['name'] }],
-		order: [['id', 'DESC']],
-		limit: HISTORY_WALK_LIMIT
-	});
 	const keys = Object.keys(places);
-	const now = Object.fromEntries(keys.map((k) => [k, JSON.stringify(places[k](current.content) ?? null)]));
-	const origin: Record<string, { id: number; by: string; at: Date }> = {};
-	const open = new Set(keys);
-	for (const row of history) {
-		if (open.size === 0) break;
-		const rev = Number(row.id) === current.id ? current : await revisionById(Number(row.id));
-		if (!rev) continue;
-		for (const k of [...open]) {
-			if (JSON.stringify(places[k](rev.content) ?? null) === now[k]) {
-				origin[k] = { id: rev.id, by: (row as Revision & { author?: User | null }).author?.name ?? 'unknown', at: row.createdAt };
-			} else {
-				open.delete(k);
-			}
-		}
-	}
+	if (keys.length === 0) return {};
+	const rows = await db().query<{ part: string; id: number | string; createdAt: Date; authorName: string | null }>(ORIGINS_SQL, {
+		replacements: { vehicleId: vehicle.id, current: current.id, parts: keys },
+		type: QueryTypes.SELECT
+	});
+	const found = new Map(rows.map((r) => [r.part, r]));
 	const out: Record<string, Evidence> = {};
 	for (const k of keys) {
-		const o = origin[k] ?? { id: current.id, by: current.authorName, at: current.createdAt };
+		const o = found.get(k);
 		out[k] = {
 			revisionId: current.id,
 			changedBy: current.authorName,
 			changedAt: current.createdAt.toISOString(),
-			measuredInRevisionId: o.id,
-			measuredBy: o.by,
-			measuredAt: o.at.toISOString(),
-			orAtLeastSince: open.has(k) && history.length >= HISTORY_WALK_LIMIT
+			measuredInRevisionId: o ? Number(o.id) : current.id,
+			measuredBy: o ? (o.authorName ?? 'unknown') : current.authorName,
+			measuredAt: (o ? new Date(o.createdAt) : current.createdAt).toISOString(),
+			orAtLeastSince: false
 		};
 	}
 	return out;
 }
 
-/** Evidence keys the fit screen and job sheet use: "seat:<id>", "dash", "speaker:<id>". */
+/** Evidence keys the fit screen and job sheet use ("seat:<id>", "dash", "speaker:<id>"), each reading its figures. */
 export function placeReaders(content: VehicleContent): Record<string, (c: VehicleContent) => unknown> {
-	const readers: Record<string, (c: VehicleContent) => unknown> = {
-		dash: (c) => [c.dash.opening, c.dash.depthMm]
-	};
-	for (const s of content.seats.spaces) {
-		readers[`seat:${s.id}`] = (c) => {
-			const e = c.seats.spaces.find((x) => x.id === s.id);
-			return e ? [e.seat, e.lengthMm, e.widthMm, e.heightMm] : null;
-		};
-	}
-	for (const l of content.speakers.locations) {
-		readers[`speaker:${l.id}`] = (c) => {
-			const e = c.speakers.locations.find((x) => x.id === l.id);
-			return e ? [e.cutoutMm, e.depthMm] : null;
-		};
+	const readers: Record<string, (c: VehicleContent) => unknown> = {};
+	for (const key of Object.keys(placeFigures(content))) {
+		if (key === 'dash' || key.startsWith('seat:') || key.startsWith('speaker:')) readers[key] = (c) => placeFigures(c)[key] ?? null;
 	}
 	return readers;
 }

@@ -1,14 +1,16 @@
 import { createHash } from 'node:crypto';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 import { db } from '../db';
-import { Make, Revision, User, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
+import { Make, RenderedNotesRow, Revision, User, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
 import { canonicalJson, formatZodIssues, parseContent, SECTION_KEYS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
 import { mergeContent } from '../../domain/content/merge';
 import { fieldChanges, notesChanges } from '../../domain/content/fieldDiff';
 import { roleAtLeast, type Role } from '../../domain/roles';
 import { slugify, vehicleSlug } from '../../domain/slug';
 import type { SessionUser } from '../../domain/sessionUser';
-import { renderNotes, type RenderedNotes } from './rendering';
+import { ensureRenderedNotes, NOTES_RENDERER_VERSION, storeRenderedNotes, type RenderedNotes } from './rendering';
+import { recordOrigins } from '../history/origins';
+import { sectionPart } from '../../domain/origins';
 import { recordAudit } from './audit';
 import { announceRevision, announceVehicleChange } from '../events';
 import { EditConflictError, NoChangeError, ServiceError } from '../errors';
@@ -42,7 +44,7 @@ function remember(rev: StoredRevision): StoredRevision {
 	return rev;
 }
 
-function toStored(row: Revision & { author?: User | null }): StoredRevision {
+function toStored(row: Revision & { author?: User | null }, content: VehicleContent, rendered: RenderedNotes): StoredRevision {
 	return {
 		id: Number(row.id),
 		vehicleId: row.vehicleId,
@@ -50,8 +52,8 @@ function toStored(row: Revision & { author?: User | null }): StoredRevision {
 		authorId: row.authorId,
 		authorName: row.author?.name ?? 'unknown',
 		summary: row.summary,
-		content: JSON.parse(row.content) as VehicleContent,
-		rendered: JSON.parse(row.rendered) as RenderedNotes,
+		content,
+		rendered,
 		sha256: row.sha256,
 		size: row.size,
 		sizeDelta: row.sizeDelta,
@@ -65,8 +67,19 @@ function toStored(row: Revision & { author?: User | null }): StoredRevision {
 export async function revisionById(id: number, transaction?: Transaction): Promise<StoredRevision | null> {
 	const hit = cache.get(id);
 	if (hit && !transaction) return hit;
-	const row = await Revision.findByPk(id, { include: [{ model: User, as: 'author', attributes: ['name'] }], transaction });
-	return row ? remember(toStored(row)) : null;
+	const row = await Revision.findByPk(id, {
+		include: [
+			{ model: User, as: 'author', attributes: ['name'] },
+			{ model: RenderedNotesRow, as: 'renderedNotes', where: { rendererVersion: NOTES_RENDERER_VERSION }, required: false, attributes: ['notes'] }
+		],
+		transaction
+	});
+	if (!row) return null;
+	// Notes are kept by content and renderer: missing after a renderer change, they are rendered once more here.
+	const kept = (row as Revision & { renderedNotes?: RenderedNotesRow | null }).renderedNotes;
+	const content = JSON.parse(row.content) as VehicleContent;
+	const rendered = kept ? (JSON.parse(kept.notes) as RenderedNotes) : await storeRenderedNotes(row.sha256, content, transaction);
+	return remember(toStored(row, content, rendered));
 }
 
 export function validateContent(input: unknown): VehicleContent {
@@ -116,7 +129,9 @@ async function insertRevision(
 	transaction: Transaction
 ): Promise<Revision> {
 	const json = canonicalJson(content);
+	const sha256 = createHash('sha256').update(json).digest('hex');
 	const size = Buffer.byteLength(json);
+	const sections = changedSections(previous?.content ?? null, content);
 	// A moderator's own edit needs no second look.
 	const selfReviewed = roleAtLeast(meta.authorRole, 'moderator');
 	const row = await Revision.create(
@@ -126,17 +141,20 @@ async function insertRevision(
 			authorId: meta.authorId,
 			summary: meta.summary.slice(0, 500),
 			content: json,
-			rendered: JSON.stringify(renderNotes(content)),
-			sha256: createHash('sha256').update(json).digest('hex'),
+			// Notes live in rendered_notes, shared by every revision with this content.
+			rendered: '',
+			sha256,
 			size,
 			sizeDelta: size - (previous?.size ?? 0),
-			sections: changedSections(previous?.content ?? null, content).join(','),
+			sections: sections.join(','),
 			restoresRevisionId: meta.restoresRevisionId ?? null,
 			reviewedBy: selfReviewed ? meta.authorId : null,
 			reviewedAt: selfReviewed ? new Date() : null
 		},
 		{ transaction }
 	);
+	await ensureRenderedNotes(sha256, content, transaction);
+	await recordOrigins(db(), { id: Number(row.id), parentId: previous?.id ?? null, content, sections }, transaction);
 	const photoIds = [...new Set(content.photos.map((p) => p.id))];
 	if (photoIds.length) {
 		await db().query(`INSERT IGNORE INTO revision_photos (photo_id, revision_id) VALUES ${photoIds.map(() => '(?, ?)').join(', ')}`, {
@@ -316,7 +334,13 @@ export async function listRevisions(filter: {
 	const where: Record<string | symbol, unknown> = {};
 	if (filter.vehicleId) where.vehicleId = filter.vehicleId;
 	if (filter.authorId) where.authorId = filter.authorId;
-	if (filter.section) where.sections = { [Op.like]: `%${filter.section}%` };
+	if (filter.section) {
+		// Revisions that changed the section are those it originates in.
+		const part = db().escape(sectionPart(filter.section));
+		where[Op.and] = [
+			literal(`EXISTS (SELECT 1 FROM revision_origins o WHERE o.revision_id = \`Revision\`.\`id\` AND o.part = ${part} AND o.origin_revision_id = o.revision_id)`)
+		];
+	}
 	if (filter.unreviewed) where.reviewedAt = null;
 	const { rows, count } = await Revision.findAndCountAll({
 		where,

@@ -4,6 +4,7 @@ import * as accountsWatchReview from './2026-12-01T14-00-00_accounts_watch_revie
 import * as photos from './2026-12-01T13-00-00_photos';
 import * as rateLimits from './2026-12-01T15-00-00_rate_limits';
 import * as revisionPhotos from './2026-12-01T16-00-00_revision_photos';
+import * as revisionOrigins from './2026-12-05T02-00-00_revision_origins';
 
 /** Every migration, oldest first. Add new ones at the end (see DEVELOPERS.md). */
-export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos];
+export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos, revisionOrigins];

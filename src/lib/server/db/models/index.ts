@@ -13,10 +13,11 @@ import { initBlock, Block } from './Block';
 import { initPart, Part } from './Part';
 import { initConfirmation, Confirmation } from './Confirmation';
 import { initPhoto, Photo } from './Photo';
+import { initRenderedNotes, RenderedNotesRow } from './RenderedNotes';
 
 export { User, Make, VehicleModel, Vehicle, VehicleSlug, Revision, AuditLog, Setting, Part, Confirmation };
 export { AccountToken, Watch, NotificationPreference, PendingNotice, Block };
-export { Photo };
+export { Photo, RenderedNotesRow };
 export type { Role, UserStatus } from './User';
 export { ROLES } from './User';
 export type { Protection } from './Vehicle';
@@ -39,6 +40,7 @@ export function initModels(sequelize: Sequelize) {
 	initPart(sequelize);
 	initConfirmation(sequelize);
 	initPhoto(sequelize);
+	initRenderedNotes(sequelize);
 
 	Make.hasMany(VehicleModel, { foreignKey: 'makeId', as: 'models' });
 	VehicleModel.belongsTo(Make, { foreignKey: 'makeId', as: 'make' });
@@ -59,4 +61,5 @@ export function initModels(sequelize: Sequelize) {
 	Confirmation.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 	Confirmation.belongsTo(Vehicle, { foreignKey: 'vehicleId', as: 'vehicle' });
 	Photo.belongsTo(User, { foreignKey: 'uploaderId', as: 'uploader' });
+	Revision.hasOne(RenderedNotesRow, { sourceKey: 'sha256', foreignKey: 'sha256', as: 'renderedNotes', constraints: false });
 }
