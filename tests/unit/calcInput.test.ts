@@ -36,6 +36,15 @@ describe('calculator forms', () => {
 		expect(!bad.ok && bad.errors).toMatchObject({ currentA: 'Current: "x" is not a number.', powerLength: 'Power run length over 30 m (98 ft) looks like a typo.' });
 	});
 
+	it('reads conductor temperature and the amplifiers’ own fuses, with the stated defaults', () => {
+		const plain = readPowerWire({ currentA: '40', powerLength: '4.8', groundLength: '0.5', volts: '12', maxDropPct: '3' });
+		expect(plain.ok && plain.input).toMatchObject({ tempC: 20, ownFuseA: null });
+		const hot = readPowerWire({ currentA: '40', powerLength: '4.8', groundLength: '0.5', volts: '12', maxDropPct: '3', tempC: '-10', ownFuseA: '60 A' });
+		expect(hot.ok && hot.input).toMatchObject({ tempC: -10, ownFuseA: 60 });
+		const bad = readPowerWire({ currentA: '40', powerLength: '4.8', groundLength: '0.5', volts: '12', maxDropPct: '3', tempC: '400', ownFuseA: 'lots' });
+		expect(!bad.ok && Object.keys(bad.errors).sort()).toEqual(['ownFuseA', 'tempC']);
+	});
+
 	it('reads button lists with resistor codes', () => {
 		// IEC 60062 letter-for-point codes: 2k2 = 2200 Ω, 4R7 = 4.7 Ω
 		expect(readButtons('Volume + = 2k2\nMode: 4R7\n1k', 'Line 1')).toEqual({

@@ -1,4 +1,4 @@
-import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, CHARGING_VOLTS, type AmpCurrentInput, type AmpClass, type PowerWireInput } from './power';
+import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEMP_C, NOMINAL_VOLTS, type AmpCurrentInput, type AmpClass, type PowerWireInput } from './power';
 import { readLength, readOhms } from './content/formData';
 import type { LengthUnit } from './units';
 import type { ControlLine, ESeries } from './ladder';
@@ -49,7 +49,7 @@ const done = <K extends string, T>(errors: Partial<Record<K, string>>, make: () 
 
 export type AmpClassChoice = AmpClass | 'own';
 export type AmpFields = 'watts' | 'channels' | 'ampClass' | 'efficiencyPct' | 'volts';
-export const AMP_DEFAULTS: Record<AmpFields, string> = { watts: '', channels: '4', ampClass: 'D', efficiencyPct: '', volts: String(CHARGING_VOLTS) };
+export const AMP_DEFAULTS: Record<AmpFields, string> = { watts: '', channels: '4', ampClass: 'D', efficiencyPct: '', volts: String(NOMINAL_VOLTS) };
 
 export function readAmpCurrent(f: Fields<AmpFields>): Read<AmpFields, AmpCurrentInput> {
 	const cls = (f.ampClass ?? 'D') as AmpClassChoice;
@@ -67,8 +67,16 @@ export function readAmpCurrent(f: Fields<AmpFields>): Read<AmpFields, AmpCurrent
 
 // ---- Power wire and fuse ----
 
-export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct';
-export const POWER_DEFAULTS: Record<PowerFields, string> = { currentA: '', powerLength: '', groundLength: '0.5', volts: String(CHARGING_VOLTS), maxDropPct: String(ABYC_E11_CRITICAL_DROP_PCT) };
+export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct' | 'tempC' | 'ownFuseA';
+export const POWER_DEFAULTS: Record<PowerFields, string> = {
+	currentA: '',
+	powerLength: '',
+	groundLength: '0.5',
+	volts: String(NOMINAL_VOLTS),
+	maxDropPct: String(ABYC_E11_CRITICAL_DROP_PCT),
+	tempC: String(DEFAULT_CONDUCTOR_TEMP_C),
+	ownFuseA: ''
+};
 
 const length = (text: string | undefined, label: string, unit: LengthUnit, allowZero: boolean): number | string => {
 	const t = (text ?? '').trim();
@@ -90,9 +98,20 @@ export function readPowerWire(f: Fields<PowerFields>, unit: LengthUnit = 'mm'): 
 		powerLength: () => length(f.powerLength, 'Power run length', unit, false),
 		groundLength: () => length(f.groundLength, 'Ground lead length', unit, true),
 		volts: () => readNumber(f.volts, { label: 'Supply voltage', unit: 'V', above: 0, max: 60 }),
-		maxDropPct: () => readNumber(f.maxDropPct, { label: 'Allowed voltage drop', unit: '%', above: 0, max: 100 })
+		maxDropPct: () => readNumber(f.maxDropPct, { label: 'Allowed voltage drop', unit: '%', above: 0, max: 100 }),
+		tempC: () => ((f.tempC ?? '').trim() === '' ? DEFAULT_CONDUCTOR_TEMP_C : readNumber(f.tempC, { label: 'Conductor temperature', unit: '°C', min: -40, max: 150 })),
+		// Left empty when the amplifiers' own fuses are not known.
+		ownFuseA: () => ((f.ownFuseA ?? '').trim() === '' ? 0 : readNumber(f.ownFuseA, { label: "Amplifiers' own fuses", unit: 'A', above: 0, max: 2000 }))
 	});
-	return done(errors, () => ({ currentA: values.currentA, powerLengthM: values.powerLength, groundLengthM: values.groundLength, volts: values.volts, maxDropPct: values.maxDropPct }));
+	return done(errors, () => ({
+		currentA: values.currentA,
+		powerLengthM: values.powerLength,
+		groundLengthM: values.groundLength,
+		volts: values.volts,
+		maxDropPct: values.maxDropPct,
+		tempC: values.tempC,
+		ownFuseA: values.ownFuseA || null
+	}));
 }
 
 // ---- Speaker cable plan ----
