@@ -61,6 +61,16 @@ describe('calculator forms', () => {
 		expect(readResistances('1k, 2k2')).toEqual([1000, 2200]);
 	});
 
+	it('reads the interface circuit of a ladder, with the stated defaults', () => {
+		// IEC 60062 letter-for-point codes: 4k7 = 4700 Ω, 100k = 100,000 Ω
+		const plain = readLadder({ buttons1: '1k', tolerancePct: '5' });
+		expect(plain.ok && plain.input.circuit).toEqual({ pullUpOhms: 4700, vrefV: 5, adcBits: 10, tolerancePct: 5, idleOhms: null });
+		const own = readLadder({ buttons1: '1k', tolerancePct: '1', pullUp: '10k', vref: '3.3', adcBits: '12', idle: '100k' });
+		expect(own.ok && own.input.circuit).toEqual({ pullUpOhms: 10_000, vrefV: 3.3, adcBits: 12, tolerancePct: 1, idleOhms: 100_000 });
+		const bad = readLadder({ buttons1: '1k', tolerancePct: '5', pullUp: '0', vref: 'x', adcBits: '3', idle: 'lots' });
+		expect(!bad.ok && Object.keys(bad.errors).sort()).toEqual(['adcBits', 'idle', 'pullUp', 'vref']);
+	});
+
 	it('reads speaker counts, impedances and banks', () => {
 		expect(readSpeakerCable({ speakers: '4', cores: '4', remote: 'on' })).toEqual({ ok: true, input: { speakers: 4, coresPerCable: 4, includeRemote: true } });
 		expect(readSpeakerCable({ speakers: '4', cores: '1' }).ok).toBe(false);

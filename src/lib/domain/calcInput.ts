@@ -1,7 +1,7 @@
 import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEMP_C, NOMINAL_VOLTS, type AmpCurrentInput, type AmpClass, type PowerWireInput } from './power';
 import { readLength, readOhms } from './content/formData';
 import type { LengthUnit } from './units';
-import type { ControlLine, ESeries } from './ladder';
+import { DEFAULT_CIRCUIT, type ControlLine, type ESeries, type LadderCircuit } from './ladder';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per
 // field. The same readers run on the server (a GET form without JavaScript) and in the browser.
@@ -179,8 +179,31 @@ export function readResistances(text: string | undefined): number[] | string {
 
 // ---- Steering-wheel ladder ----
 
-export type LadderFields = 'line1' | 'buttons1' | 'line2' | 'buttons2' | 'tolerancePct' | 'series';
-export const LADDER_DEFAULTS: Record<LadderFields, string> = { line1: 'Line 1', buttons1: '', line2: 'Line 2', buttons2: '', tolerancePct: '5', series: 'E24' };
+export type LadderFields = 'line1' | 'buttons1' | 'line2' | 'buttons2' | 'tolerancePct' | 'series' | 'pullUp' | 'vref' | 'adcBits' | 'idle';
+export const LADDER_DEFAULTS: Record<LadderFields, string> = {
+	line1: 'Line 1',
+	buttons1: '',
+	line2: 'Line 2',
+	buttons2: '',
+	tolerancePct: String(DEFAULT_CIRCUIT.tolerancePct),
+	series: 'E24',
+	pullUp: '4k7',
+	vref: String(DEFAULT_CIRCUIT.vrefV),
+	adcBits: String(DEFAULT_CIRCUIT.adcBits),
+	idle: 'open'
+};
+
+/** A resistance field: resistor codes allowed; empty takes the default. */
+function readResistance(text: string | undefined, label: string, fallback: number | null, max: number): number | null | string {
+	const t = (text ?? '').trim();
+	if (t === '') return fallback;
+	try {
+		const ohms = readOhms(t, label);
+		return ohms > max ? `${label}: over ${max.toLocaleString('en')} Ω looks like a typo.` : ohms;
+	} catch (e) {
+		return (e as Error).message;
+	}
+}
 
 /** One button a line: "Volume + = 330", "Next: 1k", or a bare "2k2" (named by position). */
 export function readButtons(text: string | undefined, lineName: string): ControlLine | string {
@@ -204,7 +227,7 @@ export function readButtons(text: string | undefined, lineName: string): Control
 	return { name: lineName, buttons };
 }
 
-export function readLadder(f: Fields<LadderFields>): Read<LadderFields, { lines: ControlLine[]; tolerancePct: number; series: ESeries }> {
+export function readLadder(f: Fields<LadderFields>): Read<LadderFields, { lines: ControlLine[]; tolerancePct: number; circuit: LadderCircuit; series: ESeries }> {
 	const errors: Partial<Record<LadderFields, string>> = {};
 	const lines: ControlLine[] = [];
 	for (const [nameKey, buttonsKey] of [
@@ -219,8 +242,24 @@ export function readLadder(f: Fields<LadderFields>): Read<LadderFields, { lines:
 	if (lines.length === 0 && !errors.buttons1 && !errors.buttons2) errors.buttons1 = 'Enter at least one button and its resistance, for example "Volume + = 330".';
 	const tol = readNumber(f.tolerancePct, { label: 'Tolerance', unit: '%', min: 0, max: 50 });
 	if (typeof tol === 'string') errors.tolerancePct = tol;
+	const pullUp = readResistance(f.pullUp, 'Pull-up', DEFAULT_CIRCUIT.pullUpOhms, 10_000_000);
+	if (typeof pullUp === 'string') errors.pullUp = pullUp;
+	else if (!(pullUp !== null && pullUp > 0)) errors.pullUp = 'Pull-up must be more than 0 Ω.';
+	const vref = (f.vref ?? '').trim() === '' ? DEFAULT_CIRCUIT.vrefV : readNumber(f.vref, { label: 'Reference voltage', unit: 'V', above: 0, max: 60 });
+	if (typeof vref === 'string') errors.vref = vref;
+	const bits = (f.adcBits ?? '').trim() === '' ? DEFAULT_CIRCUIT.adcBits : readNumber(f.adcBits, { label: 'ADC resolution', unit: 'bits', whole: true, min: 6, max: 24 });
+	if (typeof bits === 'string') errors.adcBits = bits;
+	// "open", "∞" or nothing: the line reads open circuit when no button is pressed.
+	const idleText = (f.idle ?? '').trim();
+	const idle = /^(open|∞|inf(inity)?|oc)?$/i.test(idleText) ? null : readResistance(idleText, 'Idle line', null, 100_000_000);
+	if (typeof idle === 'string') errors.idle = idle;
 	const series: ESeries = f.series === 'E12' ? 'E12' : 'E24';
-	return done(errors, () => ({ lines, tolerancePct: tol as number, series }));
+	return done(errors, () => ({
+		lines,
+		tolerancePct: tol as number,
+		circuit: { pullUpOhms: pullUp as number, vrefV: vref as number, adcBits: bits as number, tolerancePct: tol as number, idleOhms: idle as number | null },
+		series
+	}));
 }
 
 /** A line as form text, for filling the form from a vehicle page. */

@@ -3,7 +3,7 @@ import { ampCurrent, ABYC_E11_CRITICAL_DROP_PCT, electricalBasis, NOMINAL_VOLTS,
 import { FUSE_CAUTIONS, fuseBasis, fuseKind, fuseNeededA, MAIN_FUSE_MAX_DISTANCE_MM, mainFuse, standardFuseAtLeast, wireAmpacityA, type MainFuseResult } from './fuse';
 import { awgWire, formatAwg, STOCKED_POWER_GAUGES } from './wire';
 import { speakerCablePlan, type SpeakerCablePlan } from './speaker';
-import { ladderReport, suggestSeparator, type ControlLine, type LadderReport, type SeparatorResult } from './ladder';
+import { DEFAULT_CIRCUIT, ladderReport, suggestSeparator, type ControlLine, type LadderReport, type SeparatorResult } from './ladder';
 import { amplifierEfficiency, partBox, type Amplifier, type Part, type Speaker } from './part';
 import { dashFit, pickLocation, pickSpace, seatSpaceFits, speakerLocationFits, type LocationFit, type SpaceFit } from './fitCheck';
 import type { DepthFit } from './fit';
@@ -20,8 +20,6 @@ export const REMOTE_AWG = 18;
 // Speaker leads: keep the loop resistance under about 5 % of the speaker's impedance (common practice).
 export const SPEAKER_LOSS_SHARE = 0.05;
 export const SPEAKER_GAUGES: readonly number[] = [18, 16, 14, 12, 10];
-// Steering-control readings drift with contacts and temperature; ±5 % is the usual allowance (common practice).
-export const LADDER_TOLERANCE_PCT = 5;
 // Car speakers are most often 4 Ω nominal (common practice); used when no chosen speaker says.
 export const NOMINAL_SPEAKER_OHMS = 4;
 
@@ -223,8 +221,8 @@ export function jobSheet(input: JobSheetInput): JobSheet {
 		lines.length > 0
 			? {
 					lines,
-					report: ladderReport(lines, LADDER_TOLERANCE_PCT),
-					separator: lines.length === 2 ? suggestSeparator(lines[0], lines[1], LADDER_TOLERANCE_PCT, 'E24') : null
+					report: ladderReport(lines, DEFAULT_CIRCUIT),
+					separator: lines.length === 2 ? suggestSeparator(lines[0], lines[1], DEFAULT_CIRCUIT, 'E24') : null
 				}
 			: null;
 
