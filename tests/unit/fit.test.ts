@@ -4,7 +4,9 @@ import { unit } from 'mathjs';
 import {
 	DEFAULT_CLEARANCE_MM,
 	DEFAULT_TIGHT_MM,
-	DIN_CHASSIS_MM,
+	DEFAULT_PLUG_ALLOWANCE_MM,
+	DIN_APERTURE_MM,
+	DIN_UNIT_FACE_MM,
 	fitInputSchema,
 	fitVerdict,
 	headUnitFit,
@@ -221,34 +223,61 @@ describe('fitVerdict with sides not measured', () => {
 });
 
 describe('headUnitFit', () => {
-	it('uses the ISO 7736 chassis sizes', () => {
-		// ISO 7736 as widely quoted: single DIN 180 × 50 mm, double DIN 180 × 100 mm
-		expect(DIN_CHASSIS_MM[1]).toEqual({ w: 180, h: 50 });
-		expect(DIN_CHASSIS_MM[2]).toEqual({ w: 180, h: 100 });
+	it('uses the ISO 7736 unit face and dash aperture', () => {
+		// ISO 7736 as widely quoted: unit face 180 × 50 / 180 × 100 mm, aperture 182 × 53 / 182 × 103 mm
+		expect(DIN_UNIT_FACE_MM).toEqual({ 1: { w: 180, h: 50 }, 2: { w: 180, h: 100 } });
+		expect(DIN_APERTURE_MM).toEqual({ 1: { w: 182, h: 53 }, 2: { w: 182, h: 103 } });
 		// the usual American description "7 × 2 in" for single DIN is within 3 mm (from memory; mathjs)
-		expect(Math.abs(DIN_CHASSIS_MM[1].w - unit(7, 'inch').toNumber('mm'))).toBeLessThan(3);
-		expect(Math.abs(DIN_CHASSIS_MM[1].h - unit(2, 'inch').toNumber('mm'))).toBeLessThan(1);
+		expect(Math.abs(DIN_UNIT_FACE_MM[1].w - unit(7, 'inch').toNumber('mm'))).toBeLessThan(3);
+		// plugs and an adapter behind the chassis: about 50 mm (common practice)
+		expect(DEFAULT_PLUG_ALLOWANCE_MM).toBe(50);
 	});
 
 	it.each([
-		// dinSize, chassis depth, opening, dash depth → verdict, needsKit, depth margin (by hand: depth − chassis − 10)
-		[1, 160, 'single-din', 200, 'fits', false, 30],
-		[1, 160, 'single-din', 180, 'tight', false, 10],
-		[1, 160, 'single-din', 170, 'tight', false, 0],
-		[1, 160, 'single-din', 169, 'no-fit', false, -1],
-		[2, 165, 'double-din', 200, 'fits', false, 25],
-		[1, 160, 'double-din', 200, 'fits', true, 30],
-		[2, 165, 'oversize', 200, 'fits', true, 25],
-		[1, 160, 'oversize', 175, 'tight', true, 5]
+		// dinSize, chassis depth, opening, dash depth → verdict, needsKit, depth margin (by hand: depth − chassis − 50 for plugs)
+		[1, 160, 'single-din', 240, 'fits', false, 30],
+		[1, 160, 'single-din', 220, 'tight', false, 10],
+		[1, 160, 'single-din', 210, 'tight', false, 0],
+		[1, 160, 'single-din', 209, 'no-fit', false, -1],
+		[2, 165, 'double-din', 240, 'fits', false, 25],
+		[1, 160, 'double-din', 240, 'fits', true, 30],
+		[2, 165, 'oversize', 240, 'fits', true, 25],
+		[1, 160, 'oversize', 215, 'tight', true, 5]
 	] as const)('%s-DIN %s mm deep in %s %s mm deep → %s', (dinSize, chassisDepthMm, opening, depthMm, verdict, needsKit, margin) => {
 		const r = headUnitFit({ dinSize, chassisDepthMm }, { opening, depthMm });
-		expect(r).toMatchObject({ verdict, needsKit, depthMarginMm: margin });
+		expect(r).toMatchObject({ verdict, needsKit, depthMarginMm: margin, plugAllowanceMm: 50 });
+	});
+
+	it('the plug allowance is its own stated figure', () => {
+		// by hand: 200 − 160 − 30 = 10 → tight; the reason names the allowance
+		const r = headUnitFit({ dinSize: 1, chassisDepthMm: 160 }, { opening: 'single-din', depthMm: 200 }, { plugAllowanceMm: 30 });
+		expect(r).toMatchObject({ verdict: 'tight', depthMarginMm: 10, plugAllowanceMm: 30 });
+		expect(r.reason).toMatch(/after 30 mm for plugs and adapters/);
+	});
+
+	it.each([
+		// recorded opening w × h → verdict, needsKit (ISO 7736 face 180 × 50 / 180 × 100, aperture 182 × 53 / 182 × 103)
+		[1, 182, 53, 'fits', false],
+		[1, 180, 50, 'fits', false],
+		[1, 179, 53, 'no-fit', false],
+		[1, 182, 78, 'fits', true], // a 1.5-DIN opening: a pocket fills the rest
+		[2, 182, 78, 'no-fit', false],
+		[2, 182, 103, 'fits', false],
+		[2, 200, 120, 'fits', true]
+	] as const)('%s-DIN unit in a recorded %s × %s mm opening → %s', (dinSize, w, h, verdict, needsKit) => {
+		const r = headUnitFit({ dinSize, chassisDepthMm: 150 }, { opening: 'oversize', depthMm: 300, openingMm: { w, h } });
+		expect(r).toMatchObject({ verdict, needsKit });
+	});
+
+	it('a recorded opening smaller than the face says so', () => {
+		const r = headUnitFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'double-din', depthMm: 300, openingMm: { w: 182, h: 78 } });
+		expect(r.reason).toMatch(/recorded opening \(182 × 78 mm\) is smaller than the face of a double-DIN unit \(face 180 × 100 mm, aperture 182 × 103 mm\)/);
 	});
 
 	it('refuses a double-DIN unit in a single-DIN opening', () => {
 		const r = headUnitFit({ dinSize: 2, chassisDepthMm: 160 }, { opening: 'single-din', depthMm: 250 });
 		expect(r.verdict).toBe('no-fit');
-		expect(r.reason).toMatch(/double-DIN unit \(180 × 100 mm\) does not go into a single-DIN opening/);
+		expect(r.reason).toMatch(/double-DIN unit \(face 180 × 100 mm, aperture 182 × 103 mm\) does not go into a single-DIN opening \(182 × 53 mm\)/);
 	});
 
 	it('sends an integrated dash to a vehicle-specific kit', () => {
@@ -263,7 +292,8 @@ describe('headUnitFit', () => {
 	});
 
 	it('explains a unit that is too deep', () => {
-		const r = headUnitFit({ dinSize: 1, chassisDepthMm: 160 }, { opening: 'single-din', depthMm: 165 });
+		// by hand: 205 − 160 − 50 = −5
+		const r = headUnitFit({ dinSize: 1, chassisDepthMm: 160 }, { opening: 'single-din', depthMm: 205 });
 		expect(r.reason).toMatch(/5 mm too deep/);
 	});
 

@@ -88,7 +88,8 @@ describe('speakers and head units', () => {
 
 	it('says not measured when the dash opening is not recorded', () => {
 		expect(dashFit({ dinSize: 1, chassisDepthMm: 150 }, { opening: null, depthMm: 200 }).verdict).toBe('not-measured');
-		// 185 − 150 − 10 = 25 mm (by hand)
-		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'double-din', depthMm: 185 })).toMatchObject({ verdict: 'fits', depthMarginMm: 25 });
+		// 225 − 150 − 50 for plugs = 25 mm (by hand); a seat clearance passed along does not change the depth check
+		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'double-din', depthMm: 225 })).toMatchObject({ verdict: 'fits', depthMarginMm: 25 });
+		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'double-din', depthMm: 225 }, { clearanceMm: 40 })).toMatchObject({ depthMarginMm: 25 });
 	});
 });

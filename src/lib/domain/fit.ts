@@ -133,60 +133,96 @@ function partialFit(b: Box, s: Space, c: number): FitResult {
 	return { verdict: 'no-fit', rotated: false, margins, limiting, partial: true };
 }
 
-// ISO 7736 chassis sizes as widely quoted (width × height); the standard's own text was not at hand.
-export const DIN_CHASSIS_MM = { 1: { w: 180, h: 50 }, 2: { w: 180, h: 100 } } as const;
+// ISO 7736 as widely quoted (the standard's own text was not at hand): a unit's face is
+// 180 × 50 mm (double DIN 180 × 100 mm) and the dash aperture it goes into 182 × 53 mm
+// (double DIN 182 × 103 mm).
+export const DIN_UNIT_FACE_MM = { 1: { w: 180, h: 50 }, 2: { w: 180, h: 100 } } as const;
+export const DIN_APERTURE_MM = { 1: { w: 182, h: 53 }, 2: { w: 182, h: 103 } } as const;
+// Room behind the chassis for the harness plugs, the aerial lead and an interface adapter
+// (common practice); its own figure, apart from the clearance a seat check allows.
+export const DEFAULT_PLUG_ALLOWANCE_MM = 50;
+// An opening this much larger than the aperture the unit needs shows a gap: a trim kit or pocket hides it (common practice).
+export const TRIM_KIT_OVER_MM = 3;
 
 export type DinSize = 1 | 2;
 export type DashOpening = 'single-din' | 'double-din' | 'oversize' | 'integrated';
 
 export interface DepthFit {
 	verdict: FitVerdict;
-	/** Depth left behind the chassis after clearance for the harness plugs; null if not measured or no opening. */
+	/** Depth left behind the chassis after the plug allowance; null if not measured or no opening. */
 	depthMarginMm: number | null;
 	/** A dash kit, pocket or trim ring is needed around the unit. */
 	needsKit: boolean;
+	/** The plug and adapter allowance the depth was checked with. */
+	plugAllowanceMm: number;
 	reason: string;
 }
 
+export interface HeadUnitFitOptions {
+	plugAllowanceMm?: number;
+	tightMm?: number;
+}
+
+/**
+ * A head unit against the dash: the face against the opening (its recorded size when there is
+ * one, otherwise the ISO 7736 aperture its type implies), then the depth behind the chassis
+ * with room for the plugs.
+ */
 export function headUnitFit(
 	unit: { dinSize: DinSize; chassisDepthMm: number },
-	dash: { opening: DashOpening; depthMm: number | null },
-	opts: FitOptions = {}
+	dash: { opening: DashOpening; depthMm: number | null; openingMm?: { w: number; h: number } | null },
+	opts: HeadUnitFitOptions = {}
 ): DepthFit {
 	if (unit.dinSize !== 1 && unit.dinSize !== 2) {
 		throw new RangeError('A head unit is single DIN (1) or double DIN (2).');
 	}
 	const chassisDepth = parseInput(dimension('Chassis depth'), unit.chassisDepthMm);
 	const depth = parseInput(measured('Dash depth'), dash.depthMm);
-	const size = DIN_CHASSIS_MM[unit.dinSize];
-	const face = `${unit.dinSize === 1 ? 'single' : 'double'}-DIN unit (${size.w} × ${size.h} mm)`;
+	const plugAllowanceMm = parseInput(allowance('Plug allowance'), opts.plugAllowanceMm) ?? DEFAULT_PLUG_ALLOWANCE_MM;
+	const opened = dash.openingMm ? { w: parseInput(dimension('Opening width'), dash.openingMm.w), h: parseInput(dimension('Opening height'), dash.openingMm.h) } : null;
+	const size = DIN_UNIT_FACE_MM[unit.dinSize];
+	const aperture = DIN_APERTURE_MM[unit.dinSize];
+	const face = `${unit.dinSize === 1 ? 'single' : 'double'}-DIN unit (face ${size.w} × ${size.h} mm, aperture ${aperture.w} × ${aperture.h} mm)`;
+	const base = { plugAllowanceMm };
 
-	if (dash.opening === 'integrated') {
+	if (dash.opening === 'integrated' && !opened) {
 		return {
+			...base,
 			verdict: 'no-fit',
 			depthMarginMm: null,
 			needsKit: true,
 			reason: 'The factory unit is built into the dash; a vehicle-specific dash kit is needed before any DIN unit fits.'
 		};
 	}
-	if (dash.opening === 'single-din' && unit.dinSize === 2) {
-		const reason = `A ${face} does not go into a single-DIN opening.`;
-		return { verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+	let needsKit: boolean;
+	if (opened) {
+		// A recorded opening (1.5 DIN, oversize, or what a kit leaves) decides the face.
+		if (margin(opened.w, size.w, 0) < 0 || margin(opened.h, size.h, 0) < 0) {
+			const reason = `The recorded opening (${opened.w} × ${opened.h} mm) is smaller than the face of a ${face}.`;
+			return { ...base, verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+		}
+		needsKit = margin(opened.w, aperture.w, TRIM_KIT_OVER_MM) > 0 || margin(opened.h, aperture.h, TRIM_KIT_OVER_MM) > 0;
+	} else {
+		if (dash.opening === 'single-din' && unit.dinSize === 2) {
+			const reason = `A ${face} does not go into a single-DIN opening (${DIN_APERTURE_MM[1].w} × ${DIN_APERTURE_MM[1].h} mm).`;
+			return { ...base, verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+		}
+		// A smaller unit in a larger opening takes a pocket or trim kit (common practice).
+		needsKit = dash.opening === 'oversize' || (dash.opening === 'double-din' && unit.dinSize === 1);
 	}
-	// A smaller unit in a larger opening takes a pocket or trim kit (common practice).
-	const needsKit = dash.opening === 'oversize' || (dash.opening === 'double-din' && unit.dinSize === 1);
 	const kit = needsKit ? ' with a dash kit' : '';
 	if (depth === null) {
 		const reason = `The face fits${kit}; the dash depth is not measured yet.`;
-		return { verdict: 'not-measured', depthMarginMm: null, needsKit, reason };
+		return { ...base, verdict: 'not-measured', depthMarginMm: null, needsKit, reason };
 	}
-	const depthMarginMm = margin(depth, chassisDepth, opts.clearanceMm ?? DEFAULT_CLEARANCE_MM);
+	const depthMarginMm = margin(depth, chassisDepth, plugAllowanceMm);
 	const verdict = verdictOf(depthMarginMm, opts.tightMm ?? DEFAULT_TIGHT_MM);
+	const plugs = `${plugAllowanceMm} mm for plugs and adapters`;
 	const reason =
 		verdict === 'no-fit'
-			? `The chassis is ${Math.round(-depthMarginMm)} mm too deep for the dash (clearance for plugs included).`
-			: `Fits${kit}, ${Math.round(depthMarginMm)} mm to spare behind the chassis after clearance.`;
-	return { verdict, depthMarginMm, needsKit, reason };
+			? `The chassis is ${Math.round(-depthMarginMm)} mm too deep for the dash (${plugs} behind it included).`
+			: `Fits${kit}, ${Math.round(depthMarginMm)} mm to spare behind the chassis after ${plugs}.`;
+	return { ...base, verdict, depthMarginMm, needsKit, reason };
 }
 
 // A speaker frame overlaps its hole by only a few mm; a hole more than this much larger needs an adapter ring (common practice).

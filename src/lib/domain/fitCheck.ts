@@ -1,5 +1,7 @@
 import {
 	DEFAULT_CLEARANCE_MM,
+	DEFAULT_PLUG_ALLOWANCE_MM,
+	type HeadUnitFitOptions,
 	DEFAULT_TIGHT_MM,
 	fitVerdict,
 	headUnitFit,
@@ -148,12 +150,12 @@ export function speakerFitReason(fit: LocationFit, units: UnitSystem = 'metric')
 	return `Fits ${place} with ${len(m)} to spare on the ${what}, the closest figure.${adapter}`;
 }
 
-/** A head unit against the dash opening and depth. */
-export function dashFit(unit: Pick<HeadUnit, 'dinSize' | 'chassisDepthMm'>, dash: Pick<DashSection, 'opening' | 'depthMm'>, opts: SeatFitOptions = {}): DepthFit {
+/** A head unit against the dash opening and depth. A seat clearance passed along does not apply: depth has its own plug allowance. */
+export function dashFit(unit: Pick<HeadUnit, 'dinSize' | 'chassisDepthMm'>, dash: Pick<DashSection, 'opening' | 'depthMm'>, opts: HeadUnitFitOptions & { clearanceMm?: number } = {}): DepthFit {
 	if (dash.opening === null) {
-		return { verdict: 'not-measured', depthMarginMm: null, needsKit: false, reason: 'The dash opening is not recorded yet, so nobody can say.' };
+		return { verdict: 'not-measured', depthMarginMm: null, needsKit: false, plugAllowanceMm: opts.plugAllowanceMm ?? DEFAULT_PLUG_ALLOWANCE_MM, reason: 'The dash opening is not recorded yet, so nobody can say.' };
 	}
-	return headUnitFit(unit, { opening: dash.opening, depthMm: dash.depthMm }, opts);
+	return headUnitFit(unit, { opening: dash.opening, depthMm: dash.depthMm }, { plugAllowanceMm: opts.plugAllowanceMm, tightMm: opts.tightMm });
 }
 
 export { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM };
