@@ -266,3 +266,42 @@ export function readLadder(f: Fields<LadderFields>): Read<LadderFields, { lines:
 export function buttonsText(line: ControlLine): string {
 	return line.buttons.map((b) => `${b.name} = ${b.ohms}`).join('\n');
 }
+
+// ---- Job sheet ----
+
+export type JobSheetFields = 'power' | 'ground' | 'remote' | 'speaker' | 'speakers' | 'cores';
+const RUN_FIELDS = ['power', 'ground', 'remote', 'speaker'] as const;
+
+export interface JobSheetQuery {
+	lengths: Partial<Record<(typeof RUN_FIELDS)[number], number>>;
+	speakers?: number;
+	cores?: number;
+	errors: Partial<Record<JobSheetFields, string>>;
+}
+
+/** The job sheet's typed run lengths (metres, or feet for imperial, unless the text names its unit) and counts. */
+export function readJobSheetQuery(get: (name: JobSheetFields) => string | null, unit: LengthUnit): JobSheetQuery {
+	const out: JobSheetQuery = { lengths: {}, errors: {} };
+	for (const f of RUN_FIELDS) {
+		const text = (get(f) ?? '').trim();
+		if (!text) continue;
+		try {
+			const m = readLength('m', text, unit);
+			if (!(m >= 0) || m > 30) out.errors[f] = 'A run length is between 0 and 30 m (98 ft).';
+			else out.lengths[f] = m;
+		} catch (e) {
+			out.errors[f] = (e as Error).message;
+		}
+	}
+	for (const [name, label, min, max] of [
+		['speakers', 'Speakers', 0, 64],
+		['cores', 'Cores per cable', 2, 24]
+	] as const) {
+		const text = get(name);
+		if (!text) continue;
+		const n = readNumber(text, { label, whole: true, min, max });
+		if (typeof n === 'string') out.errors[name] = n;
+		else out[name] = n;
+	}
+	return out;
+}

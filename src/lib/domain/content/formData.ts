@@ -143,7 +143,7 @@ export function readLength(kind: 'mm' | 'm', text: string, unit: LengthUnit): nu
 const OHMS = /^(\d+(?:\.\d+)?|\.\d+)\s*([kKM])?\s*(?:Ω|ohms?|r)?$/i;
 // Resistor code letters standing in for the decimal point: 4k7 = 4.7 kΩ, 2R2 = 2.2 Ω (IEC 60062).
 const OHMS_CODE = /^(\d+)([kKMRr])(\d+)$/;
-const PREFIX: Record<string, number> = { k: 1e3, K: 1e3, M: 1e6, R: 1, r: 1 };
+const PREFIX: Record<string, number> = { k: 1e3, K: 1e3, M: 1e6, m: 1e-3, R: 1, r: 1 };
 
 export function readOhms(text: string, label = 'Resistance'): number {
 	const t = text.trim();

@@ -12,7 +12,7 @@ export const GET: RequestHandler = ({ locals, params }) =>
 		requireRole(locals, 'viewer');
 		let n: number;
 		try {
-			n = parseAwg(decodeURIComponent(params.n));
+			n = parseAwg(decodedGauge(params.n));
 		} catch (err) {
 			throw new ServiceError((err as Error).message, 400, { n: (err as Error).message });
 		}
@@ -23,3 +23,12 @@ export const GET: RequestHandler = ({ locals, params }) =>
 		const { awg, diameterMm, areaMm2, ohmsPerKm } = awgWire(n, 20);
 		return json({ awg, diameterMm, areaMm2, ohmsPerKm });
 	});
+
+/** "1%2F0" arrives still encoded; a stray "%" is read as typed. */
+function decodedGauge(text: string): string {
+	try {
+		return decodeURIComponent(text);
+	} catch {
+		return text;
+	}
+}
