@@ -158,6 +158,12 @@ describe('calculator endpoints answer a value or a 4xx', () => {
 		expect(await wire.json()).toMatchObject({ awg: '4', fuseA: 80, basis: { volts: 12, maxDropPct: 3, tempC: 20 } });
 	});
 
+	it('the gauge endpoint states its basis', async () => {
+		// ASTM B258: 4 AWG is 0.2043 in = 5.189 mm across
+		const res = await awgApi({ locals: viewer, params: { n: '4' } } as never);
+		expect(await res.json()).toMatchObject({ diameterMm: expect.closeTo(5.189, 3), basis: expect.stringMatching(/ASTM B258.*IEC 60028.*20 °C/) });
+	});
+
 	it('the gauge endpoint answers every naughty path with a value or a 400', async () => {
 		for (const s of [...NAUGHTY, '%', '%E0%A4%A', '1%2F0']) {
 			const res = await awgApi({ locals: viewer, params: { n: s } } as never);
