@@ -72,7 +72,7 @@ beforeAll(async () => {
 				],
 				(c) => {
 					c.dash.opening = 'double-din';
-					c.dash.depthMm = 185; // 185 − 150 − 10 = 25 mm
+					c.dash.depthMm = 225; // 225 − 150 − 50 for plugs = 25 mm
 					c.speakers.locations = [
 						{ id: 'fd', location: 'Front door', nominalSize: '6.5 in', cutoutMm: 145, depthMm: 70, impedanceOhm: 4, grille: '' },
 						{ id: 'rd', location: 'Rear door', nominalSize: '5.25 in', cutoutMm: 118, depthMm: 50, impedanceOhm: 4, grille: '' }

@@ -167,12 +167,16 @@ describe('VIN lookup', () => {
 		expect(found.matches.map((m) => m.slug)).toEqual([TARN]);
 	});
 
-	it('says what is wrong with a mistyped VIN', async () => {
-		const good = vinFor('VD1TN', 'C');
+	it('says what is wrong with a mistyped North American VIN', async () => {
+		// 49 CFR 565 makes the check digit mandatory where the VIN starts 1–5 (ISO 3780 North America)
+		const good = vinFor('1D1TN', 'C');
 		const typo = good.slice(0, 12) + (good[12] === '7' ? '8' : '7') + good.slice(13);
 		const found = await lookupVin(typo, fake);
 		expect(found.valid).toBe(false);
 		expect(found.problem).toMatch(/Check digit \(position 9\)/);
+		// ISO 3779: outside North America position 9 is the maker's, so the same slip is no problem there
+		const elsewhere = vinFor('VD1TN', 'C');
+		expect((await lookupVin(elsewhere.slice(0, 12) + (elsewhere[12] === '7' ? '8' : '7') + elsewhere.slice(13), fake)).valid).toBe(true);
 		await expect(lookupVin('VD1TN5A7', fake)).rejects.toThrow(/A VIN has 17 characters; this one has 8/);
 		await expect(lookupVin('VD1TN5A7OCX123456', fake)).rejects.toMatchObject({ status: 400, message: expect.stringMatching(/I, O or Q/) });
 		await expect(lookupVin('VD1TN5A7OCX123456', fake)).rejects.toBeInstanceOf(ServiceError);

@@ -36,6 +36,15 @@ describe('calculator forms', () => {
 		expect(!bad.ok && bad.errors).toMatchObject({ currentA: 'Current: "x" is not a number.', powerLength: 'Power run length over 30 m (98 ft) looks like a typo.' });
 	});
 
+	it('reads conductor temperature and the amplifiers’ own fuses, with the stated defaults', () => {
+		const plain = readPowerWire({ currentA: '40', powerLength: '4.8', groundLength: '0.5', volts: '12', maxDropPct: '3' });
+		expect(plain.ok && plain.input).toMatchObject({ tempC: 20, ownFuseA: null });
+		const hot = readPowerWire({ currentA: '40', powerLength: '4.8', groundLength: '0.5', volts: '12', maxDropPct: '3', tempC: '-10', ownFuseA: '60 A' });
+		expect(hot.ok && hot.input).toMatchObject({ tempC: -10, ownFuseA: 60 });
+		const bad = readPowerWire({ currentA: '40', powerLength: '4.8', groundLength: '0.5', volts: '12', maxDropPct: '3', tempC: '400', ownFuseA: 'lots' });
+		expect(!bad.ok && Object.keys(bad.errors).sort()).toEqual(['ownFuseA', 'tempC']);
+	});
+
 	it('reads button lists with resistor codes', () => {
 		// IEC 60062 letter-for-point codes: 2k2 = 2200 Ω, 4R7 = 4.7 Ω
 		expect(readButtons('Volume + = 2k2\nMode: 4R7\n1k', 'Line 1')).toEqual({
@@ -50,6 +59,16 @@ describe('calculator forms', () => {
 		const empty = readLadder({ buttons1: '', buttons2: '', tolerancePct: '5' });
 		expect(!empty.ok && empty.errors.buttons1).toMatch(/at least one button/);
 		expect(readResistances('1k, 2k2')).toEqual([1000, 2200]);
+	});
+
+	it('reads the interface circuit of a ladder, with the stated defaults', () => {
+		// IEC 60062 letter-for-point codes: 4k7 = 4700 Ω, 100k = 100,000 Ω
+		const plain = readLadder({ buttons1: '1k', tolerancePct: '5' });
+		expect(plain.ok && plain.input.circuit).toEqual({ pullUpOhms: 4700, vrefV: 5, adcBits: 10, tolerancePct: 5, idleOhms: null });
+		const own = readLadder({ buttons1: '1k', tolerancePct: '1', pullUp: '10k', vref: '3.3', adcBits: '12', idle: '100k' });
+		expect(own.ok && own.input.circuit).toEqual({ pullUpOhms: 10_000, vrefV: 3.3, adcBits: 12, tolerancePct: 1, idleOhms: 100_000 });
+		const bad = readLadder({ buttons1: '1k', tolerancePct: '5', pullUp: '0', vref: 'x', adcBits: '3', idle: 'lots' });
+		expect(!bad.ok && Object.keys(bad.errors).sort()).toEqual(['adcBits', 'idle', 'pullUp', 'vref']);
 	});
 
 	it('reads speaker counts, impedances and banks', () => {

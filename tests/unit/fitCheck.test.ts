@@ -37,6 +37,16 @@ describe('a box against every seat space', () => {
 		expect(bestSpace([])).toBeNull();
 	});
 
+	it('never prefers a seat where the part does not fit over one nobody measured', () => {
+		// by hand: r is 1 mm too tall; x has no width, so it may still take the part
+		const fits = seatSpaceFits([spaces[2], spaces[3]], box);
+		expect(bestSpace(fits)?.spaceId).toBe('x');
+		// a missing width does not hide a height that already rules the part out: 55 − 60 = −5 mm
+		const [y] = seatSpaceFits([space('y', 'rear', 500, null, 55)], box);
+		expect(y.result.verdict).toBe('no-fit');
+		expect(seatFitReason(y)).toBe('Does not fit under the rear seat: 5 mm too tall after 10 mm for cables and air. The other sides are not measured yet.');
+	});
+
 	it('prefers more room when two spaces have the same verdict', () => {
 		const fits = seatSpaceFits([space('a', 'driver', 400, 300, 90), space('b', 'passenger', 400, 300, 120)], box);
 		// by hand: a leaves 30 mm in height, b leaves 60 mm
@@ -60,17 +70,26 @@ describe('speakers and head units', () => {
 
 	it('checks every location and picks the roomiest one', () => {
 		const fits = speakerLocationFits([loc('a', 'Front door', 145, 62), loc('b', 'Rear deck', 160, 90), loc('c', 'Dash', null, 30)], speaker);
-		// by hand: a 3 / 4 mm → tight; b 18 / 32 mm → fits (and 18 mm over the cut-out needs a ring); c not measured
-		expect(fits.map((f) => f.result.verdict)).toEqual(['tight', 'fits', 'not-measured']);
+		// by hand: a 3 / 4 mm → tight; b 18 / 32 mm → fits (and 18 mm over the cut-out needs a ring);
+		// c has no cut-out, but its 30 mm depth is 28 mm short of 58 mm, so it is ruled out already
+		expect(fits.map((f) => f.result.verdict)).toEqual(['tight', 'fits', 'no-fit']);
 		expect(pickLocation(fits)?.locationId).toBe('b');
 		expect(pickLocation(fits, 'a')?.locationId).toBe('a');
 		expect(speakerFitReason(fits[1])).toMatch(/use an adapter ring/);
 		expect(speakerFitReason(fits[0])).toBe('Goes into the front door location, with only 3 mm to spare on the cut-out: check on the car.');
 	});
 
+	it('prefers a place nobody measured over one where the part certainly does not fit', () => {
+		// by hand: c is 28 mm too shallow; d is not measured at all
+		const fits = speakerLocationFits([loc('c', 'Dash', null, 30), loc('d', 'Kick panel', null, null)], speaker);
+		expect(fits.map((f) => f.result.verdict)).toEqual(['no-fit', 'not-measured']);
+		expect(pickLocation(fits)?.locationId).toBe('d');
+	});
+
 	it('says not measured when the dash opening is not recorded', () => {
 		expect(dashFit({ dinSize: 1, chassisDepthMm: 150 }, { opening: null, depthMm: 200 }).verdict).toBe('not-measured');
-		// 185 − 150 − 10 = 25 mm (by hand)
-		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'double-din', depthMm: 185 })).toMatchObject({ verdict: 'fits', depthMarginMm: 25 });
+		// 225 − 150 − 50 for plugs = 25 mm (by hand); a seat clearance passed along does not change the depth check
+		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'double-din', depthMm: 225 })).toMatchObject({ verdict: 'fits', depthMarginMm: 25 });
+		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'double-din', depthMm: 225 }, { clearanceMm: 40 })).toMatchObject({ depthMarginMm: 25 });
 	});
 });

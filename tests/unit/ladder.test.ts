@@ -2,8 +2,11 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { evaluate } from 'mathjs';
 import {
+	DEFAULT_CIRCUIT,
 	eDecade,
 	eValues,
+	GUARD_COUNTS,
+	ladderReading,
 	ladderReport,
 	nearestE,
 	parallel,
@@ -137,62 +140,107 @@ describe('E-series (IEC 60063)', () => {
 	});
 });
 
-describe('ladderReport', () => {
-	it('sorts readings, finds the closest pair and the collision at ±5 %', () => {
-		const report = ladderReport([lineA, lineB], 5);
-		expect(report.readings.map((r) => r.ohms)).toEqual([1000, 1200, 2100, 2200, 4700, 6800]);
-		// by hand: closest pair 2200 / 2100 = 1.0476; bands 2100 × 1.05 = 2205 ≥ 2200 × 0.95 = 2090
-		expect(report.smallestGap?.ratio).toBeCloseTo(2200 / 2100, 12);
-		expect(report.smallestGap?.low.button).toBe('Mute');
-		expect(report.collides).toBe(true);
-		expect(report.collisions.map(([a, b]) => [a.button, b.button])).toEqual([['Mute', 'Volume down']]);
+// The pull-up divider read by an ADC, stated independently of the code: V = Vref × R / (R + Rp) (voltage divider
+// rule) and counts = V / Vref × (2^N − 1). Bands put every resistor at one end of its tolerance and the pull-up
+// at the other. Idle lines sit in parallel with the pressed button (1/R = Σ 1/Rᵢ; an open line adds nothing).
+type Circuit = { rp: number; bits: number; t: number };
+const C5: Circuit = { rp: 4700, bits: 10, t: 0.05 };
+const par = (rs: number[]) => {
+	const closed = rs.filter((r) => Number.isFinite(r));
+	return closed.length ? 1 / closed.reduce((s, r) => s + 1 / r, 0) : Infinity;
+};
+const code = (r: number, rp: number, bits: number) => (Number.isFinite(r) ? (r / (r + rp)) * (2 ** bits - 1) : 2 ** bits - 1);
+const bandOf = (rs: number[], c: Circuit) => ({ low: code(par(rs.map((r) => r * (1 - c.t))), c.rp * (1 + c.t), c.bits), high: code(par(rs.map((r) => r * (1 + c.t))), c.rp * (1 - c.t), c.bits) });
+// Readings of two lines on one input, idle lines open unless given, with the no-button reading; true when any
+// two bands come within 2 counts (the guard, common practice).
+function crowded(lines: number[][], c: Circuit, idle = Infinity): boolean {
+	const bands = lines.flatMap((line, i) => line.map((r) => bandOf([r, ...lines.filter((_, j) => j !== i).map(() => idle)], c)));
+	bands.push(bandOf(lines.map(() => idle), c));
+	bands.sort((x, y) => x.low + x.high - (y.low + y.high));
+	return bands.some((b, i) => bands.slice(i + 1).some((o) => o.low - b.high < 2));
+}
+
+describe('ladder readings (pull-up divider and ADC)', () => {
+	it('states its common-practice defaults', () => {
+		// common practice for a steering-control interface: 4.7 kΩ to 5 V, 10-bit ADC, ±5 % parts, open idle line
+		expect(DEFAULT_CIRCUIT).toEqual({ pullUpOhms: 4700, vrefV: 5, adcBits: 10, tolerancePct: 5, idleOhms: null });
+		expect(GUARD_COUNTS).toBe(2);
 	});
 
-	it('finds no collision at ±2 %', () => {
-		// by hand: 2100 × 1.02 = 2142 < 2200 × 0.98 = 2156
-		const report = ladderReport([lineA, lineB], 2);
-		expect(report.collides).toBe(false);
-		expect(report.collisions).toEqual([]);
+	it('1 kΩ under a 4.7 kΩ pull-up at 5 V reads 0.877 V, 179.5 counts of 1023', () => {
+		// voltage divider rule, evaluated by mathjs: 5 V × 1000 / 5700
+		const v = evaluate('5 V * 1000 ohm / (1000 ohm + 4700 ohm)').toNumber('V');
+		expect(v).toBeCloseTo(0.87719, 5);
+		const r = ladderReading(1000, { ...DEFAULT_CIRCUIT });
+		expect(r.volts).toBeCloseTo(v, 12);
+		// ADC code scale: 0.87719 / 5 × 1023 = 179.47
+		expect(r.counts).toBeCloseTo(179.47, 2);
+		// an open line reads the full reference
+		expect(ladderReading(Infinity, { ...DEFAULT_CIRCUIT })).toEqual({ volts: 5, counts: 1023 });
 	});
 
-	it('treats equal readings as colliding at any tolerance, and a 0 Ω button only with another', () => {
-		const twin: ControlLine = { name: 'Line 3', buttons: [{ name: 'Seek', ohms: 1000 }, { name: 'Short', ohms: 0 }] };
-		const report = ladderReport([lineA, twin], 0);
-		expect(report.smallestGap?.ratio).toBe(1);
-		expect(report.collisions.map(([a, b]) => [a.ohms, b.ohms])).toEqual([[1000, 1000]]);
-		const zeros = ladderReport([{ name: 'L', buttons: [{ name: 'a', ohms: 0 }, { name: 'b', ohms: 0 }, { name: 'c', ohms: 10 }] }], 50);
-		expect(zeros.collisions).toHaveLength(1);
+	it('the same 10 % step is 2 counts at 100 Ω, 21 counts at 10 kΩ and 4 counts at 100 kΩ', () => {
+		// by hand: 100/4800 × 1023 = 21.31, 110/4810 × 1023 = 23.40 (2.08 apart); 10k/14.7k × 1023 = 695.92, 11k/15.7k × 1023 = 716.75;
+		// 100k/104.7k × 1023 = 977.08, 110k/114.7k × 1023 = 981.08
+		const step = (r: number) => ladderReading(r * 1.1, { ...DEFAULT_CIRCUIT }).counts - ladderReading(r, { ...DEFAULT_CIRCUIT }).counts;
+		expect(step(100)).toBeCloseTo(2.08, 2);
+		expect(step(10_000)).toBeCloseTo(20.83, 2);
+		expect(step(100_000)).toBeCloseTo(4.0, 2);
 	});
 
-	it('lists every overlapping pair, not only neighbours', () => {
-		const crowded: ControlLine = { name: 'L', buttons: [1000, 1050, 1100].map((ohms, i) => ({ name: `b${i}`, ohms })) };
-		// by hand at ±5 %: 1000·1.05 = 1050 ≥ 1100·0.95 = 1045, so all three pairs overlap
-		expect(ladderReport([crowded], 5).collisions).toHaveLength(3);
+	it('sorts readings by counts with the idle reading on top, and gives each a tolerance band', () => {
+		const r = ladderReport([lineA]);
+		expect(r.readings.map((x) => x.button)).toEqual(['Volume up', 'Volume down', 'Next', 'No button']);
+		expect(r.idle).toMatchObject({ idle: true, counts: 1023 });
+		// by hand at ±5 %: 950 / (950 + 4935) × 1023 = 165.14; 1050 / (1050 + 4465) × 1023 = 194.77
+		expect(r.readings[0].band.low).toBeCloseTo(165.14, 2);
+		expect(r.readings[0].band.high).toBeCloseTo(194.77, 2);
+		expect(r.collides).toBe(false);
+		// closest pair in counts: every gap against the independent statement above
+		const bands = [1000, 2200, 4700].map((x) => bandOf([x], C5));
+		const gaps = [bands[1].low - bands[0].high, bands[2].low - bands[1].high, 1023 - bands[2].high];
+		expect(r.smallestGap?.counts).toBeCloseTo(Math.min(...gaps), 9);
 	});
 
-	it('agrees with a brute-force band check on random ladders', () => {
+	it('finds the 1000 Ω / 1020 Ω collision between two lines', () => {
+		const r = ladderReport([{ name: 'L1', buttons: [{ name: 'Vol +', ohms: 1000 }] }, { name: 'L2', buttons: [{ name: 'Mode', ohms: 1020 }] }]);
+		expect(r.collides).toBe(true);
+		expect(r.collisions.map(([a, b]) => [a.button, b.button])).toEqual([['Vol +', 'Mode']]);
+	});
+
+	it('a button too close to the idle line cannot be read', () => {
+		// by hand: 4.7 MΩ at −5 % against 4.7 kΩ at +5 %: 4,465,000 / 4,469,935 × 1023 = 1021.87, within 2 counts of 1023
+		const r = ladderReport([{ name: 'L1', buttons: [{ name: 'Far', ohms: 4_700_000 }] }]);
+		expect(r.collisions.map(([a, b]) => [a.button, b.button])).toEqual([['Far', 'No button']]);
+		// 1 MΩ at −5 %: 950,000 / 954,935 × 1023 = 1017.7, clear of the idle reading
+		expect(ladderReport([{ name: 'L1', buttons: [{ name: 'Near', ohms: 1_000_000 }] }]).collides).toBe(false);
+	});
+
+	it('an idle line in parallel loads the other line’s readings', () => {
+		// by hand: 1 kΩ ∥ 100 kΩ = 990.1 Ω; 990.1 / 5690.1 × 1023 = 178.0 counts; no button: 50 kΩ → 935.1 counts
+		const r = ladderReport([lineA, { name: 'Line 2', buttons: [{ name: 'Mode', ohms: 1200 }] }], { idleOhms: 100_000 });
+		const up = r.readings.find((x) => x.button === 'Volume up')!;
+		expect(up.seenOhms).toBeCloseTo(990.099, 3);
+		expect(up.counts).toBeCloseTo(178.0, 1);
+		expect(r.idle.seenOhms).toBeCloseTo(50_000, 6);
+		expect(r.idle.counts).toBeCloseTo(935.1, 1);
+	});
+
+	it('agrees with the independent divider statement on random ladders', () => {
 		fc.assert(
-			fc.property(
-				fc.array(fc.integer({ min: 0, max: 20000 }), { minLength: 2, maxLength: 10 }),
-				fc.integer({ min: 0, max: 20 }),
-				(ohms, pct) => {
-					const t = pct / 100;
-					const report = ladderReport([{ name: 'L', buttons: ohms.map((o, i) => ({ name: `b${i}`, ohms: o })) }], pct);
-					const expected = ohms.flatMap((a, i) => ohms.filter((b, j) => j > i && overlap(a, b, t)));
-					expect(report.collisions).toHaveLength(expected.length);
-					expect(report.collides).toBe(anyOverlap(ohms, t));
-					const sorted = [...ohms].sort((a, b) => a - b);
-					const ratios = sorted.slice(1).map((b, i) => (b === sorted[i] ? 1 : b / sorted[i]));
-					expect(report.smallestGap?.ratio).toBe(Math.min(...ratios));
-				}
-			)
+			fc.property(fc.array(fc.integer({ min: 0, max: 2_000_000 }), { minLength: 1, maxLength: 5 }), fc.array(fc.integer({ min: 0, max: 2_000_000 }), { minLength: 0, maxLength: 5 }), fc.constantFrom(1, 2, 5, 10), (a, b, pct) => {
+				const lines = [a, b].filter((l) => l.length).map((l, i) => ({ name: `L${i}`, buttons: l.map((o, j) => ({ name: `B${j}`, ohms: o })) }));
+				const r = ladderReport(lines, { tolerancePct: pct });
+				expect(r.collides).toBe(crowded(lines.map((l) => l.buttons.map((x) => x.ohms)), { rp: 4700, bits: 10, t: pct / 100 }));
+			})
 		);
 	});
 
-	it('refuses a bad tolerance or a negative reading', () => {
-		expect(() => ladderReport([lineA], -1)).toThrow(/Tolerance/);
-		expect(() => ladderReport([lineA], 100)).toThrow(/Tolerance/);
-		expect(() => ladderReport([{ name: 'L', buttons: [{ name: 'x', ohms: -5 }] }], 5)).toThrow(/Button "x" on L/);
+	it('refuses a bad circuit or a negative reading with a readable message', () => {
+		expect(() => ladderReport([lineA], { tolerancePct: -1 })).toThrow(/Tolerance/);
+		expect(() => ladderReport([lineA], { pullUpOhms: 0 })).toThrow(/pull-up/);
+		expect(() => ladderReport([lineA], { adcBits: 3 })).toThrow(/ADC resolution/);
+		expect(() => ladderReport([{ name: 'L', buttons: [{ name: 'X', ohms: -5 }] }])).toThrow(/Button "X" on L/);
 	});
 });
 
@@ -205,63 +253,53 @@ describe('suggestSeparator', () => {
 		]
 	});
 
-	it.each([
-		// by hand at ±4.5 %: band ratio 1.045/0.955 = 1.0942, so 2000 + R must exceed 2188.5 Ω
-		['E24', 4.5, 200],
-		['E12', 4.5, 220],
-		// ±5 %: ratio 1.1053, 2000 + R > 2210.5 Ω
-		['E24', 5, 220],
-		// ±2 %: ratio 1.0408, 1000 + R > 1040.8 and 2000 + R > 2081.6 Ω
-		['E12', 2, 82]
-	] as const)('two identical lines in %s at ±%s %% need %s Ω', (name, pct, ohms) => {
-		const r = suggestSeparator(same('Line 1'), same('Line 2'), pct, name);
-		expect(r.ok).toBe(true);
-		if (!r.ok) return;
-		expect(r.resistorOhms).toBe(ohms);
-		expect(r.onLine).toBe('Line 2');
-		expect(r.report.readings.map((x) => x.ohms)).toEqual([1000, 1000 + ohms, 2000, 2000 + ohms].sort((a, b) => a - b));
-	});
-
 	it('needs nothing when the lines are already apart', () => {
-		const r = suggestSeparator(lineA, lineB, 2, 'E12');
-		expect(r).toMatchObject({ ok: true, resistorOhms: 0, onLine: null });
+		// lineA and lineB: the closest readings 2100 / 2200 Ω are 5.8 counts apart at ±0.5 % (independent statement above)
+		expect(crowded([[1000, 2200, 4700], [1200, 2100, 6800]], { ...C5, t: 0.005 })).toBe(false);
+		expect(suggestSeparator(lineA, lineB, { tolerancePct: 0.5 }, 'E12')).toMatchObject({ ok: true, resistorOhms: 0, onLine: null });
 	});
 
-	it('separates the sample lines at ±5 % with a standard value', () => {
-		const r = suggestSeparator(lineA, lineB, 5, 'E12');
+	it('two identical lines at ±5 % take the smallest E24 value that parts them', () => {
+		const r = suggestSeparator(same('Line 1'), same('Line 2'), {}, 'E24');
 		expect(r.ok).toBe(true);
 		if (!r.ok) return;
-		expect(eValues('E12')).toContain(r.resistorOhms);
-		expect(anyOverlap(r.report.readings.map((x) => x.ohms), 0.05)).toBe(false);
+		// independent search over IEC 60063 E24 values with the divider statement above
+		const values = [0, 1, 2, 3, 4, 5, 6].flatMap((d) => IEC_E24.map((v) => Math.round(v * 10 ** d * 10) / 10));
+		const expected = values.find((R) => !crowded([[1000, 2000], [1000 + R, 2000 + R]], C5));
+		expect(r.resistorOhms).toBe(expected);
+		expect(r.onLine).toBe('Line 2');
 	});
 
 	it('says when a line collides with itself', () => {
 		const bad: ControlLine = { name: 'Line 9', buttons: [{ name: 'A', ohms: 1000 }, { name: 'B', ohms: 1010 }] };
-		const r = suggestSeparator(bad, same('Line 2'), 5, 'E12');
+		const r = suggestSeparator(bad, same('Line 2'), {}, 'E12');
 		expect(r.ok).toBe(false);
 		if (!r.ok) expect(r.reason).toMatch(/On Line 9, "A" and "B" already read too close together/);
 	});
 
+	it('suggests nothing outside the readable range', () => {
+		// by hand: 1 MΩ and 1.1 MΩ overlap (high 1018.67 vs low 1018.19 counts); parting them needs one band above
+		// 1020.7 counts, but it must also stay 2 counts below the open idle line's 1023: no value does both
+		const r = suggestSeparator({ name: 'L1', buttons: [{ name: 'A', ohms: 1_000_000 }] }, { name: 'L2', buttons: [{ name: 'B', ohms: 1_100_000 }] }, {}, 'E24');
+		expect(r.ok).toBe(false);
+		if (!r.ok) expect(r.reason).toMatch(/within the readable range \(below the idle reading of 1023 counts\)/);
+	});
+
 	it('finds the smallest standard value that works, on either line', () => {
 		const line = (name: string, ohms: number[]): ControlLine => ({ name, buttons: ohms.map((o, i) => ({ name: `${name}${i}`, ohms: o })) });
+		const values = [0, 1, 2, 3, 4, 5, 6].flatMap((d) => IEC_E24.map((v) => Math.round(v * 10 ** d * 10) / 10));
 		fc.assert(
-			fc.property(
-				fc.uniqueArray(fc.integer({ min: 50, max: 10000 }), { minLength: 1, maxLength: 3 }),
-				fc.uniqueArray(fc.integer({ min: 50, max: 10000 }), { minLength: 1, maxLength: 3 }),
-				fc.constantFrom(1, 2, 5),
-				(a, b, pct) => {
-					const t = pct / 100;
-					fc.pre(!anyOverlap(a, t) && !anyOverlap(b, t));
-					const r = suggestSeparator(line('A', a), line('B', b), pct, 'E24');
-					// independent search over the published E24 values, 1 Ω … 9.1 MΩ
-					const works = (R: number) =>
-						!anyOverlap([...a, ...b.map((x) => x + R)], t) || !anyOverlap([...b, ...a.map((x) => x + R)], t);
-					const values = [0, 1, 2, 3, 4, 5, 6].flatMap((d) => IEC_E24.map((v) => Math.round(v * 10 ** d * 10) / 10));
-					const expected = !anyOverlap([...a, ...b], t) ? 0 : values.find(works);
-					if (expected === undefined) expect(r.ok).toBe(false);
-					else expect(r.ok && r.resistorOhms).toBe(expected);
-				}
-			)
+			fc.property(fc.uniqueArray(fc.integer({ min: 50, max: 10000 }), { minLength: 1, maxLength: 3 }), fc.uniqueArray(fc.integer({ min: 50, max: 10000 }), { minLength: 1, maxLength: 3 }), fc.constantFrom(1, 2, 5), (a, b, pct) => {
+				const c = { ...C5, t: pct / 100 };
+				fc.pre(!crowded([a], c) && !crowded([b], c));
+				const r = suggestSeparator(line('A', a), line('B', b), { tolerancePct: pct }, 'E24');
+				// independent search over the published E24 values, 1 Ω … 9.1 MΩ (IEC 60063)
+				const works = (R: number) => !crowded([a, b.map((x) => x + R)], c) || !crowded([b, a.map((x) => x + R)], c);
+				const expected = !crowded([a, b], c) ? 0 : values.find(works);
+				if (expected === undefined) expect(r.ok).toBe(false);
+				else expect(r.ok && r.resistorOhms).toBe(expected);
+			}),
+			{ numRuns: 60 }
 		);
 	});
 });

@@ -18,7 +18,7 @@ const amp = { kind: 'amplifier', sku: 'T-4D', name: 'Test four-channel', lengthM
 
 describe('part schema', () => {
 	it('reads each kind and fills the optional figures', () => {
-		expect(partInputSchema.parse(amp)).toMatchObject({ ...amp, efficiency: null, notes: '' });
+		expect(partInputSchema.parse(amp)).toMatchObject({ ...amp, efficiency: null, fuseRatingA: null, notes: '' });
 		expect(partInputSchema.parse({ kind: 'head-unit', sku: 'T-H1', name: 'Head unit', dinSize: 1, chassisDepthMm: 150 })).toMatchObject({ lengthMm: null });
 		expect(partInputSchema.parse({ kind: 'speaker', sku: 'T-S', name: 'Speaker', cutoutMm: 142, mountingDepthMm: 58 })).toMatchObject({ impedanceOhm: null, nominalSize: '' });
 	});
@@ -28,6 +28,7 @@ describe('part schema', () => {
 		[{ ...amp, sku: 'has space' }, 'A SKU is letters and digits, with ".", "-", "_" or "/" between them.'],
 		[{ ...amp, channels: 0 }, 'An amplifier has at least 1 channel.'],
 		[{ ...amp, efficiency: 1.2 }, 'Efficiency cannot be more than 1 (100 %).'],
+		[{ ...amp, fuseRatingA: 0 }, "The amplifier's fuse rating must be more than 0 A."],
 		[{ ...amp, lengthMm: 9000 }, 'Length over 5000 mm looks like a typo; sizes are in millimetres.'],
 		[{ ...amp, ampClass: 'Z' }, 'Amplifier class must be A/B or D.'],
 		[{ ...amp, kind: 'subwoofer' }, 'Kind must be one of: Amplifier, Head unit, Speaker, Enclosure.']
@@ -35,6 +36,13 @@ describe('part schema', () => {
 		const r = partInputSchema.safeParse(input);
 		expect(r.success).toBe(false);
 		expect(r.error?.issues[0].message).toBe(message);
+	});
+
+	it("reads the amplifier's own fuse rating from the catalogue form", () => {
+		const r = readPartForm({ ...emptyPartForm('amplifier'), sku: 'T-4D', name: 'Four', lengthMm: '200', widthMm: '140', heightMm: '45', channels: '4', rmsWattsPerChannel: '60', fuseRatingA: '2.5' });
+		expect(r.ok && r.part).toMatchObject({ fuseRatingA: 2.5 });
+		const bad = readPartForm({ ...emptyPartForm('amplifier'), sku: 'T-4D', name: 'Four', lengthMm: '200', widthMm: '140', heightMm: '45', channels: '4', rmsWattsPerChannel: '60', fuseRatingA: 'lots' });
+		expect(!bad.ok && bad.errors.fuseRatingA).toBe('"lots" is not a number.');
 	});
 
 	it('takes the typical class efficiency unless the catalogue has its own', () => {

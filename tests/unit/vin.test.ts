@@ -110,8 +110,10 @@ describe('checkDigit (49 CFR 565.15)', () => {
 		fc.assert(
 			fc.property(vinArb, fc.integer({ min: 0, max: 16 }), fc.constantFrom(...VIN_CHARS), (vin, i, ch) => {
 				const changed = vin.slice(0, i) + ch + vin.slice(i + 1);
-				if (i === 8 || value(ch) === value(vin[i])) expect(checkDigit(changed)).toBe(checkDigit(vin));
-				else expect(checkDigit(changed)).not.toBe(checkDigit(vin));
+				// the regulation's sum, worked directly: position 9 has weight 0
+				const direct = (v: string) => digitOf(v.split('').reduce((sum, c, k) => sum + value(c) * CFR_WEIGHTS[k], 0) % 11);
+				expect(checkDigit(changed)).toBe(direct(changed));
+				expect(direct(changed) === direct(vin)).toBe(i === 8 || value(ch) === value(vin[i]));
 			})
 		);
 	});
@@ -156,27 +158,34 @@ describe('modelYear (49 CFR 565.15)', () => {
 	});
 });
 
+// The 49 CFR 565.15 check digit worked straight from the tables above (not the code under test).
+const cfrCheckDigit = (vin: string) => digitOf(vin.split('').reduce((sum, ch, i) => sum + (/\d/.test(ch) ? Number(ch) : CFR_VALUES[ch]) * CFR_WEIGHTS[i], 0) % 11);
+const withCheckDigit = (body: string) => body.slice(0, 8) + cfrCheckDigit(body) + body.slice(9);
+
 describe('wmi and decodeVinBasics', () => {
 	it('reads the first three characters as the manufacturer identifier', () => {
 		expect(wmi('1M8GDM9AXKP042788')).toBe('1M8');
 	});
 
 	it('decodes the worked example', () => {
+		// 49 CFR 565 worked example: 1M8GDM9AXKP042788, check digit X, model year 1989
 		expect(decodeVinBasics('1m8 gdm9a-xkp042788')).toEqual({
 			vin: '1M8GDM9AXKP042788',
 			valid: true,
-			checkDigit: { expected: 'X', actual: 'X' },
+			checkDigit: { expected: 'X', actual: 'X', applies: true },
 			modelYear: 1989,
 			wmi: '1M8',
+			region: 'north-america',
 			problem: null
 		});
 	});
 
-	it('flags a mistyped character through the check digit', () => {
+	it('flags a mistyped character through the check digit in North America', () => {
+		// by hand: the worked example sums to remainder 10 (X); the last character 8 → 9 adds 1 × weight 2, so remainder 1
 		const r = decodeVinBasics('1M8GDM9AXKP042789');
 		expect(r.valid).toBe(false);
-		expect(r.checkDigit).toEqual({ expected: checkDigit('1M8GDM9AXKP042789'), actual: 'X' });
-		expect(r.problem).toMatch(/Check digit \(position 9\) is X but the other characters give \d/);
+		expect(r.checkDigit).toEqual({ expected: '1', actual: 'X', applies: true });
+		expect(r.problem).toMatch(/Check digit \(position 9\) is X but the other characters give 1/);
 	});
 
 	it('reports a format problem without decoding', () => {
@@ -185,22 +194,48 @@ describe('wmi and decodeVinBasics', () => {
 		expect(r.problem).toMatch(/17 characters/);
 	});
 
-	it('reports a position-10 code that is not a year', () => {
-		const vin = sample('5', 'U');
-		const fixed = vin.slice(0, 8) + checkDigit(vin) + vin.slice(9);
-		expect(decodeVinBasics(fixed).problem).toMatch(/Position 10 \(U\) is not a model-year code/);
+	it('reports a North American position-10 code that is not a year', () => {
+		// 49 CFR 565.15: U is not among the 30 model-year codes
+		const vin = withCheckDigit('1ZZ0005' + '00' + 'U' + '0000001');
+		expect(decodeVinBasics(vin).problem).toMatch(/Position 10 \(U\) is not a model-year code/);
 	});
 
-	it('any VIN with its own check digit and a year code decodes as valid', () => {
+	it('outside North America, a position 9 that is no check digit or a position 10 that is no year is not a typo', () => {
+		// ISO 3779 leaves positions 9 and 10 to the maker outside North America; ISO 3780: W is a European region code
+		const r = decodeVinBasics('WZZ0000' + '0Z' + 'U' + '0000001');
+		expect(r).toMatchObject({ valid: true, region: 'elsewhere', problem: null, modelYear: null });
+		expect(r.checkDigit?.applies).toBe(false);
+		// ISO 3780: J is an Asian region code
+		expect(decodeVinBasics('JZZ0000' + '0A' + 'Z' + '0000001').valid).toBe(true);
+	});
+
+	it('flags a model year more than one year ahead', () => {
+		// 49 CFR 565.15: letter at position 7 → 2010–2039 cycle; code Y is 2030, code T is 2026
+		const far = withCheckDigit('1ZZ000A' + '00' + 'Y' + '0000001');
+		expect(decodeVinBasics(far, { currentYear: 2026 }).problem).toMatch(/gives model year 2030, more than a year after 2026/);
+		const next = withCheckDigit('1ZZ000A' + '00' + 'V' + '0000001');
+		// V is 2027: one year ahead is allowed
+		expect(decodeVinBasics(next, { currentYear: 2026 })).toMatchObject({ valid: true, modelYear: 2027 });
+		// the same rule outside North America
+		expect(decodeVinBasics('WZZ000A' + '00' + 'Y' + '0000001', { currentYear: 2026 }).valid).toBe(false);
+	});
+
+	it('any North American VIN with its own check digit and a year code decodes as valid', () => {
 		fc.assert(
-			fc.property(vinArb, fc.constantFrom(...MODEL_YEAR_CODES.split('')), (raw, code) => {
-				const body = raw.slice(0, 9) + code + raw.slice(10);
-				const vin = body.slice(0, 8) + checkDigit(body) + body.slice(9);
+			fc.property(fc.constantFrom('1', '2', '3', '4', '5'), vinArb, fc.constantFrom(...MODEL_YEAR_CODES.split('')), (first, raw, code) => {
+				const vin = withCheckDigit(first + raw.slice(1, 9) + code + raw.slice(10));
 				const r = decodeVinBasics(vin);
 				expect(r.valid).toBe(true);
-				expect(r.modelYear).toBe(
-					CFR_YEARS.find(([c]) => c === code)![1] + (/[A-Z]/.test(vin[6]) ? 30 : 0)
-				);
+				expect(r.modelYear).toBe(CFR_YEARS.find(([c]) => c === code)![1] + (/[A-Z]/.test(vin[6]) ? 30 : 0));
+			})
+		);
+	});
+
+	it('any VIN from elsewhere with good characters is valid, whatever position 9 holds', () => {
+		fc.assert(
+			fc.property(fc.constantFrom(...'6789ABCDEFGHJKLMNPRSTUVWXYZ'.split('')), vinArb, (first, raw) => {
+				// ISO 3779/3780: no mandatory check digit outside North America; no year given, so nothing is ahead
+				expect(decodeVinBasics(first + raw.slice(1)).valid).toBe(true);
 			})
 		);
 	});

@@ -1,6 +1,6 @@
-import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, CHARGING_VOLTS, type AmpCurrentInput, type AmpClass, type PowerWireInput } from './power';
+import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEMP_C, NOMINAL_VOLTS, type AmpCurrentInput, type AmpClass, type PowerWireInput } from './power';
 import { readLength, readOhms, type LengthUnit } from './units';
-import type { ControlLine, ESeries } from './ladder';
+import { DEFAULT_CIRCUIT, type ControlLine, type ESeries, type LadderCircuit } from './ladder';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per
 // field. The same readers run on the server (a GET form without JavaScript) and in the browser.
@@ -48,7 +48,7 @@ const done = <K extends string, T>(errors: Partial<Record<K, string>>, make: () 
 
 export type AmpClassChoice = AmpClass | 'own';
 export type AmpFields = 'watts' | 'channels' | 'ampClass' | 'efficiencyPct' | 'volts';
-export const AMP_DEFAULTS: Record<AmpFields, string> = { watts: '', channels: '4', ampClass: 'D', efficiencyPct: '', volts: String(CHARGING_VOLTS) };
+export const AMP_DEFAULTS: Record<AmpFields, string> = { watts: '', channels: '4', ampClass: 'D', efficiencyPct: '', volts: String(NOMINAL_VOLTS) };
 
 export function readAmpCurrent(f: Fields<AmpFields>): Read<AmpFields, AmpCurrentInput> {
 	const cls = (f.ampClass ?? 'D') as AmpClassChoice;
@@ -66,8 +66,16 @@ export function readAmpCurrent(f: Fields<AmpFields>): Read<AmpFields, AmpCurrent
 
 // ---- Power wire and fuse ----
 
-export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct';
-export const POWER_DEFAULTS: Record<PowerFields, string> = { currentA: '', powerLength: '', groundLength: '0.5', volts: String(CHARGING_VOLTS), maxDropPct: String(ABYC_E11_CRITICAL_DROP_PCT) };
+export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct' | 'tempC' | 'ownFuseA';
+export const POWER_DEFAULTS: Record<PowerFields, string> = {
+	currentA: '',
+	powerLength: '',
+	groundLength: '0.5',
+	volts: String(NOMINAL_VOLTS),
+	maxDropPct: String(ABYC_E11_CRITICAL_DROP_PCT),
+	tempC: String(DEFAULT_CONDUCTOR_TEMP_C),
+	ownFuseA: ''
+};
 
 const length = (text: string | undefined, label: string, unit: LengthUnit, allowZero: boolean): number | string => {
 	const t = (text ?? '').trim();
@@ -89,9 +97,20 @@ export function readPowerWire(f: Fields<PowerFields>, unit: LengthUnit = 'mm'): 
 		powerLength: () => length(f.powerLength, 'Power run length', unit, false),
 		groundLength: () => length(f.groundLength, 'Ground lead length', unit, true),
 		volts: () => readNumber(f.volts, { label: 'Supply voltage', unit: 'V', above: 0, max: 60 }),
-		maxDropPct: () => readNumber(f.maxDropPct, { label: 'Allowed voltage drop', unit: '%', above: 0, max: 100 })
+		maxDropPct: () => readNumber(f.maxDropPct, { label: 'Allowed voltage drop', unit: '%', above: 0, max: 100 }),
+		tempC: () => ((f.tempC ?? '').trim() === '' ? DEFAULT_CONDUCTOR_TEMP_C : readNumber(f.tempC, { label: 'Conductor temperature', unit: '°C', min: -40, max: 150 })),
+		// Left empty when the amplifiers' own fuses are not known.
+		ownFuseA: () => ((f.ownFuseA ?? '').trim() === '' ? 0 : readNumber(f.ownFuseA, { label: "Amplifiers' own fuses", unit: 'A', above: 0, max: 2000 }))
 	});
-	return done(errors, () => ({ currentA: values.currentA, powerLengthM: values.powerLength, groundLengthM: values.groundLength, volts: values.volts, maxDropPct: values.maxDropPct }));
+	return done(errors, () => ({
+		currentA: values.currentA,
+		powerLengthM: values.powerLength,
+		groundLengthM: values.groundLength,
+		volts: values.volts,
+		maxDropPct: values.maxDropPct,
+		tempC: values.tempC,
+		ownFuseA: values.ownFuseA || null
+	}));
 }
 
 // ---- Speaker cable plan ----
@@ -159,8 +178,31 @@ export function readResistances(text: string | undefined): number[] | string {
 
 // ---- Steering-wheel ladder ----
 
-export type LadderFields = 'line1' | 'buttons1' | 'line2' | 'buttons2' | 'tolerancePct' | 'series';
-export const LADDER_DEFAULTS: Record<LadderFields, string> = { line1: 'Line 1', buttons1: '', line2: 'Line 2', buttons2: '', tolerancePct: '5', series: 'E24' };
+export type LadderFields = 'line1' | 'buttons1' | 'line2' | 'buttons2' | 'tolerancePct' | 'series' | 'pullUp' | 'vref' | 'adcBits' | 'idle';
+export const LADDER_DEFAULTS: Record<LadderFields, string> = {
+	line1: 'Line 1',
+	buttons1: '',
+	line2: 'Line 2',
+	buttons2: '',
+	tolerancePct: String(DEFAULT_CIRCUIT.tolerancePct),
+	series: 'E24',
+	pullUp: '4k7',
+	vref: String(DEFAULT_CIRCUIT.vrefV),
+	adcBits: String(DEFAULT_CIRCUIT.adcBits),
+	idle: 'open'
+};
+
+/** A resistance field: resistor codes allowed; empty takes the default. */
+function readResistance(text: string | undefined, label: string, fallback: number | null, max: number): number | null | string {
+	const t = (text ?? '').trim();
+	if (t === '') return fallback;
+	try {
+		const ohms = readOhms(t, label);
+		return ohms > max ? `${label}: over ${max.toLocaleString('en')} Ω looks like a typo.` : ohms;
+	} catch (e) {
+		return (e as Error).message;
+	}
+}
 
 /** One button a line: "Volume + = 330", "Next: 1k", or a bare "2k2" (named by position). */
 export function readButtons(text: string | undefined, lineName: string): ControlLine | string {
@@ -184,7 +226,7 @@ export function readButtons(text: string | undefined, lineName: string): Control
 	return { name: lineName, buttons };
 }
 
-export function readLadder(f: Fields<LadderFields>): Read<LadderFields, { lines: ControlLine[]; tolerancePct: number; series: ESeries }> {
+export function readLadder(f: Fields<LadderFields>): Read<LadderFields, { lines: ControlLine[]; tolerancePct: number; circuit: LadderCircuit; series: ESeries }> {
 	const errors: Partial<Record<LadderFields, string>> = {};
 	const lines: ControlLine[] = [];
 	for (const [nameKey, buttonsKey] of [
@@ -199,11 +241,66 @@ export function readLadder(f: Fields<LadderFields>): Read<LadderFields, { lines:
 	if (lines.length === 0 && !errors.buttons1 && !errors.buttons2) errors.buttons1 = 'Enter at least one button and its resistance, for example "Volume + = 330".';
 	const tol = readNumber(f.tolerancePct, { label: 'Tolerance', unit: '%', min: 0, max: 50 });
 	if (typeof tol === 'string') errors.tolerancePct = tol;
+	const pullUp = readResistance(f.pullUp, 'Pull-up', DEFAULT_CIRCUIT.pullUpOhms, 10_000_000);
+	if (typeof pullUp === 'string') errors.pullUp = pullUp;
+	else if (!(pullUp !== null && pullUp > 0)) errors.pullUp = 'Pull-up must be more than 0 Ω.';
+	const vref = (f.vref ?? '').trim() === '' ? DEFAULT_CIRCUIT.vrefV : readNumber(f.vref, { label: 'Reference voltage', unit: 'V', above: 0, max: 60 });
+	if (typeof vref === 'string') errors.vref = vref;
+	const bits = (f.adcBits ?? '').trim() === '' ? DEFAULT_CIRCUIT.adcBits : readNumber(f.adcBits, { label: 'ADC resolution', unit: 'bits', whole: true, min: 6, max: 24 });
+	if (typeof bits === 'string') errors.adcBits = bits;
+	// "open", "∞" or nothing: the line reads open circuit when no button is pressed.
+	const idleText = (f.idle ?? '').trim();
+	const idle = /^(open|∞|inf(inity)?|oc)?$/i.test(idleText) ? null : readResistance(idleText, 'Idle line', null, 100_000_000);
+	if (typeof idle === 'string') errors.idle = idle;
 	const series: ESeries = f.series === 'E12' ? 'E12' : 'E24';
-	return done(errors, () => ({ lines, tolerancePct: tol as number, series }));
+	return done(errors, () => ({
+		lines,
+		tolerancePct: tol as number,
+		circuit: { pullUpOhms: pullUp as number, vrefV: vref as number, adcBits: bits as number, tolerancePct: tol as number, idleOhms: idle as number | null },
+		series
+	}));
 }
 
 /** A line as form text, for filling the form from a vehicle page. */
 export function buttonsText(line: ControlLine): string {
 	return line.buttons.map((b) => `${b.name} = ${b.ohms}`).join('\n');
+}
+
+// ---- Job sheet ----
+
+export type JobSheetFields = 'power' | 'ground' | 'remote' | 'speaker' | 'speakers' | 'cores';
+const RUN_FIELDS = ['power', 'ground', 'remote', 'speaker'] as const;
+
+export interface JobSheetQuery {
+	lengths: Partial<Record<(typeof RUN_FIELDS)[number], number>>;
+	speakers?: number;
+	cores?: number;
+	errors: Partial<Record<JobSheetFields, string>>;
+}
+
+/** The job sheet's typed run lengths (metres, or feet for imperial, unless the text names its unit) and counts. */
+export function readJobSheetQuery(get: (name: JobSheetFields) => string | null, unit: LengthUnit): JobSheetQuery {
+	const out: JobSheetQuery = { lengths: {}, errors: {} };
+	for (const f of RUN_FIELDS) {
+		const text = (get(f) ?? '').trim();
+		if (!text) continue;
+		try {
+			const m = readLength('m', text, unit);
+			if (!(m >= 0) || m > 30) out.errors[f] = 'A run length is between 0 and 30 m (98 ft).';
+			else out.lengths[f] = m;
+		} catch (e) {
+			out.errors[f] = (e as Error).message;
+		}
+	}
+	for (const [name, label, min, max] of [
+		['speakers', 'Speakers', 0, 64],
+		['cores', 'Cores per cable', 2, 24]
+	] as const) {
+		const text = get(name);
+		if (!text) continue;
+		const n = readNumber(text, { label, whole: true, min, max });
+		if (typeof n === 'string') out.errors[name] = n;
+		else out[name] = n;
+	}
+	return out;
 }

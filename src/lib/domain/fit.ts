@@ -27,6 +27,8 @@ export interface FitOptions {
 
 export type FitResult =
 	| { verdict: 'fits' | 'tight' | 'no-fit'; rotated: boolean; margins: Record<Axis, number>; limiting: Axis }
+	/** An axis that is measured already rules the part out; the others are null. */
+	| { verdict: 'no-fit'; rotated: false; margins: Record<Axis, number | null>; limiting: Axis; partial: true }
 	| { verdict: 'not-measured'; rotated: false; margins: null; limiting: null };
 
 export const DEFAULT_CLEARANCE_MM = 10;
@@ -60,11 +62,24 @@ export const fitInputSchema = z.object({
 export type FitInput = z.input<typeof fitInputSchema>;
 
 
-// One expression shared with SeatSpaceIndex so both give identical margins.
-const margin = (space: number, part: number, clearance: number): number => space - (part + clearance);
+// Verdicts are decided on whole micrometres: binary floating point cannot hold most decimal
+// millimetres or inch conversions exactly, so an exact fit would otherwise come out a few
+// 1e-14 mm short. A margin is rounded to the micrometre before it is compared.
+export const FIT_RESOLUTION_MM = 0.001;
+const UM_PER_MM = 1000;
+
+/** Room left on one axis, in mm, rounded to the whole micrometre (never −0). */
+export const margin = (space: number, part: number, clearance: number): number => {
+	const um = Math.round((space - (part + clearance)) * UM_PER_MM);
+	return um === 0 ? 0 : um / UM_PER_MM;
+};
+
+// Seat spaces in the reverse-scan index are kept in single precision (about 3e-4 mm off below
+// 5000 mm); a candidate within this much of fitting is passed on for fitVerdict to decide.
+export const SEAT_INDEX_SLACK_MM = FIT_RESOLUTION_MM;
 
 function verdictOf(minMargin: number, tightMm: number): 'fits' | 'tight' | 'no-fit' {
-	return minMargin < 0 ? 'no-fit' : minMargin < tightMm ? 'tight' : 'fits';
+	return minMargin < 0 ? 'no-fit' : margin(minMargin, tightMm, 0) < 0 ? 'tight' : 'fits';
 }
 
 /**
@@ -74,12 +89,10 @@ function verdictOf(minMargin: number, tightMm: number): 'fits' | 'tight' | 'no-f
 export function fitVerdict(box: Box, space: Space, opts: FitOptions = {}): FitResult {
 	const input = parseInput(fitInputSchema, { box, space, options: opts });
 	const { l, w, h } = input.space;
-	if (l === null || w === null || h === null) {
-		return { verdict: 'not-measured', rotated: false, margins: null, limiting: null };
-	}
 	const c = input.options?.clearanceMm ?? DEFAULT_CLEARANCE_MM;
 	const tightMm = input.options?.tightMm ?? DEFAULT_TIGHT_MM;
 	const b = input.box;
+	if (l === null || w === null || h === null) return partialFit(b, { l, w, h }, c);
 	const straight = { l: margin(l, b.l, c), w: margin(w, b.w, c), h: margin(h, b.h, c) };
 	const turned = { l: margin(l, b.w, c), w: margin(w, b.l, c), h: straight.h };
 	const rotated = smallest(turned) > smallest(straight);
@@ -90,60 +103,126 @@ export function fitVerdict(box: Box, space: Space, opts: FitOptions = {}): FitRe
 
 const smallest = (m: Record<Axis, number>): number => Math.min(m.l, m.w, m.h);
 
-// ISO 7736 chassis sizes as widely quoted (width × height); the standard's own text was not at hand.
-export const DIN_CHASSIS_MM = { 1: { w: 180, h: 50 }, 2: { w: 180, h: 100 } } as const;
+/**
+ * Some sides not measured: the part is still ruled out when a measured side cannot take it in
+ * either orientation (a lone floor side is checked against the part's shorter floor side).
+ */
+function partialFit(b: Box, s: Space, c: number): FitResult {
+	const floor = (side: number | null, other: number | null, along: number, across: number): number | null => {
+		if (side === null) return null;
+		if (other !== null) return margin(side, along, c);
+		return Math.max(margin(side, along, c), margin(side, across, c));
+	};
+	const margins: Record<Axis, number | null> = {
+		l: floor(s.l, s.w, b.l, b.w),
+		w: floor(s.w, s.l, b.w, b.l),
+		h: s.h === null ? null : margin(s.h, b.h, c)
+	};
+	// With both floor sides measured and height missing, the better orientation decides.
+	if (s.l !== null && s.w !== null) {
+		const straight = Math.min(margin(s.l, b.l, c), margin(s.w, b.w, c));
+		const turned = Math.min(margin(s.l, b.w, c), margin(s.w, b.l, c));
+		if (turned > straight) {
+			margins.l = margin(s.l, b.w, c);
+			margins.w = margin(s.w, b.l, c);
+		}
+	}
+	const short = (['l', 'w', 'h'] as const).filter((a) => margins[a] !== null && (margins[a] as number) < 0);
+	if (short.length === 0) return { verdict: 'not-measured', rotated: false, margins: null, limiting: null };
+	const limiting = short.reduce((a, x) => ((margins[x] as number) < (margins[a] as number) ? x : a));
+	return { verdict: 'no-fit', rotated: false, margins, limiting, partial: true };
+}
+
+// ISO 7736 as widely quoted (the standard's own text was not at hand): a unit's face is
+// 180 × 50 mm (double DIN 180 × 100 mm) and the dash aperture it goes into 182 × 53 mm
+// (double DIN 182 × 103 mm).
+export const DIN_UNIT_FACE_MM = { 1: { w: 180, h: 50 }, 2: { w: 180, h: 100 } } as const;
+export const DIN_APERTURE_MM = { 1: { w: 182, h: 53 }, 2: { w: 182, h: 103 } } as const;
+// Room behind the chassis for the harness plugs, the aerial lead and an interface adapter
+// (common practice); its own figure, apart from the clearance a seat check allows.
+export const DEFAULT_PLUG_ALLOWANCE_MM = 50;
+// An opening this much larger than the aperture the unit needs shows a gap: a trim kit or pocket hides it (common practice).
+export const TRIM_KIT_OVER_MM = 3;
 
 export type DinSize = 1 | 2;
 export type DashOpening = 'single-din' | 'double-din' | 'oversize' | 'integrated';
 
 export interface DepthFit {
 	verdict: FitVerdict;
-	/** Depth left behind the chassis after clearance for the harness plugs; null if not measured or no opening. */
+	/** Depth left behind the chassis after the plug allowance; null if not measured or no opening. */
 	depthMarginMm: number | null;
 	/** A dash kit, pocket or trim ring is needed around the unit. */
 	needsKit: boolean;
+	/** The plug and adapter allowance the depth was checked with. */
+	plugAllowanceMm: number;
 	reason: string;
 }
 
+export interface HeadUnitFitOptions {
+	plugAllowanceMm?: number;
+	tightMm?: number;
+}
+
+/**
+ * A head unit against the dash: the face against the opening (its recorded size when there is
+ * one, otherwise the ISO 7736 aperture its type implies), then the depth behind the chassis
+ * with room for the plugs.
+ */
 export function headUnitFit(
 	unit: { dinSize: DinSize; chassisDepthMm: number },
-	dash: { opening: DashOpening; depthMm: number | null },
-	opts: FitOptions = {}
+	dash: { opening: DashOpening; depthMm: number | null; openingMm?: { w: number; h: number } | null },
+	opts: HeadUnitFitOptions = {}
 ): DepthFit {
 	if (unit.dinSize !== 1 && unit.dinSize !== 2) {
 		throw new RangeError('A head unit is single DIN (1) or double DIN (2).');
 	}
 	const chassisDepth = parseInput(dimension('Chassis depth'), unit.chassisDepthMm);
 	const depth = parseInput(measured('Dash depth'), dash.depthMm);
-	const size = DIN_CHASSIS_MM[unit.dinSize];
-	const face = `${unit.dinSize === 1 ? 'single' : 'double'}-DIN unit (${size.w} × ${size.h} mm)`;
+	const plugAllowanceMm = parseInput(allowance('Plug allowance'), opts.plugAllowanceMm) ?? DEFAULT_PLUG_ALLOWANCE_MM;
+	const opened = dash.openingMm ? { w: parseInput(dimension('Opening width'), dash.openingMm.w), h: parseInput(dimension('Opening height'), dash.openingMm.h) } : null;
+	const size = DIN_UNIT_FACE_MM[unit.dinSize];
+	const aperture = DIN_APERTURE_MM[unit.dinSize];
+	const face = `${unit.dinSize === 1 ? 'single' : 'double'}-DIN unit (face ${size.w} × ${size.h} mm, aperture ${aperture.w} × ${aperture.h} mm)`;
+	const base = { plugAllowanceMm };
 
-	if (dash.opening === 'integrated') {
+	if (dash.opening === 'integrated' && !opened) {
 		return {
+			...base,
 			verdict: 'no-fit',
 			depthMarginMm: null,
 			needsKit: true,
 			reason: 'The factory unit is built into the dash; a vehicle-specific dash kit is needed before any DIN unit fits.'
 		};
 	}
-	if (dash.opening === 'single-din' && unit.dinSize === 2) {
-		const reason = `A ${face} does not go into a single-DIN opening.`;
-		return { verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+	let needsKit: boolean;
+	if (opened) {
+		// A recorded opening (1.5 DIN, oversize, or what a kit leaves) decides the face.
+		if (margin(opened.w, size.w, 0) < 0 || margin(opened.h, size.h, 0) < 0) {
+			const reason = `The recorded opening (${opened.w} × ${opened.h} mm) is smaller than the face of a ${face}.`;
+			return { ...base, verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+		}
+		needsKit = margin(opened.w, aperture.w, TRIM_KIT_OVER_MM) > 0 || margin(opened.h, aperture.h, TRIM_KIT_OVER_MM) > 0;
+	} else {
+		if (dash.opening === 'single-din' && unit.dinSize === 2) {
+			const reason = `A ${face} does not go into a single-DIN opening (${DIN_APERTURE_MM[1].w} × ${DIN_APERTURE_MM[1].h} mm).`;
+			return { ...base, verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+		}
+		// A smaller unit in a larger opening takes a pocket or trim kit (common practice).
+		needsKit = dash.opening === 'oversize' || (dash.opening === 'double-din' && unit.dinSize === 1);
 	}
-	// A smaller unit in a larger opening takes a pocket or trim kit (common practice).
-	const needsKit = dash.opening === 'oversize' || (dash.opening === 'double-din' && unit.dinSize === 1);
 	const kit = needsKit ? ' with a dash kit' : '';
 	if (depth === null) {
 		const reason = `The face fits${kit}; the dash depth is not measured yet.`;
-		return { verdict: 'not-measured', depthMarginMm: null, needsKit, reason };
+		return { ...base, verdict: 'not-measured', depthMarginMm: null, needsKit, reason };
 	}
-	const depthMarginMm = margin(depth, chassisDepth, opts.clearanceMm ?? DEFAULT_CLEARANCE_MM);
+	const depthMarginMm = margin(depth, chassisDepth, plugAllowanceMm);
 	const verdict = verdictOf(depthMarginMm, opts.tightMm ?? DEFAULT_TIGHT_MM);
+	const plugs = `${plugAllowanceMm} mm for plugs and adapters`;
 	const reason =
 		verdict === 'no-fit'
-			? `The chassis is ${Math.round(-depthMarginMm)} mm too deep for the dash (clearance for plugs included).`
-			: `Fits${kit}, ${Math.round(depthMarginMm)} mm to spare behind the chassis after clearance.`;
-	return { verdict, depthMarginMm, needsKit, reason };
+			? `The chassis is ${Math.round(-depthMarginMm)} mm too deep for the dash (${plugs} behind it included).`
+			: `Fits${kit}, ${Math.round(depthMarginMm)} mm to spare behind the chassis after ${plugs}.`;
+	return { ...base, verdict, depthMarginMm, needsKit, reason };
 }
 
 // A speaker frame overlaps its hole by only a few mm; a hole more than this much larger needs an adapter ring (common practice).
@@ -151,12 +230,11 @@ export const ADAPTER_RING_OVER_MM = 10;
 // Under 5 mm to spare on cut-out or depth is called tight (a product choice, like DEFAULT_TIGHT_MM).
 export const DEFAULT_SPEAKER_TIGHT_MM = 5;
 
-export interface SpeakerFitResult {
-	verdict: FitVerdict;
-	margins: { cutout: number; depth: number } | null;
-	limiting: 'cutout' | 'depth' | null;
-	needsAdapter: boolean;
-}
+export type SpeakerFitResult =
+	| { verdict: 'fits' | 'tight' | 'no-fit'; margins: { cutout: number; depth: number }; limiting: 'cutout' | 'depth'; needsAdapter: boolean }
+	/** The measured figure already rules the speaker out; the other one is null. */
+	| { verdict: 'no-fit'; margins: { cutout: number | null; depth: number | null }; limiting: 'cutout' | 'depth'; needsAdapter: false; partial: true }
+	| { verdict: 'not-measured'; margins: null; limiting: null; needsAdapter: false };
 
 /** A speaker's cut-out and mounting depth against the largest cut-out and the depth a location allows. */
 export function speakerFit(
@@ -169,9 +247,15 @@ export function speakerFit(
 	const cutout = parseInput(measured('Location cut-out'), location.cutoutMm);
 	const depth = parseInput(measured('Location depth'), location.depthMm);
 	if (cutout === null || depth === null) {
+		// A measured figure that already rules the speaker out is not hidden by the missing one.
+		const known = cutout !== null ? { cutout: margin(cutout, needCutout, 0) } : depth !== null ? { depth: margin(depth, needDepth, 0) } : {};
+		const [axis, m] = (Object.entries(known)[0] ?? []) as ['cutout' | 'depth' | undefined, number | undefined];
+		if (axis && m !== undefined && m < 0) {
+			return { verdict: 'no-fit', margins: { cutout: known.cutout ?? null, depth: known.depth ?? null }, limiting: axis, needsAdapter: false, partial: true };
+		}
 		return { verdict: 'not-measured', margins: null, limiting: null, needsAdapter: false };
 	}
-	const margins = { cutout: cutout - needCutout, depth: depth - needDepth };
+	const margins = { cutout: margin(cutout, needCutout, 0), depth: margin(depth, needDepth, 0) };
 	const limiting = margins.depth < margins.cutout ? 'depth' : 'cutout';
 	return {
 		verdict: verdictOf(margins[limiting], opts.tightMm ?? DEFAULT_SPEAKER_TIGHT_MM),
@@ -277,7 +361,7 @@ export class SeatSpaceIndex {
 			const m = floor < H ? floor : H;
 			rows[k] = i;
 			tight[k] = m < tightMm ? 1 : 0;
-			k += m >= 0 && L === L && W === W ? 1 : 0;
+			k += m >= -SEAT_INDEX_SLACK_MM && L === L && W === W ? 1 : 0;
 		}
 		return { rows: rows.slice(0, k), tight: tight.slice(0, k) };
 	}

@@ -1,5 +1,7 @@
 import {
 	DEFAULT_CLEARANCE_MM,
+	DEFAULT_PLUG_ALLOWANCE_MM,
+	type HeadUnitFitOptions,
 	DEFAULT_TIGHT_MM,
 	fitVerdict,
 	headUnitFit,
@@ -27,7 +29,8 @@ export const VERDICT_WORDS: Readonly<Record<FitVerdict, string>> = {
 };
 export const VERDICT_SYMBOLS: Readonly<Record<FitVerdict, string>> = { fits: '✓', tight: '!', 'no-fit': '✕', 'not-measured': '?' };
 
-const RANK: Readonly<Record<FitVerdict, number>> = { fits: 3, tight: 2, 'no-fit': 1, 'not-measured': 0 };
+// An unmeasured place may still take the part; one that certainly does not ranks last.
+const RANK: Readonly<Record<FitVerdict, number>> = { fits: 3, tight: 2, 'not-measured': 1, 'no-fit': 0 };
 
 export const AXIS_NAMES: Readonly<Record<Axis, string>> = { l: 'length', w: 'width', h: 'height' };
 const TOO: Readonly<Record<Axis, string>> = { l: 'too long', w: 'too wide', h: 'too tall' };
@@ -51,7 +54,12 @@ export function seatSpaceFits(spaces: readonly SeatSpace[], box: Box, opts: Seat
 	return spaces.map((s) => ({ spaceId: s.id, seat: s.seat, space: spaceOf(s), result: fitVerdict(box, spaceOf(s), opts) }));
 }
 
-const leastMargin = (r: FitResult): number => (r.margins ? Math.min(r.margins.l, r.margins.w, r.margins.h) : -Infinity);
+// The smallest measured margin; a side nobody measured does not count.
+const least = (margins: Record<string, number | null> | null): number => {
+	const known = margins ? Object.values(margins).filter((m): m is number => m !== null) : [];
+	return known.length ? Math.min(...known) : -Infinity;
+};
+const leastMargin = (r: FitResult): number => least(r.margins);
 
 /** The seat with the best verdict, and on a tie the most room to spare. */
 export function bestSpace(fits: readonly SpaceFit[]): SpaceFit | null {
@@ -89,9 +97,11 @@ export function seatFitReason(fit: SpaceFit, units: UnitSystem = 'metric', clear
 		return `The space ${where} is not measured yet (${missing.join(', ')} missing), so nobody can say.`;
 	}
 	const turned = r.rotated ? ' Turned a quarter on the floor, so its width runs along the seat.' : '';
-	const m = r.margins[r.limiting];
+	// The limiting side is always a measured one.
+	const m = r.margins[r.limiting] as number;
 	const allowance = clearanceMm > 0 ? ` after ${len(clearanceMm)} for cables and air` : '';
-	if (r.verdict === 'no-fit') return `Does not fit ${where}: ${len(-m)} ${TOO[r.limiting]}${allowance}.${turned}`;
+	const unmeasured = 'partial' in r ? ' The other sides are not measured yet.' : '';
+	if (r.verdict === 'no-fit') return `Does not fit ${where}: ${len(-m)} ${TOO[r.limiting]}${allowance}.${turned}${unmeasured}`;
 	if (r.verdict === 'tight') return `Goes in ${where}, but only ${len(m)} to spare in ${AXIS_NAMES[r.limiting]}${allowance}: check on the car.${turned}`;
 	return `Fits ${where} with ${len(m)} to spare in ${AXIS_NAMES[r.limiting]}, the closest side${allowance}.${turned}`;
 }
@@ -117,9 +127,8 @@ export function pickLocation(fits: readonly LocationFit[], wanted?: string | nul
 		if (hit) return hit;
 	}
 	let best: LocationFit | null = null;
-	const least = (r: SpeakerFitResult) => (r.margins ? Math.min(r.margins.cutout, r.margins.depth) : -Infinity);
 	for (const f of fits) {
-		if (!best || RANK[f.result.verdict] > RANK[best.result.verdict] || (RANK[f.result.verdict] === RANK[best.result.verdict] && least(f.result) > least(best.result))) best = f;
+		if (!best || RANK[f.result.verdict] > RANK[best.result.verdict] || (RANK[f.result.verdict] === RANK[best.result.verdict] && least(f.result.margins) > least(best.result.margins))) best = f;
 	}
 	return best;
 }
@@ -131,7 +140,7 @@ export function speakerFitReason(fit: LocationFit, units: UnitSystem = 'metric')
 	if (r.verdict === 'not-measured' || !r.margins || !r.limiting) return `The cut-out or depth of ${place} is not measured yet, so nobody can say.`;
 	const adapter = r.needsAdapter ? ' The hole is much larger than the speaker needs: use an adapter ring.' : '';
 	const what = r.limiting === 'depth' ? 'mounting depth' : 'cut-out';
-	const m = r.margins[r.limiting];
+	const m = r.margins[r.limiting] as number;
 	if (r.verdict === 'no-fit') {
 		return r.limiting === 'depth'
 			? `Does not fit ${place}: ${len(-m)} too deep for the space behind it.${adapter}`
@@ -141,12 +150,12 @@ export function speakerFitReason(fit: LocationFit, units: UnitSystem = 'metric')
 	return `Fits ${place} with ${len(m)} to spare on the ${what}, the closest figure.${adapter}`;
 }
 
-/** A head unit against the dash opening and depth. */
-export function dashFit(unit: Pick<HeadUnit, 'dinSize' | 'chassisDepthMm'>, dash: Pick<DashSection, 'opening' | 'depthMm'>, opts: SeatFitOptions = {}): DepthFit {
+/** A head unit against the dash opening and depth. A seat clearance passed along does not apply: depth has its own plug allowance. */
+export function dashFit(unit: Pick<HeadUnit, 'dinSize' | 'chassisDepthMm'>, dash: Pick<DashSection, 'opening' | 'depthMm'>, opts: HeadUnitFitOptions & { clearanceMm?: number } = {}): DepthFit {
 	if (dash.opening === null) {
-		return { verdict: 'not-measured', depthMarginMm: null, needsKit: false, reason: 'The dash opening is not recorded yet, so nobody can say.' };
+		return { verdict: 'not-measured', depthMarginMm: null, needsKit: false, plugAllowanceMm: opts.plugAllowanceMm ?? DEFAULT_PLUG_ALLOWANCE_MM, reason: 'The dash opening is not recorded yet, so nobody can say.' };
 	}
-	return headUnitFit(unit, { opening: dash.opening, depthMm: dash.depthMm }, opts);
+	return headUnitFit(unit, { opening: dash.opening, depthMm: dash.depthMm }, { plugAllowanceMm: opts.plugAllowanceMm, tightMm: opts.tightMm });
 }
 
 export { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM };

@@ -1,6 +1,7 @@
-// Steering-wheel control ladders: each button switches a resistance onto the control line and
-// the head-unit input reads it. A line with no button pressed is taken to read open circuit,
-// so lines sharing one input read each pressed button on its own.
+// Steering-wheel control ladders as a circuit: the interface pulls the control line up to its
+// reference voltage through a resistor, each button switches a resistance from the line to
+// ground, and an ADC reads the divider. Lines that share one input sit in parallel, so a line
+// that is idle (its resistance with no button pressed) loads every reading of the others.
 
 export type ESeries = 'E12' | 'E24';
 
@@ -12,26 +13,8 @@ export interface Button {
 export interface ControlLine {
 	name: string;
 	buttons: Button[];
-}
-
-export interface Reading {
-	line: string;
-	button: string;
-	ohms: number;
-}
-
-export interface Gap {
-	/** Higher reading over lower one (≥ 1); its log is the distance on the input's scale. */
-	ratio: number;
-	low: Reading;
-	high: Reading;
-}
-
-export interface LadderReport {
-	readings: Reading[];
-	smallestGap: Gap | null;
-	collides: boolean;
-	collisions: [Reading, Reading][];
+	/** This line's own idle resistance, Ω; otherwise the circuit's. */
+	idleOhms?: number;
 }
 
 function checkOhms(ohms: number, what: string): void {
@@ -86,42 +69,126 @@ export function nearestE(value: number, name: ESeries): number {
 	return best;
 }
 
-/** Bands overlap when low × (1 + t) reaches high × (1 − t). */
-function collide(low: number, high: number, t: number): boolean {
-	return low * (1 + t) >= high * (1 - t);
+export interface LadderCircuit {
+	/** The interface's pull-up resistor to the reference voltage, Ω. */
+	pullUpOhms: number;
+	/** ADC reference voltage (also the pull-up supply), V. */
+	vrefV: number;
+	/** ADC resolution, bits. */
+	adcBits: number;
+	/** Resistor tolerance, ±%, applied to the buttons and the pull-up. */
+	tolerancePct: number;
+	/** A line's resistance with no button pressed, Ω; null for an open line. */
+	idleOhms: number | null;
 }
 
-function checkTolerance(tolerancePct: number): number {
-	if (!(tolerancePct >= 0 && tolerancePct < 100)) {
-		throw new RangeError('Tolerance must be a percentage from 0 up to (not including) 100.');
-	}
-	return tolerancePct / 100;
+// A typical steering-control interface: 5 V reference, 10-bit ADC, 4.7 kΩ pull-up, ±5 % parts
+// (common practice; the interface's own data sheet wins).
+export const DEFAULT_CIRCUIT: Readonly<LadderCircuit> = { pullUpOhms: 4700, vrefV: 5, adcBits: 10, tolerancePct: 5, idleOhms: null };
+// Two readings closer than this many counts, tolerance included, are called a collision: the
+// ADC's own error is about a count either way (common practice).
+export const GUARD_COUNTS = 2;
+
+export interface Reading {
+	line: string;
+	button: string;
+	/** The button's own resistance, Ω (Infinity for an open idle line). */
+	ohms: number;
+	/** What the input sees: the button with every other line idle in parallel, Ω. */
+	seenOhms: number;
+	volts: number;
+	counts: number;
+	/** The counts the reading can take with every resistor at either end of its tolerance. */
+	band: { low: number; high: number };
+	idle?: true;
 }
 
-/** Every reading the shared input sees, the closest pair, and pairs whose tolerance bands overlap. */
-export function ladderReport(lines: readonly ControlLine[], tolerancePct: number): LadderReport {
-	const t = checkTolerance(tolerancePct);
-	const readings: Reading[] = lines
-		.flatMap((line) =>
-			line.buttons.map((b) => {
-				checkOhms(b.ohms, `Button "${b.name}" on ${line.name}`);
-				return { line: line.name, button: b.name, ohms: b.ohms };
-			})
-		)
-		.sort((a, b) => a.ohms - b.ohms);
+export interface Gap {
+	/** Clear counts between the two bands (negative where they overlap). */
+	counts: number;
+	low: Reading;
+	high: Reading;
+}
+
+export interface LadderReport {
+	circuit: LadderCircuit;
+	fullScale: number;
+	readings: Reading[];
+	/** The reading with no button pressed. */
+	idle: Reading;
+	smallestGap: Gap | null;
+	collides: boolean;
+	collisions: [Reading, Reading][];
+}
+
+function checkCircuit(c: LadderCircuit): LadderCircuit {
+	if (!(c.pullUpOhms > 0) || !Number.isFinite(c.pullUpOhms)) throw new RangeError('The pull-up must be a resistance above 0 Ω.');
+	if (!(c.vrefV > 0) || !Number.isFinite(c.vrefV)) throw new RangeError('The reference voltage must be above 0 V.');
+	if (!Number.isInteger(c.adcBits) || c.adcBits < 6 || c.adcBits > 24) throw new RangeError('ADC resolution must be a whole number of bits from 6 to 24.');
+	if (!(c.tolerancePct >= 0 && c.tolerancePct < 100)) throw new RangeError('Tolerance must be a percentage from 0 up to (not including) 100.');
+	if (c.idleOhms !== null) checkOhms(c.idleOhms, 'The idle-line resistance');
+	return c;
+}
+
+/** Divider ratio R / (R + Rp); an open line (Infinity) reads the full reference. */
+const ratio = (r: number, pullUp: number): number => (r === Infinity ? 1 : r / (r + pullUp));
+
+/**
+ * A pull-up divider read by an ideal ADC: V = Vref × R / (R + Rp), counts = V / Vref × (2^N − 1)
+ * (voltage divider rule; the code scale of a unipolar ADC).
+ */
+export function ladderReading(seenOhms: number, circuit: LadderCircuit): { volts: number; counts: number } {
+	const fullScale = 2 ** circuit.adcBits - 1;
+	const k = ratio(seenOhms, circuit.pullUpOhms);
+	return { volts: circuit.vrefV * k, counts: k * fullScale };
+}
+
+/** Counts at the two ends of tolerance: every resistor low with the pull-up high, and the reverse. */
+function band(parts: { button: number; others: number[] }, c: LadderCircuit): { low: number; high: number } {
+	const t = c.tolerancePct / 100;
+	const fullScale = 2 ** c.adcBits - 1;
+	const seen = (f: number) => parallelOpen([parts.button * f, ...parts.others.map((o) => o * f)]);
+	return { low: ratio(seen(1 - t), c.pullUpOhms * (1 + t)) * fullScale, high: ratio(seen(1 + t), c.pullUpOhms * (1 - t)) * fullScale };
+}
+
+/** Parallel resistances where an open branch (Infinity) carries nothing. */
+function parallelOpen(rs: readonly number[]): number {
+	const closed = rs.filter((r) => r !== Infinity);
+	return closed.length === 0 ? Infinity : parallel(closed);
+}
+
+/** Every reading the shared input sees (the idle line included), the closest pair in counts, and pairs that cannot be told apart. */
+export function ladderReport(lines: readonly ControlLine[], circuitIn: Partial<LadderCircuit> = {}): LadderReport {
+	const circuit = checkCircuit({ ...DEFAULT_CIRCUIT, ...circuitIn });
+	const idleOf = (line: ControlLine) => line.idleOhms ?? circuit.idleOhms ?? Infinity;
+	const make = (line: string, button: string, ohms: number, others: number[], idle?: true): Reading => {
+		const seenOhms = parallelOpen([ohms, ...others]);
+		const { volts, counts } = ladderReading(seenOhms, circuit);
+		return { line, button, ohms, seenOhms, volts, counts, band: band({ button: ohms, others }, circuit), ...(idle ? { idle } : {}) };
+	};
+	const buttons = lines.flatMap((line, i) => {
+		const others = lines.filter((_, j) => j !== i).map(idleOf);
+		return line.buttons.map((b) => {
+			checkOhms(b.ohms, `Button "${b.name}" on ${line.name}`);
+			return make(line.name, b.name, b.ohms, others);
+		});
+	});
+	const idleAll = lines.map(idleOf);
+	const idle = make('All lines', 'No button', idleAll[0] ?? Infinity, idleAll.slice(1), true);
+	const readings = [...buttons, idle].sort((a, b) => a.counts - b.counts);
 
 	let smallestGap: Gap | null = null;
 	const collisions: [Reading, Reading][] = [];
 	for (let i = 0; i + 1 < readings.length; i++) {
 		const low = readings[i];
 		const high = readings[i + 1];
-		const ratio = low.ohms === high.ohms ? 1 : high.ohms / low.ohms;
-		if (!smallestGap || ratio < smallestGap.ratio) smallestGap = { ratio, low, high };
-		for (let j = i + 1; j < readings.length && collide(low.ohms, readings[j].ohms, t); j++) {
+		const gap = high.band.low - low.band.high;
+		if (!smallestGap || gap < smallestGap.counts) smallestGap = { counts: gap, low, high };
+		for (let j = i + 1; j < readings.length && readings[j].band.low - low.band.high < GUARD_COUNTS; j++) {
 			collisions.push([low, readings[j]]);
 		}
 	}
-	return { readings, smallestGap, collides: collisions.length > 0, collisions };
+	return { circuit, fullScale: 2 ** circuit.adcBits - 1, readings, idle, smallestGap, collides: collisions.length > 0, collisions };
 }
 
 export type SeparatorResult =
@@ -129,44 +196,42 @@ export type SeparatorResult =
 	| { ok: false; reason: string };
 
 /**
- * Two lines on one input: a resistor in series with every button of one line shifts that
- * line's readings up. Readings do not move apart monotonically as the resistor grows, so each
- * standard value is tried in ascending order, on either line, and the smallest value that
- * leaves no overlapping bands wins (ties go to the second line).
+ * Two lines on one input: a resistor in series with one line moves all of its readings (and its
+ * idle resistance) up. Readings do not move apart monotonically as the resistor grows, so each
+ * standard value is tried in ascending order, on either line, and the smallest value that leaves
+ * every reading, the idle one included, readable and apart wins (ties go to the second line).
+ * The idle reading caps the search: a value that pushes a button into it is never suggested.
  */
-export function suggestSeparator(
-	lineA: ControlLine,
-	lineB: ControlLine,
-	tolerancePct: number,
-	name: ESeries
-): SeparatorResult {
-	const direct = ladderReport([lineA, lineB], tolerancePct);
+export function suggestSeparator(lineA: ControlLine, lineB: ControlLine, circuit: Partial<LadderCircuit>, name: ESeries): SeparatorResult {
+	const direct = ladderReport([lineA, lineB], circuit);
 	if (!direct.collides) return { ok: true, resistorOhms: 0, onLine: null, report: direct };
 	for (const line of [lineA, lineB]) {
-		const own = ladderReport([line], tolerancePct);
-		if (own.collides) {
-			const [a, b] = own.collisions[0];
+		const own = ladderReport([line], circuit);
+		const clash = own.collisions.find(([a, b]) => !a.idle && !b.idle);
+		if (clash) {
 			return {
 				ok: false,
-				reason: `On ${line.name}, "${a.button}" and "${b.button}" already read too close together; no series resistor can separate them.`
+				reason: `On ${line.name}, "${clash[0].button}" and "${clash[1].button}" already read too close together; no series resistor can separate them.`
 			};
 		}
 	}
 	const shifted = (line: ControlLine, r: number): ControlLine => ({
 		name: line.name,
-		buttons: line.buttons.map((b) => ({ name: b.name, ohms: b.ohms + r }))
+		buttons: line.buttons.map((b) => ({ name: b.name, ohms: b.ohms + r })),
+		idleOhms: (line.idleOhms ?? direct.circuit.idleOhms ?? Infinity) + r
 	});
 	for (const r of eValues(name)) {
 		for (const [fixed, moved] of [
 			[lineA, lineB],
 			[lineB, lineA]
 		] as const) {
-			const report = ladderReport([fixed, shifted(moved, r)], tolerancePct);
+			const report = ladderReport([fixed, shifted(moved, r)], circuit);
 			if (!report.collides) return { ok: true, resistorOhms: r, onLine: moved.name, report };
 		}
 	}
+	const t = direct.circuit.tolerancePct;
 	return {
 		ok: false,
-		reason: `No single ${name} resistor up to 9.1 MΩ separates ${lineA.name} and ${lineB.name} at ±${tolerancePct} %.`
+		reason: `No single ${name} resistor separates ${lineA.name} and ${lineB.name} at ±${t} % within the readable range (below the idle reading of ${Math.round(direct.idle.counts)} counts): the readings crowd together near the top of the scale. A smaller pull-up or a second input helps.`
 	};
 }

@@ -77,6 +77,13 @@ const amplifier = z.object({
 		.gt(0, 'Efficiency must be more than 0.')
 		.max(1, 'Efficiency cannot be more than 1 (100 %).')
 		.nullable()
+		.default(null),
+	/** The amplifier's own fuses added up, as printed on it; the feed's fuse is never smaller. */
+	fuseRatingA: z
+		.number({ error: "The amplifier's fuse rating must be a number of amps." })
+		.positive("The amplifier's fuse rating must be more than 0 A.")
+		.max(500, 'An amplifier fuse rating over 500 A looks like a typo.')
+		.nullable()
 		.default(null)
 });
 
@@ -154,6 +161,7 @@ export const PART_FIELDS = [
 	'rmsWattsPerChannel',
 	'ampClass',
 	'efficiency',
+	'fuseRatingA',
 	'dinSize',
 	'chassisDepthMm',
 	'nominalSize',
@@ -166,7 +174,7 @@ export type PartField = (typeof PART_FIELDS)[number];
 export type PartFormValues = Record<PartField, string>;
 
 const LENGTH_FIELDS: ReadonlySet<PartField> = new Set(['lengthMm', 'widthMm', 'heightMm', 'chassisDepthMm', 'cutoutMm', 'mountingDepthMm']);
-const NUMBER_FIELDS: ReadonlySet<PartField> = new Set(['channels', 'rmsWattsPerChannel', 'efficiency', 'dinSize', 'impedanceOhm']);
+const NUMBER_FIELDS: ReadonlySet<PartField> = new Set(['channels', 'rmsWattsPerChannel', 'efficiency', 'fuseRatingA', 'dinSize', 'impedanceOhm']);
 
 const NUMBER = /^[+-]?(\d+(\.\d+)?|\.\d+)$/;
 
@@ -248,6 +256,7 @@ const FIELD_LABELS: Readonly<Record<PartField | 'form', string>> = {
 	rmsWattsPerChannel: 'RMS power per channel',
 	ampClass: 'Amplifier class',
 	efficiency: 'Efficiency',
+	fuseRatingA: 'Own fuses (A)',
 	dinSize: 'DIN size',
 	chassisDepthMm: 'Chassis depth',
 	nominalSize: 'Nominal size',
@@ -283,7 +292,7 @@ export function partFieldsFromForm(entries: Iterable<[string, FormDataEntryValue
 
 /** Which form fields a kind uses, in form order. */
 export const KIND_FIELDS: Readonly<Record<PartKind, readonly PartField[]>> = {
-	amplifier: ['lengthMm', 'widthMm', 'heightMm', 'channels', 'rmsWattsPerChannel', 'ampClass', 'efficiency'],
+	amplifier: ['lengthMm', 'widthMm', 'heightMm', 'channels', 'rmsWattsPerChannel', 'ampClass', 'efficiency', 'fuseRatingA'],
 	'head-unit': ['dinSize', 'chassisDepthMm', 'lengthMm', 'widthMm', 'heightMm'],
 	speaker: ['nominalSize', 'cutoutMm', 'mountingDepthMm', 'impedanceOhm'],
 	enclosure: ['lengthMm', 'widthMm', 'heightMm']

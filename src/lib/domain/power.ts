@@ -2,60 +2,110 @@ import { z } from 'zod';
 import { parseInput } from './validate';
 import { awgWire, formatAwg, STOCKED_POWER_GAUGES } from './wire';
 import { mainFuse, wireAmpacityA } from './fuse';
+import { mToFt } from './units';
 
 export type AmpClass = 'AB' | 'D';
 
 // Typical share of battery power that leaves as audio power (common practice).
 export const AMP_CLASS_EFFICIENCY: Readonly<Record<AmpClass, number>> = { AB: 0.55, D: 0.8 };
 
-// Voltage with the engine running and the alternator charging (common practice).
+// The basis every figure is worked on: 12.0 V nominal, the voltage ABYC E-11's drop tables are
+// defined at. A lower voltage gives more current for the same power, so it is the safe side.
+export const NOMINAL_VOLTS = 12;
+// Voltage with the engine running and the alternator charging (common practice); shown beside.
 export const CHARGING_VOLTS = 14.4;
 
-// ABYC E-11 allows 3 % drop on critical circuits; used here as the default target.
+// ABYC E-11 allows 3 % drop on critical circuits and 10 % on others; 3 % is the default target.
 export const ABYC_E11_CRITICAL_DROP_PCT = 3;
+export const ABYC_E11_GENERAL_DROP_PCT = 10;
 
-const positive = (label: string, unit: string) =>
+// ABYC E-11's constant for copper in its conductor formula, Ω·cmil/ft.
+export const ABYC_COPPER_K = 10.75;
+// Conductor temperature the Ohm's-law check uses unless one is stated (IEC 60028 reference, 20 °C).
+export const DEFAULT_CONDUCTOR_TEMP_C = 20;
+
+// ABYC E-11's minimum circular-mil areas per gauge (the SAE conductor minimums; figures from
+// memory, and every published 3 % table cell in the tests agrees with them).
+export const ABYC_MIN_CIRCULAR_MILS: Readonly<Record<number, number>> = {
+	[-3]: 205_500,
+	[-2]: 158_600,
+	[-1]: 125_100,
+	0: 98_980,
+	1: 77_790,
+	2: 62_450,
+	4: 37_360,
+	6: 24_538,
+	8: 14_810,
+	10: 9_343,
+	12: 5_833,
+	14: 3_702,
+	16: 2_336,
+	18: 1_537
+};
+
+/** ABYC E-11: CM = K × I × L / E, with L the round trip in feet and E the allowed drop in volts. */
+export function abycCircularMils(currentA: number, roundTripFt: number, dropV: number): number {
+	if (!(currentA >= 0) || !(roundTripFt >= 0) || !(dropV > 0)) throw new RangeError('Current, length and allowed drop must be positive numbers.');
+	return (ABYC_COPPER_K * currentA * roundTripFt) / dropV;
+}
+
+/** The basis a wire or current figure was worked on, in words for the page beside the answer. */
+export function electricalBasis(volts: number, extra: { maxDropPct?: number; tempC?: number } = {}): string {
+	const parts = [`${volts} V ${volts === NOMINAL_VOLTS ? 'nominal (the ABYC E-11 basis)' : 'as stated'}`];
+	if (volts !== CHARGING_VOLTS) parts.push(`about ${CHARGING_VOLTS} V with the engine running`);
+	if (extra.maxDropPct !== undefined) parts.push(`${extra.maxDropPct} % allowed drop, ABYC E-11 conductor formula CM = 10.75 × I × L ÷ E (L the round trip in feet)`);
+	if (extra.tempC !== undefined) parts.push(`copper resistance at ${extra.tempC} °C conductor temperature (IEC 60028)`);
+	return parts.join('; ');
+}
+
+// Every figure has a ceiling well past any car, so nothing downstream meets an infinite or absurd value.
+const positive = (label: string, unit: string, max: number) =>
 	z
 		.number({ error: `${label} must be a number of ${unit}.` })
-		.positive(`${label} must be more than 0 ${unit}.`);
+		.positive(`${label} must be more than 0 ${unit}.`)
+		.max(max, `${label} over ${max.toLocaleString('en')} ${unit} looks like a typo.`);
 
 export const ampCurrentInputSchema = z.object({
-	rmsWattsPerChannel: positive('RMS power per channel', 'W'),
+	rmsWattsPerChannel: positive('RMS power per channel', 'W', 10_000),
 	channels: z
 		.number({ error: 'Channel count must be a number.' })
 		.int('Channel count must be a whole number.')
-		.min(1, 'An amplifier has at least 1 channel.'),
+		.min(1, 'An amplifier has at least 1 channel.')
+		.max(16, 'More than 16 channels looks like a typo.'),
 	efficiency: z
 		.number({ error: 'Efficiency must be a number between 0 and 1.' })
 		.gt(0, 'Efficiency must be more than 0.')
 		.max(1, 'Efficiency cannot be more than 1 (100 %).'),
-	volts: positive('Supply voltage', 'V')
+	volts: positive('Supply voltage', 'V', 60).default(NOMINAL_VOLTS)
 });
 export type AmpCurrentInput = z.input<typeof ampCurrentInputSchema>;
 
 export const powerWireInputSchema = z.object({
-	currentA: positive('Current', 'A'),
-	powerLengthM: positive('Power run length', 'm'),
+	currentA: positive('Current', 'A', 2000),
+	powerLengthM: positive('Power run length', 'm', 100),
 	groundLengthM: z
 		.number({ error: 'Ground lead length must be a number of m.' })
-		.min(0, 'Ground lead length cannot be negative.'),
-	volts: positive('Supply voltage', 'V'),
-	maxDropPct: positive('Allowed voltage drop', '%')
-		.max(100, 'Allowed voltage drop cannot be more than 100 %.')
+		.min(0, 'Ground lead length cannot be negative.')
+		.max(100, 'Ground lead length over 100 m looks like a typo.'),
+	volts: positive('Supply voltage', 'V', 60).default(NOMINAL_VOLTS),
+	/** The amplifiers' own fuse ratings added up; the fuse must be at least this. */
+	ownFuseA: positive("Amplifiers' own fuse rating", 'A', 2000).nullable().default(null),
+	maxDropPct: positive('Allowed voltage drop', '%', 100)
 		.default(ABYC_E11_CRITICAL_DROP_PCT),
 	tempC: z
 		.number({ error: 'Cable temperature must be a number of °C.' })
 		.min(-40, 'Cable temperature below −40 °C is out of range.')
 		.max(150, 'Cable temperature above 150 °C is out of range.')
-		.default(20)
+		.default(DEFAULT_CONDUCTOR_TEMP_C)
 });
 export type PowerWireInput = z.input<typeof powerWireInputSchema>;
 
 
-/** Battery current: I = P_out / (efficiency × V), with P_out the total RMS output. */
-export function ampCurrent(input: AmpCurrentInput): { currentA: number } {
+/** Battery current: I = P_out / (efficiency × V), with P_out the total RMS output; the running-voltage figure beside. */
+export function ampCurrent(input: AmpCurrentInput): { currentA: number; volts: number; runningCurrentA: number; basis: string } {
 	const { rmsWattsPerChannel, channels, efficiency, volts } = parseInput(ampCurrentInputSchema, input);
-	return { currentA: (rmsWattsPerChannel * channels) / (efficiency * volts) };
+	const at = (v: number) => (rmsWattsPerChannel * channels) / (efficiency * v);
+	return { currentA: at(volts), volts, runningCurrentA: at(CHARGING_VOLTS), basis: electricalBasis(volts) };
 }
 
 /** Ohm's law over the loop (power run plus ground path): V = I × R. */
@@ -77,10 +127,25 @@ export interface WireCandidate {
 	resistanceOhms: number;
 	dropV: number;
 	dropPct: number;
+	/** ABYC E-11's minimum area for the gauge against what its formula asks for, circular mils. */
+	circularMils: number;
+	meetsAbyc: boolean;
 	ampacityA: number;
+	/** Both the ABYC E-11 formula and Ohm's law at the stated temperature keep within the target. */
 	meetsDrop: boolean;
 	carriesCurrent: boolean;
 	fuseA: number | null;
+}
+
+export interface WireBasis {
+	volts: number;
+	maxDropPct: number;
+	tempC: number;
+	roundTripFt: number;
+	/** What ABYC E-11's formula asks for, circular mils. */
+	requiredCircularMils: number;
+	ownFuseA: number | null;
+	text: string;
 }
 
 export type PowerWireResult =
@@ -93,52 +158,82 @@ export type PowerWireResult =
 			dropPct: number;
 			ampacityA: number;
 			fuseA: number;
+			fuseBasis: string;
+			/** Set when the drop alone allowed a thinner cable that could not carry the fuse. */
+			upsized: { fromAwg: string; reason: string } | null;
+			basis: WireBasis;
 			candidates: WireCandidate[];
 	  }
-	| { ok: false; reason: string; candidates: WireCandidate[] };
+	| { ok: false; reason: string; basis: WireBasis; candidates: WireCandidate[] };
 
 /**
- * Thinnest stocked gauge whose drop stays within the target and which a standard fuse can
- * protect while covering the draw. Candidates are listed thinnest first.
+ * Thinnest stocked gauge that keeps the drop within the target on both ABYC E-11's formula and
+ * Ohm's law at the stated conductor temperature, and that can carry the fuse its load needs.
+ * Candidates are listed thinnest first.
  */
 export function powerWire(input: PowerWireInput): PowerWireResult {
-	const { currentA, powerLengthM, groundLengthM, volts, maxDropPct, tempC } = parseInput(
-		powerWireInputSchema,
-		input
-	);
+	const { currentA, powerLengthM, groundLengthM, volts, maxDropPct, tempC, ownFuseA } = parseInput(powerWireInputSchema, input);
 	const loopM = powerLengthM + groundLengthM;
+	const roundTripFt = mToFt(loopM);
+	const requiredCircularMils = abycCircularMils(currentA, roundTripFt, (volts * maxDropPct) / 100);
+	const basis: WireBasis = {
+		volts,
+		maxDropPct,
+		tempC,
+		roundTripFt,
+		requiredCircularMils,
+		ownFuseA,
+		text: electricalBasis(volts, { maxDropPct, tempC })
+	};
 	const candidates = [...STOCKED_POWER_GAUGES]
 		.sort((a, b) => b - a)
 		.map((gauge): WireCandidate => {
 			const { resistanceOhms, dropV } = voltageDrop(currentA, loopM, gauge, tempC);
 			const dropPct = (dropV / volts) * 100;
+			const circularMils = ABYC_MIN_CIRCULAR_MILS[gauge];
+			const meetsAbyc = circularMils >= requiredCircularMils;
 			const ampacityA = wireAmpacityA(gauge);
-			const fuse = mainFuse(currentA, gauge);
+			const fuse = mainFuse(currentA, gauge, ownFuseA);
 			return {
 				awg: formatAwg(gauge),
 				gauge,
 				resistanceOhms,
 				dropV,
 				dropPct,
+				circularMils,
+				meetsAbyc,
 				ampacityA,
-				meetsDrop: dropPct <= maxDropPct,
+				meetsDrop: meetsAbyc && dropPct <= maxDropPct,
 				carriesCurrent: currentA <= ampacityA,
 				fuseA: fuse.ok ? fuse.fuseA : null
 			};
 		});
 
 	const chosen = candidates.find((c) => c.meetsDrop && c.carriesCurrent && c.fuseA !== null);
+	const byDrop = candidates.find((c) => c.meetsDrop);
 	if (chosen && chosen.fuseA !== null) {
 		const { awg, gauge, resistanceOhms, dropV, dropPct, ampacityA, fuseA } = chosen;
-		return { ok: true, awg, gauge, resistanceOhms, dropV, dropPct, ampacityA, fuseA, candidates };
+		const upsized =
+			byDrop && byDrop.gauge !== gauge
+				? {
+						fromAwg: byDrop.awg,
+						reason: `${byDrop.awg} AWG keeps the drop within ${maxDropPct} %, but the ${fuseA} A fuse the load needs is more than it can carry (${byDrop.ampacityA} A), so the cable is ${awg} AWG.`
+					}
+				: null;
+		const fuse = mainFuse(currentA, gauge, ownFuseA);
+		const fuseBasis = fuse.ok ? fuse.basis : '';
+		return { ok: true, awg, gauge, resistanceOhms, dropV, dropPct, ampacityA, fuseA, fuseBasis, upsized, basis, candidates };
 	}
 	const heaviest = candidates[candidates.length - 1];
+	const heaviestFuse = mainFuse(currentA, heaviest.gauge, ownFuseA);
 	const reason = !heaviest.carriesCurrent
 		? `${round1(currentA)} A is more than the heaviest stocked cable (${heaviest.awg} AWG, ${heaviest.ampacityA} A) can carry; split the load over separate runs.`
 		: !heaviest.meetsDrop
-			? `Even ${heaviest.awg} AWG drops ${round1(heaviest.dropPct)} % over a ${round1(loopM)} m loop, above the ${maxDropPct} % target; shorten the run or use heavier cable.`
-			: `No stocked cable pairs with a standard fuse for ${round1(currentA)} A; use a heavier cable.`;
-	return { ok: false, reason, candidates };
+			? `Even ${heaviest.awg} AWG drops more than the ${maxDropPct} % target over a ${round1(loopM)} m loop (${round1(heaviest.dropPct)} % at ${tempC} °C; ABYC E-11 asks for ${Math.round(requiredCircularMils).toLocaleString('en')} circular mils); shorten the run or use heavier cable.`
+			: heaviestFuse.ok
+				? `No stocked cable pairs with a standard fuse for ${round1(currentA)} A; use a heavier cable.`
+				: heaviestFuse.reason;
+	return { ok: false, reason, basis, candidates };
 }
 
 const round1 = (x: number): number => Math.round(x * 10) / 10;

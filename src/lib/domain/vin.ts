@@ -1,4 +1,4 @@
-// Vehicle identification numbers per 49 CFR 565.
+// Vehicle identification numbers: ISO 3779 worldwide, 49 CFR 565 for North America.
 
 export const VIN_LENGTH = 17;
 
@@ -14,13 +14,25 @@ export const CHECK_DIGIT_WEIGHTS: readonly number[] = [8, 7, 6, 5, 4, 3, 2, 10, 
 // 49 CFR 565.15 model-year codes in order; the cycle repeats every 30 years.
 export const MODEL_YEAR_CODES = 'ABCDEFGHJKLMNPRSTVWXY123456789';
 
+export type VinRegion = 'north-america' | 'elsewhere';
+
 export interface VinBasics {
 	vin: string;
 	valid: boolean;
-	checkDigit: { expected: string; actual: string } | null;
+	/** `applies` is false outside North America, where ISO 3779 leaves position 9 to the maker. */
+	checkDigit: { expected: string; actual: string; applies: boolean } | null;
 	modelYear: number | null;
 	wmi: string | null;
+	region: VinRegion | null;
 	problem: string | null;
+}
+
+/**
+ * ISO 3780 gives the first character by region; 1–5 is North America, where 49 CFR 565 makes
+ * the check digit (position 9) and the model-year code (position 10) mandatory.
+ */
+export function vinRegion(vin: string): VinRegion {
+	return /^[1-5]/.test(vin) ? 'north-america' : 'elsewhere';
 }
 
 /** Upper-case and drop the spaces and dashes people type or scanners add. */
@@ -81,20 +93,30 @@ export function wmi(vin: string): string {
 	return vin.slice(0, 3);
 }
 
-export function decodeVinBasics(input: string): VinBasics {
+/**
+ * Checks what the VIN's region makes mandatory: outside North America a position 9 that is not
+ * the check digit, or a position 10 that is not a year code, is the maker's choice, not a typo.
+ * With the current year given, a model year more than one year ahead is flagged.
+ */
+export function decodeVinBasics(input: string, opts: { currentYear?: number } = {}): VinBasics {
 	const vin = normalizeVin(input);
 	const formatProblem = vinProblem(vin);
 	if (formatProblem) {
-		return { vin, valid: false, checkDigit: null, modelYear: null, wmi: null, problem: formatProblem };
+		return { vin, valid: false, checkDigit: null, modelYear: null, wmi: null, region: null, problem: formatProblem };
 	}
+	const region = vinRegion(vin);
+	const strict = region === 'north-america';
 	const expected = checkDigit(vin);
 	const actual = vin[8];
 	const year = modelYear(vin);
+	const ahead = opts.currentYear !== undefined && year !== null && year > opts.currentYear + 1;
 	const problem =
-		expected !== actual
+		strict && expected !== actual
 			? `Check digit (position 9) is ${actual} but the other characters give ${expected}; a character is probably mistyped.`
-			: year === null
+			: strict && year === null
 				? `Position 10 (${vin[9]}) is not a model-year code.`
-				: null;
-	return { vin, valid: problem === null, checkDigit: { expected, actual }, modelYear: year, wmi: wmi(vin), problem };
+				: ahead
+					? `Position 10 (${vin[9]}) gives model year ${year}, more than a year after ${opts.currentYear}; a character is probably mistyped.`
+					: null;
+	return { vin, valid: problem === null, checkDigit: { expected, actual, applies: strict }, modelYear: year, wmi: wmi(vin), region, problem };
 }

@@ -6,6 +6,7 @@ import {
 	DEFAULT_CLEARANCE_MM,
 	DEFAULT_TIGHT_MM,
 	fitVerdict,
+	SEAT_INDEX_SLACK_MM,
 	SeatSpaceIndex,
 	type Axis,
 	type Box,
@@ -274,7 +275,7 @@ const SEAT_ORDER: Readonly<Record<string, number>> = Object.fromEntries(SEATS.ma
 
 // Single precision rounds a figure by at most 3e-4 mm below 5000 mm; asking the index for a box
 // this much smaller finds every candidate, and fitVerdict on the page's own figures decides.
-const INDEX_SLACK_MM = 0.001;
+const INDEX_SLACK_MM = SEAT_INDEX_SLACK_MM;
 
 /** "Which vehicles and seats does this box fit": the index finds the candidates, fitVerdict decides. */
 export async function vehiclesForBox(box: Box, options: { clearanceMm?: number; tightMm?: number } = {}): Promise<ReverseAnswer> {

@@ -35,7 +35,7 @@ export async function lookupVin(input: string, decode: (vin: string) => Promise<
 	const vin = normalizeVin(input);
 	const formatProblem = vinProblem(vin);
 	if (formatProblem) throw new ServiceError(formatProblem, 400);
-	const basics = decodeVinBasics(vin);
+	const basics = decodeVinBasics(vin, { currentYear: new Date().getUTCFullYear() });
 	const result = await decode(vin).catch((err): DecodeResult => ({ status: 'unavailable', reason: err instanceof Error ? err.message : 'error' }));
 	const decoded = result.status === 'found' ? result.vehicle : null;
 	const year = basics.modelYear ?? decoded?.modelYear ?? null;

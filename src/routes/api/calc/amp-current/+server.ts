@@ -3,10 +3,11 @@ import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
 import { ampCurrent, ampCurrentInputSchema } from '$lib/domain/power';
+import { FUSE_CAUTIONS } from '$lib/domain/fuse';
 
 export const POST: RequestHandler = ({ locals, request }) =>
 	apiCall(async () => {
 		requireRole(locals, 'viewer');
 		const input = await readJson(request, ampCurrentInputSchema);
-		return json(ampCurrent(input));
+		return json({ ...ampCurrent(input), cautions: FUSE_CAUTIONS });
 	});

@@ -4,6 +4,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
 import { powerWire, powerWireInputSchema } from '$lib/domain/power';
+import { FUSE_CAUTIONS } from '$lib/domain/fuse';
 
 export const POST: RequestHandler = ({ locals, request }) =>
 	apiCall(async () => {
@@ -11,6 +12,6 @@ export const POST: RequestHandler = ({ locals, request }) =>
 		const input = await readJson(request, powerWireInputSchema);
 		const result = powerWire(input);
 		if (!result.ok) throw new ServiceError(result.reason, 422);
-		const { awg, resistanceOhms, dropV, dropPct, fuseA } = result;
-		return json({ awg, resistanceOhms, dropV, dropPct, fuseA });
+		const { awg, resistanceOhms, dropV, dropPct, ampacityA, fuseA, fuseBasis, upsized, basis } = result;
+		return json({ awg, resistanceOhms, dropV, dropPct, ampacityA, fuseA, fuseBasis, upsized, basis, cautions: FUSE_CAUTIONS });
 	});

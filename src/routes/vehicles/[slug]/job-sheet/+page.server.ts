@@ -7,12 +7,8 @@ import { measurementOrigins, placeReaders } from '$lib/server/services/evidence'
 import { trustSummary } from '$lib/server/services/trust';
 import { ServiceError } from '$lib/server/errors';
 import { jobSheet } from '$lib/domain/jobSheet';
-import { readNumber } from '$lib/domain/calcInput';
-import { readLength } from '$lib/domain/units';
+import { readJobSheetQuery } from '$lib/domain/calcInput';
 import { BODY_STYLE_NAMES, BATTERY_LOCATION_NAMES, type BodyStyle } from '$lib/domain/content/schema';
-
-const LENGTH_FIELDS = ['power', 'ground', 'remote', 'speaker'] as const;
-type LengthField = (typeof LENGTH_FIELDS)[number];
 
 export const load: PageServerLoad = async ({ locals, params, url }) => {
 	requireRole(locals, 'viewer');
@@ -30,32 +26,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			measurementOrigins(vehicle, placeReaders(rev.content))
 		]);
 
-		// Typed lengths: metres (or feet for imperial) unless the text names its unit.
-		const errors: Record<string, string> = {};
-		const lengths: Partial<Record<LengthField, number>> = {};
-		for (const f of LENGTH_FIELDS) {
-			const text = (q.get(f) ?? '').trim();
-			if (!text) continue;
-			try {
-				const m = readLength('m', text, unit);
-				if (!(m >= 0) || m > 30) errors[f] = 'A run length is between 0 and 30 m (98 ft).';
-				else lengths[f] = m;
-			} catch (e) {
-				errors[f] = (e as Error).message;
-			}
-		}
-		const count = (name: string, label: string, min: number, max: number) => {
-			const text = q.get(name);
-			if (!text) return undefined;
-			const n = readNumber(text, { label, whole: true, min, max });
-			if (typeof n === 'string') {
-				errors[name] = n;
-				return undefined;
-			}
-			return n;
-		};
-		const speakers = count('speakers', 'Speakers', 0, 64);
-		const cores = count('cores', 'Cores per cable', 2, 24);
+		const { lengths, speakers, cores, errors } = readJobSheetQuery((name) => q.get(name), unit);
 
 		const sheet = jobSheet({
 			content: rev.content,
