@@ -1,5 +1,5 @@
 import { databaseIsUp } from './db';
-import { warmSeatSpaceIndex } from './services/fit';
+import { warmSeatSpaceIndex } from './fit';
 import { startWatchNotices } from './services/watch';
 import { searchIndex, stopSearchIndex } from './search';
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_MEASURED_MM, MAX_RUN_M } from '../sizeRules';
 
 // One vehicle page as stored in a revision. Units are metric: mm for spaces and
 // parts, m for cable runs, Ω for resistance and impedance, A for fuses.
@@ -197,7 +198,7 @@ interface MeasureRule {
 	missing: string;
 }
 
-const MM: MeasureRule = { unit: 'mm', min: 0, inclusive: false, max: 3000, missing: 'leave it empty if not measured' };
+const MM: MeasureRule = { unit: 'mm', min: 0, inclusive: false, max: MAX_MEASURED_MM, missing: 'leave it empty if not measured' };
 
 function measure(pattern: string, label: string, kind: 'mm' | 'm' | 'ohm' | 'amp', rule: MeasureRule) {
 	const L = capital(label);
@@ -323,7 +324,7 @@ const powerRun = section('A power run', {
 		unit: 'm',
 		min: 0,
 		inclusive: false,
-		max: 30,
+		max: MAX_RUN_M,
 		missing: 'leave it empty if not measured'
 	})
 });

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { BODY_STYLE_NAMES, BODY_STYLES, type BodyStyle } from '../content/schema';
-import { inToMm } from '../units';
+import { inToMm, mmToIn } from '../units';
+import { MAX_MEASURED_MM } from '../sizeRules';
 import { COMPARISON_NAMES, MEASUREMENTS, measurementByKey, type MeasureCondition } from './measurements';
 import { YEAR_MAX, YEAR_MIN } from './query';
 
@@ -59,7 +60,7 @@ const opSchema = z.enum(['gte', 'lte'], { error: `The comparison must be "gte" (
 const valueSchema = z.coerce
 	.number({ error: 'A measurement value must be a number.' })
 	.positive({ error: 'A measurement value must be more than 0.' })
-	.max(3000, { error: 'A measurement value must be at most 3000 mm (118 in); check the unit.' });
+	.max(MAX_MEASURED_MM, { error: `A measurement value must be at most ${MAX_MEASURED_MM} mm (${Math.floor(mmToIn(MAX_MEASURED_MM))} in); check the unit.` });
 
 export type FilterParse = { ok: true; filters: SearchFilters } | { ok: false; message: string; field: string };
 

@@ -8,6 +8,7 @@ import { trustSummary } from '$lib/server/services/trust';
 import { ServiceError } from '$lib/server/errors';
 import { jobSheet } from '$lib/domain/jobSheet';
 import { readNumber } from '$lib/domain/calcInput';
+import { runLengthProblem } from '$lib/domain/sizeRules';
 import { readLength } from '$lib/domain/content/formData';
 import { BODY_STYLE_NAMES, BATTERY_LOCATION_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 
@@ -38,7 +39,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			if (!text) continue;
 			try {
 				const m = readLength('m', text, unit);
-				if (!(m >= 0) || m > 30) errors[f] = 'A run length is between 0 and 30 m (98 ft).';
+				const problem = runLengthProblem(m, 'A run length', true);
+				if (problem) errors[f] = problem;
 				else lengths[f] = m;
 			} catch (e) {
 				errors[f] = (e as Error).message;
