@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { BODY_STYLE_NAMES, BODY_STYLES, type BodyStyle } from '../content/schema';
 import { inToMm, mmToIn } from '../units';
 import { MAX_MEASURED_MM } from '../sizeRules';
-import { COMPARISON_NAMES, MEASUREMENTS, measurementByKey, type MeasureCondition } from './measurements';
+import { COMPARISON_NAMES, MEASUREMENTS, measurementByKey, toMicrometres, type MeasureCondition } from './measurements';
 import { YEAR_MAX, YEAR_MIN } from './query';
 
 export const QUERY_MAX = 200;
@@ -97,7 +97,7 @@ export function parseSearchFilters(params: URLSearchParams): FilterParse {
 			const label = measurementByKey.get(measure.data)!.label;
 			return { ok: false, message: `${label}: ${value.error.issues[0].message}`, field: 'value' };
 		}
-		conditions.push({ measure: measure.data, op: op.data, mm: value.data });
+		conditions.push({ measure: measure.data, op: op.data, mm: toMicrometres(value.data) / 1000 });
 	}
 	if (conditions.length > MAX_CONDITIONS) {
 		return { ok: false, message: `At most ${MAX_CONDITIONS} measurement conditions at a time.`, field: 'measure' };
