@@ -2,20 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { fitAnswer, fitReason, type FitPlaces } from '../../src/lib/domain/fitAnswer';
 import { boxSchema, reverseOptionsSchema, reverseQuerySchema, vehicleFitSchema } from '../../src/lib/domain/fitRequest';
 import { partSizeProblem, runLengthProblem } from '../../src/lib/domain/sizeRules';
-import type { SeatSpace } from '../../src/lib/domain/content/schema';
 import type { Part } from '../../src/lib/domain/part';
+import { seatSpace as space } from '../helpers/places';
 
 // Invented places and parts (sample data). Margins are worked by hand: space − (part + clearance).
-const space = (id: string, seat: SeatSpace['seat'], l: number | null, w: number | null, h: number | null): SeatSpace => ({
-	id,
-	seat,
-	lengthMm: l,
-	widthMm: w,
-	heightMm: h,
-	obstacles: '',
-	boardNeeded: false,
-	travelNotes: ''
-});
 const places: FitPlaces = {
 	seats: [space('d', 'driver', 310, 210, 60), space('p', 'passenger', 270, 420, 100)],
 	dash: { opening: 'double-din', depthMm: 185 },

@@ -1,25 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { all, create } from 'mathjs';
-import { emptyContent, type SeatSpace, type VehicleContent } from '../../../src/lib/domain/content/schema';
+import { emptyContent, type VehicleContent } from '../../../src/lib/domain/content/schema';
 import { parseSearchFilters } from '../../../src/lib/domain/search/filters';
 import { vehicleSlug } from '../../../src/lib/domain/slug';
 import { VehicleSearchEngine } from '../../../src/lib/server/search/engine';
+import { seatSpace as space } from '../../helpers/places';
 
 // Measurement filters against invented pages (sample data). Figures are hand-worked; inch figures use
 // the international inch, 25.4 mm exactly, with mathjs in exact decimal arithmetic as the reference.
 const exact = create(all, { number: 'BigNumber', precision: 64 });
 const inchesToMm = (inches: string) => Number(exact.evaluate(`${inches} inch`).toNumeric('mm').toString());
 
-const space = (id: string, seat: SeatSpace['seat'], l: number | null, w: number | null, h: number | null): SeatSpace => ({
-	id,
-	seat,
-	lengthMm: l,
-	widthMm: w,
-	heightMm: h,
-	obstacles: '',
-	boardNeeded: false,
-	travelNotes: ''
-});
 
 function page(model: string, edit: (c: VehicleContent) => void): VehicleContent {
 	const c = emptyContent({ make: 'Sampleworks', model, yearFrom: 2012, yearTo: 2016, body: 'sedan' });
