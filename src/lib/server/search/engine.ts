@@ -299,7 +299,7 @@ export class VehicleSearchEngine {
 	private figures(slot: number, conditions: MeasureCondition[]) {
 		const figures: { label: string; mm: number }[] = [];
 		const entryOf = new Map<number, number>();
-		for (const c of groupByPlace(conditions) ?? []) entryOf.set(c.place, this.measures.bestEntry(slot, c));
+		for (const c of groupByPlace(conditions)?.places ?? []) entryOf.set(c.place, this.measures.bestEntry(slot, c));
 		for (const cond of conditions) {
 			const m = measurementByKey.get(cond.measure);
 			const at = m ? (entryOf.get(m.place) ?? -1) : -1;
