@@ -10,7 +10,9 @@ import { fmt, summarize, writeResults, seededRandom } from './lib';
 import { BODY_STYLES, emptyContent, type BodyStyle, type VehicleContent } from '../../src/lib/domain/content/schema';
 import { identityWords, vehicleSearchSections, type SearchSection } from '../../src/lib/domain/search/document';
 import { vehicleSlug } from '../../src/lib/domain/slug';
-import { VehicleSearchEngine, withNoteSnippet, type IndexInput } from '../../src/lib/server/search/engine';
+import { VehicleSearchEngine } from '../../src/lib/server/search/engine';
+import { withNoteSnippet } from '../../src/lib/server/search/hits';
+import type { IndexInput } from '../../src/lib/server/search/types';
 import type { SearchFilters } from '../../src/lib/domain/search/filters';
 import { withinOneEdit } from '../../src/lib/domain/search/didYouMean';
 

@@ -2,13 +2,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { closeDb, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
-import { emptyContent, type VehicleContent } from '../../src/lib/domain/content/schema';
+import { emptyContent, type SeatSpace, type VehicleContent } from '../../src/lib/domain/content/schema';
+import { seatSpace as seat } from '../helpers/places';
 import { fitVerdict, type Box } from '../../src/lib/domain/fit';
 import type { Part } from '../../src/lib/domain/part';
 import { createVehicle, revisionById, saveRevision } from '../../src/lib/server/services/revisions';
 import { requireVehicle } from '../../src/lib/server/services/vehicles';
 import { createPart } from '../../src/lib/server/services/parts';
-import { checkVehicleFit, seatSpaceIndex, vehiclesForBox, vehiclesForPart, warmSeatSpaceIndex } from '../../src/lib/server/services/fit';
+import { checkVehicleFit, vehiclesForBox, vehiclesForPart } from '../../src/lib/server/services/fit';
+import { seatSpaceIndex, warmSeatSpaceIndex } from '../../src/lib/server/fit';
 import { confirmPage, flaggableFields, flagField, trustSummary } from '../../src/lib/server/services/trust';
 import { Confirmation } from '../../src/lib/server/db/models';
 import type { SessionUser } from '../../src/lib/domain/sessionUser';
@@ -23,19 +25,7 @@ let amp: Part;
 let headUnit: Part;
 let speaker: Part;
 
-type SeatName = 'driver' | 'passenger' | 'rear';
-const seat = (id: string, s: SeatName, l: number | null, w: number | null, h: number | null) => ({
-	id,
-	seat: s,
-	lengthMm: l,
-	widthMm: w,
-	heightMm: h,
-	obstacles: '',
-	boardNeeded: false,
-	travelNotes: ''
-});
-
-function page(model: string, spaces: ReturnType<typeof seat>[], extra: (c: VehicleContent) => void = () => {}): VehicleContent {
+function page(model: string, spaces: SeatSpace[], extra: (c: VehicleContent) => void = () => {}): VehicleContent {
 	const c = emptyContent({ make: 'Quillan', model, yearFrom: 2011, yearTo: 2015, body: 'sedan' });
 	c.seats.spaces = spaces;
 	extra(c);

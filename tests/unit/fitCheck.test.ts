@@ -1,19 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { unit } from 'mathjs';
 import { bestSpace, dashFit, pickLocation, pickSpace, seatFitReason, seatSpaceFits, speakerFitReason, speakerLocationFits } from '../../src/lib/domain/fitCheck';
-import type { SeatSpace, SpeakerLocation } from '../../src/lib/domain/content/schema';
+import type { SpeakerLocation } from '../../src/lib/domain/content/schema';
+import { seatSpace as space } from '../helpers/places';
 
 // Invented seat spaces and speaker locations (sample data).
-const space = (id: string, seat: SeatSpace['seat'], l: number | null, w: number | null, h: number | null): SeatSpace => ({
-	id,
-	seat,
-	lengthMm: l,
-	widthMm: w,
-	heightMm: h,
-	obstacles: '',
-	boardNeeded: false,
-	travelNotes: ''
-});
 const box = { l: 300, w: 200, h: 50 };
 const spaces = [space('d', 'driver', 310, 210, 60), space('p', 'passenger', 270, 420, 100), space('r', 'rear', 400, 300, 59), space('x', 'rear', 500, null, 90)];
 

@@ -1,6 +1,7 @@
 import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEMP_C, NOMINAL_VOLTS, type AmpCurrentInput, type AmpClass, type PowerWireInput } from './power';
 import { readLength, readOhms, type LengthUnit } from './units';
 import { DEFAULT_CIRCUIT, type ControlLine, type ESeries, type LadderCircuit } from './ladder';
+import { runLengthProblem } from './sizeRules';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per
 // field. The same readers run on the server (a GET form without JavaScript) and in the browser.
@@ -82,9 +83,7 @@ const length = (text: string | undefined, label: string, unit: LengthUnit, allow
 	if (t === '') return `Enter the ${label.toLowerCase()} in ${unit === 'mm' ? 'metres' : 'feet'}.`;
 	try {
 		const m = readLength('m', t, unit);
-		if (!allowZero && !(m > 0)) return `${label} must be more than 0.`;
-		if (m > 30) return `${label} over 30 m (98 ft) looks like a typo.`;
-		return m;
+		return runLengthProblem(m, label, allowZero) ?? m;
 	} catch (e) {
 		return `${label}: ${(e as Error).message}`;
 	}

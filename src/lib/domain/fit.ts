@@ -1,5 +1,8 @@
 import { z } from 'zod';
 import { parseInput } from './validate';
+import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM, partSizeMm } from './sizeRules';
+
+export { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM } from './sizeRules';
 
 export type Axis = 'l' | 'w' | 'h';
 export type FitVerdict = 'fits' | 'tight' | 'no-fit' | 'not-measured';
@@ -31,15 +34,7 @@ export type FitResult =
 	| { verdict: 'no-fit'; rotated: false; margins: Record<Axis, number | null>; limiting: Axis; partial: true }
 	| { verdict: 'not-measured'; rotated: false; margins: null; limiting: null };
 
-export const DEFAULT_CLEARANCE_MM = 10;
-export const DEFAULT_TIGHT_MM = 15;
-export const MAX_DIMENSION_MM = 5000;
-
-const dimension = (what: string) =>
-	z
-		.number({ error: `${what} must be a number of millimetres.` })
-		.positive(`${what} must be more than 0 mm.`)
-		.max(MAX_DIMENSION_MM, `${what} over ${MAX_DIMENSION_MM} mm looks like a typo; sizes are in millimetres.`);
+const dimension = partSizeMm;
 
 const measured = (what: string) =>
 	z.preprocess(
@@ -47,12 +42,7 @@ const measured = (what: string) =>
 		dimension(what).nullable()
 	);
 
-const allowance = (what: string) =>
-	z
-		.number({ error: `${what} must be a number of millimetres.` })
-		.min(0, `${what} cannot be negative.`)
-		.max(500, `${what} over 500 mm looks like a typo.`)
-		.optional();
+const allowance = (what: string) => allowanceMm(what).optional();
 
 export const fitInputSchema = z.object({
 	box: z.object({ l: dimension('Part length'), w: dimension('Part width'), h: dimension('Part height') }),

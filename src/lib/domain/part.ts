@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { AMP_CLASS_EFFICIENCY, type AmpClass } from './power';
-import { MAX_DIMENSION_MM, type Box } from './fit';
+import type { Box } from './fit';
+import { partSizeMm } from './sizeRules';
 import { MM_PER_INCH, parseLength, type LengthUnit } from './units';
 
 // A product in the shop's catalogue. Sizes are stored in mm; every kind keeps the figures its
@@ -42,11 +43,7 @@ const name = z
 
 const notes = z.string({ error: 'Notes must be text.' }).trim().max(2000, 'Keep the notes under 2000 characters.').default('');
 
-const mm = (what: string, max = MAX_DIMENSION_MM) =>
-	z
-		.number({ error: `${what} must be a number of millimetres.` })
-		.positive(`${what} must be more than 0 mm.`)
-		.max(max, `${what} over ${max} mm looks like a typo; sizes are in millimetres.`);
+const mm = partSizeMm;
 
 const optionalMm = (what: string) => mm(what).nullable().default(null);
 

@@ -1,6 +1,6 @@
 import { authSecret } from './config';
 import { databaseIsUp } from './db';
-import { warmSeatSpaceIndex } from './services/fit';
+import { warmSeatSpaceIndex } from './fit';
 import { startWatchNotices } from './services/watch';
 import { searchIndex, stopSearchIndex } from './search';
 

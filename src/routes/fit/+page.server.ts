@@ -1,9 +1,9 @@
 import type { PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { ServiceError } from '$lib/server/errors';
-import { catalogue, currentRevision, listVehicles, requireVehicle } from '$lib/server/services/vehicles';
+import { catalogue, listVehicles, requireVehicle } from '$lib/server/services/vehicles';
 import { listParts } from '$lib/server/services/parts';
-import { measurementOrigins, placeReaders } from '$lib/server/services/evidence';
+import { vehicleFitFacts } from '$lib/server/services/fit';
 import { trustSummary } from '$lib/server/services/trust';
 import { BODY_STYLE_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 
@@ -20,18 +20,15 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	if (slug) {
 		try {
 			const v = await requireVehicle(slug);
-			const rev = await currentRevision(v);
-			if (rev) {
-				const [evidence, trust] = await Promise.all([measurementOrigins(v, placeReaders(rev.content)), trustSummary(v, locals.units)]);
+			const [facts, trust] = await Promise.all([vehicleFitFacts(v), trustSummary(v, locals.units)]);
+			if (facts) {
 				vehicle = {
 					slug: v.slug,
 					title: v.title,
 					make: v.make,
 					body: BODY_STYLE_NAMES[v.body as BodyStyle] ?? v.body,
-					seats: rev.content.seats.spaces,
-					dash: { opening: rev.content.dash.opening, depthMm: rev.content.dash.depthMm, kit: rev.content.dash.kit },
-					speakers: rev.content.speakers.locations,
-					evidence,
+					...facts.places,
+					evidence: facts.evidence,
 					trust
 				};
 			}

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { emptyContent, parseContent, type VehicleContent } from '../../../src/lib/domain/content/schema';
 import { identityWords, noteWords, vehicleHeadline, vehicleSearchSections } from '../../../src/lib/domain/search/document';
-import { measurementRanges, MEASUREMENTS, rangeMeets } from '../../../src/lib/domain/search/measurements';
+import { MEASURE_PLACES, MEASUREMENTS, toMicrometres } from '../../../src/lib/domain/search/measurements';
 import { searchWords } from '../../../src/lib/domain/search/words';
 
 const samples: VehicleContent[] = JSON.parse(readFileSync(new URL('../../../content-seed/vehicles.json', import.meta.url), 'utf8')).vehicles.map(
@@ -53,7 +53,7 @@ describe('what a page gives the index', () => {
 });
 
 describe('measurement filters', () => {
-	it('records the smallest and largest of each measurement, NaN when none', () => {
+	it('records each entry of each place with its figures, null where not measured', () => {
 		const content = emptyContent({ make: 'Sample', model: 'Seats', yearFrom: 2010, yearTo: 2012, body: 'sedan' });
 		const space = { obstacles: '', boardNeeded: false, travelNotes: '' };
 		content.seats.spaces = [
@@ -61,15 +61,23 @@ describe('measurement filters', () => {
 			{ id: 'b', seat: 'passenger', lengthMm: 350, widthMm: 280, heightMm: 110, ...space },
 			{ id: 'c', seat: 'driver', lengthMm: 380, widthMm: null, heightMm: 70, ...space }
 		];
-		const ranges = Object.fromEntries(MEASUREMENTS.map((m, i) => [m.key, measurementRanges(content)[i]]));
-		expect(ranges['passenger-seat-height']).toEqual({ min: 85, max: 110 });
-		expect(ranges['driver-seat-width'].min).toBeNaN();
-		expect(ranges['dash-depth'].max).toBeNaN();
-		// a condition holds when any one recorded space meets it
-		expect(rangeMeets(ranges['passenger-seat-height'], { op: 'gte', mm: 90 })).toBe(true);
-		expect(rangeMeets(ranges['passenger-seat-height'], { op: 'lte', mm: 90 })).toBe(true);
-		expect(rangeMeets(ranges['passenger-seat-height'], { op: 'gte', mm: 111 })).toBe(false);
-		expect(rangeMeets(ranges['driver-seat-width'], { op: 'gte', mm: 1 })).toBe(false);
+		const entries = Object.fromEntries(MEASURE_PLACES.map((p) => [p.key, p.entries(content)]));
+		expect(entries['passenger-seat']).toEqual([
+			[400, 300, 85],
+			[350, 280, 110]
+		]);
+		expect(entries['driver-seat']).toEqual([[380, null, 70]]);
+		expect(entries['rear-seat']).toEqual([]);
+		expect(entries.dash).toEqual([[null]]);
+		// each measurement names its place and its figure within an entry
+		const height = MEASUREMENTS.find((m) => m.key === 'passenger-seat-height')!;
+		expect(entries[MEASURE_PLACES[height.place].key][1][height.column]).toBe(110);
+	});
+
+	it('compares figures in whole micrometres', () => {
+		// 4.54 in × 25.4 mm/in = 115.316 mm (international inch, exact); binary floating point gives 115.31599999999999
+		expect(toMicrometres(4.54 * 25.4)).toBe(115_316);
+		expect(toMicrometres(115.316)).toBe(115_316);
 	});
 
 	it('offers length, width and height for each seat, dash depth and firewall hole size', () => {

@@ -4,7 +4,9 @@ import { emptyContent, parseContent, type VehicleContent } from '../../../src/li
 import { vehicleSearchSections } from '../../../src/lib/domain/search/document';
 import type { SearchFilters } from '../../../src/lib/domain/search/filters';
 import { vehicleSlug } from '../../../src/lib/domain/slug';
-import { VehicleSearchEngine, withNoteSnippet, type IndexInput } from '../../../src/lib/server/search/engine';
+import { VehicleSearchEngine } from '../../../src/lib/server/search/engine';
+import { withNoteSnippet } from '../../../src/lib/server/search/hits';
+import type { IndexInput } from '../../../src/lib/server/search/types';
 
 // Sample data: the invented sample pages plus a few invented neighbours that compete for the same words.
 const samples: VehicleContent[] = JSON.parse(readFileSync(new URL('../../../content-seed/vehicles.json', import.meta.url), 'utf8')).vehicles.map(

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { fieldRegistry, fieldTree, type EditHint, type FieldInfo, type ListInfo, type SearchHint } from './fieldTree';
+import { MAX_MEASURED_MM, MAX_RUN_M } from '../sizeRules';
 
 // One vehicle page as stored in a revision. Units are metric: mm for spaces and
 // parts, m for cable runs, Ω for resistance and impedance, A for fuses.
@@ -178,7 +179,7 @@ interface MeasureRule {
 	missing: string;
 }
 
-const MM: MeasureRule = { unit: 'mm', min: 0, inclusive: false, max: 3000, missing: 'leave it empty if not measured' };
+const MM: MeasureRule = { unit: 'mm', min: 0, inclusive: false, max: MAX_MEASURED_MM, missing: 'leave it empty if not measured' };
 
 function measure(label: string, kind: 'mm' | 'm' | 'ohm' | 'amp', rule: MeasureRule, show: Show = {}) {
 	const L = capital(label);
@@ -317,7 +318,7 @@ const powerRun = section('A power run', {
 		unit: 'm',
 		min: 0,
 		inclusive: false,
-		max: 30,
+		max: MAX_RUN_M,
 		missing: 'leave it empty if not measured'
 	})
 });

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { BODY_STYLE_NAMES, BODY_STYLES, type BodyStyle } from '../content/schema';
-import { inToMm } from '../units';
-import { COMPARISON_NAMES, MEASUREMENTS, measurementByKey, type MeasureCondition } from './measurements';
+import { inToMm, mmToIn } from '../units';
+import { MAX_MEASURED_MM } from '../sizeRules';
+import { COMPARISON_NAMES, MEASUREMENTS, measurementByKey, toMicrometres, type MeasureCondition } from './measurements';
 import { YEAR_MAX, YEAR_MIN } from './query';
 
 export const QUERY_MAX = 200;
@@ -59,7 +60,7 @@ const opSchema = z.enum(['gte', 'lte'], { error: `The comparison must be "gte" (
 const valueSchema = z.coerce
 	.number({ error: 'A measurement value must be a number.' })
 	.positive({ error: 'A measurement value must be more than 0.' })
-	.max(3000, { error: 'A measurement value must be at most 3000 mm (118 in); check the unit.' });
+	.max(MAX_MEASURED_MM, { error: `A measurement value must be at most ${MAX_MEASURED_MM} mm (${Math.floor(mmToIn(MAX_MEASURED_MM))} in); check the unit.` });
 
 export type FilterParse = { ok: true; filters: SearchFilters } | { ok: false; message: string; field: string };
 
@@ -96,7 +97,7 @@ export function parseSearchFilters(params: URLSearchParams): FilterParse {
 			const label = measurementByKey.get(measure.data)!.label;
 			return { ok: false, message: `${label}: ${value.error.issues[0].message}`, field: 'value' };
 		}
-		conditions.push({ measure: measure.data, op: op.data, mm: value.data });
+		conditions.push({ measure: measure.data, op: op.data, mm: toMicrometres(value.data) / 1000 });
 	}
 	if (conditions.length > MAX_CONDITIONS) {
 		return { ok: false, message: `At most ${MAX_CONDITIONS} measurement conditions at a time.`, field: 'measure' };

@@ -1,7 +1,7 @@
 import { SEAT_NAMES, SEATS, type Seat, type SectionKey, type VehicleContent } from '../content/schema';
 
-// Measurements search can filter on. A page may record several entries for one (two passenger
-// spaces, three passages); a condition holds when any one of them meets it.
+// Measurements search can filter on. A page may record several entries of one place (two passenger
+// spaces, three passages); conditions on the same place must all hold on one and the same entry.
 
 type Dimension = 'lengthMm' | 'widthMm' | 'heightMm';
 const DIMENSIONS: { key: Dimension; word: string; label: string }[] = [
@@ -10,51 +10,50 @@ const DIMENSIONS: { key: Dimension; word: string; label: string }[] = [
 	{ key: 'heightMm', word: 'height', label: 'clearance height' }
 ];
 
+/** A kind of place measured on a page: each recorded entry's figures, one per measurement of the place. */
+export type MeasurePlace = { key: string; entries(content: VehicleContent): (number | null)[][] };
+
 export type MeasurementDefinition = {
 	key: string;
 	label: string;
 	section: SectionKey;
-	values(content: VehicleContent): number[];
+	/** Index of its place in MEASURE_PLACES, and of its figure in each entry. */
+	place: number;
+	column: number;
 };
 
-const seatMeasure = (seat: Seat, dim: (typeof DIMENSIONS)[number]): MeasurementDefinition => ({
-	key: `${seat}-seat-${dim.word}`,
-	label: `${SEAT_NAMES[seat]} seat space ${dim.label}`,
-	section: 'seats',
-	values: (c) => c.seats.spaces.filter((s) => s.seat === seat).flatMap((s) => (s[dim.key] === null ? [] : [s[dim.key] as number]))
+const seatPlace = (seat: Seat): MeasurePlace => ({
+	key: `${seat}-seat`,
+	entries: (c) => c.seats.spaces.filter((s) => s.seat === seat).map((s) => DIMENSIONS.map((d) => s[d.key]))
 });
 
+export const MEASURE_PLACES: readonly MeasurePlace[] = [
+	...SEATS.map(seatPlace),
+	{ key: 'dash', entries: (c) => [[c.dash.depthMm]] },
+	{ key: 'firewall', entries: (c) => c.firewall.passages.map((p) => [p.holeMm]) }
+];
+
 export const MEASUREMENTS: readonly MeasurementDefinition[] = [
-	...SEATS.flatMap((seat) => DIMENSIONS.map((dim) => seatMeasure(seat, dim))),
-	{ key: 'dash-depth', label: 'Dash usable chassis depth', section: 'dash', values: (c) => (c.dash.depthMm === null ? [] : [c.dash.depthMm]) },
-	{
-		key: 'firewall-hole',
-		label: 'Firewall pass-through hole size',
-		section: 'firewall',
-		values: (c) => c.firewall.passages.flatMap((p) => (p.holeMm === null ? [] : [p.holeMm]))
-	}
+	...SEATS.flatMap((seat, place) =>
+		DIMENSIONS.map((dim, column) => ({ key: `${seat}-seat-${dim.word}`, label: `${SEAT_NAMES[seat]} seat space ${dim.label}`, section: 'seats' as const, place, column }))
+	),
+	{ key: 'dash-depth', label: 'Dash usable chassis depth', section: 'dash', place: SEATS.length, column: 0 },
+	{ key: 'firewall-hole', label: 'Firewall pass-through hole size', section: 'firewall', place: SEATS.length + 1, column: 0 }
 ];
 
 export const MEASUREMENT_KEYS = MEASUREMENTS.map((m) => m.key);
 export const measurementByKey = new Map(MEASUREMENTS.map((m, i) => [m.key, { ...m, index: i }]));
 
+/**
+ * Figures are compared in whole micrometres, the precision a page stores them at (3.5 in is kept as
+ * 88.9 mm, not 88.89999999999999): a value typed in mm or inches matches its own recording exactly.
+ */
+export const toMicrometres = (mm: number): number => Math.round(mm * 1000);
+
 export type ComparisonOp = 'gte' | 'lte';
 export const COMPARISON_NAMES: Readonly<Record<ComparisonOp, string>> = { gte: 'at least', lte: 'at most' };
 
 export type MeasureCondition = { measure: string; op: ComparisonOp; mm: number };
-
-/** Smallest and largest recorded value of each measurement, NaN where nothing was measured. */
-export function measurementRanges(content: VehicleContent): { min: number; max: number }[] {
-	return MEASUREMENTS.map((m) => {
-		const values = m.values(content);
-		return values.length ? { min: Math.min(...values), max: Math.max(...values) } : { min: NaN, max: NaN };
-	});
-}
-
-/** Whether some recorded entry meets the condition: at least → the largest does, at most → the smallest does. */
-export function rangeMeets(range: { min: number; max: number }, cond: Pick<MeasureCondition, 'op' | 'mm'>): boolean {
-	return cond.op === 'gte' ? range.max >= cond.mm : range.min <= cond.mm;
-}
 
 export function describeCondition(cond: MeasureCondition): string {
 	const m = measurementByKey.get(cond.measure);

@@ -1,5 +1,6 @@
-import type { SectionKey } from '../content/schema';
-import type { SearchSection } from './document';
+import type { BodyStyle, SectionKey } from '../content/schema';
+import { modelYears } from '../slug';
+import { vehicleHeadline, type SearchSection } from './document';
 
 /** A short passage showing why a page matched; `highlights` are [start, end) offsets into `text`. */
 export type Snippet = { section: SectionKey; text: string; highlights: [number, number][] };
@@ -95,6 +96,37 @@ export function findSnippet(sections: SearchSection[], words: string[], width = 
 		.filter((h) => h.start >= start && h.end <= end)
 		.map((h) => [h.start - start + lead.length, h.end - start + lead.length]);
 	return { section: best.section.key, text: lead + text.slice(start, end) + tail, highlights };
+}
+
+/** A name match's line: the page's headline, with the matched words and the asked-for years marked. */
+export function headlineSnippet(
+	identity: { make: string; model: string; yearFrom: number; yearTo: number; body: BodyStyle; aliases: readonly string[] },
+	named: string[],
+	years: number[]
+): Snippet {
+	const headline = vehicleHeadline(identity);
+	const found = named.length ? findSnippet([{ key: 'identity', text: headline }], named, 240) : null;
+	const snippet: Snippet = found ?? { section: 'identity', text: headline, highlights: [] };
+	if (years.length) {
+		const range = modelYears(identity);
+		const at = snippet.text.indexOf(range);
+		if (at >= 0) snippet.highlights = [...snippet.highlights, [at, at + range.length] as [number, number]].sort((a, b) => a[0] - b[0]);
+	}
+	return snippet;
+}
+
+/** A filter-only match's line: each filtered figure the page records, marked ("Dash usable chassis depth: 150 mm"). */
+export function figuresSnippet(figures: { label: string; mm: number }[], section: SectionKey): Snippet {
+	const highlights: [number, number][] = [];
+	let text = '';
+	for (const f of figures) {
+		if (text) text += ' · ';
+		text += `${f.label}: `;
+		const figure = `${Math.round(f.mm * 10) / 10} mm`;
+		highlights.push([text.length, text.length + figure.length]);
+		text += figure;
+	}
+	return { section, text, highlights };
 }
 
 /** Splits a snippet into plain and highlighted runs, for rendering without HTML strings. */

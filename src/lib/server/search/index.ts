@@ -7,7 +7,9 @@ import { vehicleSearchSections } from '../../domain/search/document';
 import type { SearchFilters } from '../../domain/search/filters';
 import { onRevisionWritten } from '../events';
 import { config } from '../config';
-import { VehicleSearchEngine, withNoteSnippet, type SearchOutcome, type VinCandidate } from './engine';
+import { VehicleSearchEngine } from './engine';
+import { withNoteSnippet } from './hits';
+import type { SearchOutcome, VinCandidate } from './types';
 import { latestRevisions, latestRevisionsOf, newestRevisionId, pagesChangedAfter, revisionContents } from './source';
 
 /** Revision ids are handed out before commit, so a slower transaction can land below the newest id seen; look back this far. */

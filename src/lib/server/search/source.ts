@@ -2,7 +2,7 @@
 import { QueryTypes } from 'sequelize';
 import { db } from '../db';
 import { CONTENT_SCHEMA_VERSION, type VehicleContent } from '../../domain/content/schema';
-import type { IndexInput } from './engine';
+import type { IndexInput } from './types';
 
 type LatestRow = { id: number; slug: string; revisionId: number | string; content: string };
 

@@ -1,6 +1,7 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
 import { AuditLog, Make, User, Vehicle, VehicleModel } from '../db/models';
+import { vehicleTitle } from '../../domain/slug';
 
 export type AuditAction =
 	| 'user.create'
@@ -91,8 +92,7 @@ async function targetLabels(rows: AuditLog[]): Promise<(row: AuditLog, details: 
 			})
 		).map((v) => {
 			const named = v as Vehicle & { make: Make; model: VehicleModel };
-			const years = v.yearFrom === v.yearTo ? `${v.yearFrom}` : `${v.yearFrom}–${v.yearTo}`;
-			return [v.id, { slug: v.slug, title: `${named.make.name} ${named.model.name} ${years}` }];
+			return [v.id, { slug: v.slug, title: vehicleTitle({ make: named.make.name, model: named.model.name, yearFrom: v.yearFrom, yearTo: v.yearTo }) }];
 		})
 	);
 	return (row, details) => {

@@ -6,7 +6,7 @@ import { canonicalJson, formatZodIssues, parseContent, SECTION_KEYS, type Sectio
 import { mergeContent } from '../../domain/content/merge';
 import { fieldChanges, notesChanges } from '../../domain/content/fieldDiff';
 import { roleAtLeast, type Role } from '../../domain/roles';
-import { slugify, vehicleSlug } from '../../domain/slug';
+import { slugify, vehicleSlug, vehicleTitle } from '../../domain/slug';
 import type { SessionUser } from '../../domain/sessionUser';
 import { ensureRenderedNotes, NOTES_RENDERER_VERSION, storeRenderedNotes, type RenderedNotes } from './rendering';
 import { recordOrigins } from '../history/origins';
@@ -364,13 +364,12 @@ export async function listRevisions(filter: {
 	const items = rows.map((r) => {
 		const v = (r as Revision & { vehicle: Vehicle & { make: Make; model: VehicleModel } }).vehicle;
 		const a = (r as Revision & { author: User }).author;
-		const years = v.yearFrom === v.yearTo ? `${v.yearFrom}` : `${v.yearFrom}–${v.yearTo}`;
 		return {
 			id: Number(r.id),
 			parentId: r.parentId === null ? null : Number(r.parentId),
 			vehicleId: r.vehicleId,
 			vehicleSlug: v.slug,
-			vehicleTitle: `${v.make.name} ${v.model.name} ${years}`,
+			vehicleTitle: vehicleTitle({ make: v.make.name, model: v.model.name, yearFrom: v.yearFrom, yearTo: v.yearTo }),
 			author: { id: a.id, name: a.name },
 			summary: r.hidden ? '' : r.summary,
 			createdAt: r.createdAt.toISOString(),

@@ -2,7 +2,7 @@
 // manufacturer code), what the decoding service adds, and which pages it leads to.
 import { decodeVinBasics, normalizeVin, vinProblem } from '../../domain/vin';
 import { ServiceError } from '../errors';
-import type { VinCandidate } from '../search/engine';
+import type { VinCandidate } from '../search/types';
 import { searchIndex } from '../search';
 import { decodeVin, type DecodedVehicle, type DecodeResult } from './client';
 

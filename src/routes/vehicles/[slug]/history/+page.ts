@@ -1,6 +1,7 @@
 import { error } from '@sveltejs/kit';
 import type { PageLoad } from './$types';
 import type { RevisionRow } from '$lib/components/history/revisionRow';
+import { vehicleTitle } from '$lib/domain/slug';
 
 // Loaded through the JSON API, on the server for the first view and in the browser after that.
 export const load: PageLoad = async ({ fetch, params, url }) => {
@@ -16,7 +17,7 @@ export const load: PageLoad = async ({ fetch, params, url }) => {
 	return {
 		vehicle: {
 			slug: vehicle.slug as string,
-			title: `${vehicle.make} ${vehicle.model} ${vehicle.yearFrom}–${vehicle.yearTo}`,
+			title: vehicleTitle(vehicle),
 			protection: vehicle.protection as 'none' | 'moderators',
 			revisionId: vehicle.revisionId as number
 		},
