@@ -1,6 +1,7 @@
 import { lengthText, readAmps, readLength, readOhms, type LengthUnit } from '../units';
 import { fieldName, type FieldNode, type FieldTree, type GroupNode, type LeafNode } from './fieldTree';
 import { CONTENT_SCHEMA_VERSION, formatZodIssues, newItemId, VEHICLE_FIELDS, type VehicleContent } from './schema';
+import type { ConflictView } from './conflictViews';
 
 // A vehicle page as an HTML form. Every field is text under a dotted name such as
 // "seats.spaces.0.heightMm", so the editor works without JavaScript and a refused save
@@ -291,4 +292,15 @@ export function formEntries(draft: ContentDraft, fields: FieldTree = VEHICLE_FIE
 	const out: [string, string][] = [];
 	flatten(formRoot(fields), draft, '', out);
 	return out;
+}
+
+/** What the editor shows again after a refused save: the draft as typed, its unit, and conflicts still to settle. */
+export interface EditorValues {
+	draft: ContentDraft;
+	unit: LengthUnit;
+	summary: string;
+	baseRevisionId: number;
+	/** Conflicts still to settle: shown, and posted back as JSON with the save. */
+	conflicts: ConflictView[];
+	conflictsJson: string;
 }

@@ -3,9 +3,9 @@
 import { z } from 'zod';
 import type { SessionUser } from '../../domain/sessionUser';
 import type { LengthUnit } from '../../domain/units';
-import { contentFromForm, draftFromEntries, formFromContent, type ContentDraft } from '../../domain/content/formCodec';
+import { contentFromForm, draftFromEntries, formFromContent, type ContentDraft, type EditorValues } from '../../domain/content/formCodec';
 import { applyIntent, readIntent } from '../../domain/content/editIntents';
-import { conflictViews, type ConflictView } from '../../domain/content/conflictViews';
+import { conflictViews } from '../../domain/content/conflictViews';
 import { applyResolution, type MergeConflict } from '../../domain/content/merge';
 import { parseContent } from '../../domain/content/schema';
 import { EditConflictError, NoChangeError, ServiceError } from '../errors';
@@ -28,17 +28,6 @@ export async function editorStart(vehicle: VehicleSummary, unit: LengthUnit): Pr
 	const revision = await currentRevision(vehicle);
 	if (!revision) throw new ServiceError('This vehicle page has no saved revision to edit.', 404);
 	return { draft: formFromContent(revision.content, unit), baseRevisionId: revision.id };
-}
-
-/** What the editor shows again: the draft as typed, its unit, and any conflicts still to settle. */
-export interface EditorValues {
-	draft: ContentDraft;
-	unit: LengthUnit;
-	summary: string;
-	baseRevisionId: number;
-	/** Conflicts still to settle: shown, and posted back as JSON with the save. */
-	conflicts: ConflictView[];
-	conflictsJson: string;
 }
 
 const conflictsSchema = z
