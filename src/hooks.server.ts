@@ -20,7 +20,7 @@ export const init: ServerInit = async () => {
 };
 
 // Pages anyone may open without signing in; everything else needs an account.
-const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite'];
+const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite', '/setup/'];
 
 const loadUser: Handle = async ({ event, resolve }) => {
 	const claims = await sessionClaims(event.cookies);

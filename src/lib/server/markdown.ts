@@ -14,7 +14,7 @@ export const isOwnPhotoPath = (src: string): boolean => OWN_PHOTO.test(src);
 
 const renderImage = markdown.renderer.rules.image!;
 markdown.renderer.rules.image = (tokens, idx, options, env, self) => {
-	if (isOwnPhotoPath(tokens[idx].attrGet('src') ?? '')) return renderImage(tokens, idx, options, env, self);
+	if (isOwnPhotoPath(String(tokens[idx].attrGet('src') ?? ''))) return renderImage(tokens, idx, options, env, self);
 	return markdown.utils.escapeHtml(self.renderInlineAsText(tokens[idx].children ?? [], options, env));
 };
 
