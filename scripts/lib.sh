@@ -58,3 +58,23 @@ free_port() {
 	while (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; do port=$((port + 1)); done
 	echo "$port"
 }
+
+# True when $1 is an address only this machine can reach.
+is_loopback_host() {
+	[[ "$1" =~ ^(localhost|::1|\[::1\]|127\.[0-9]{1,3}\.[0-9]{1,3}\.[0-9]{1,3})$ ]]
+}
+
+# Whether npm start loads the sample shop (people with published passwords): SAMPLE_DATA=1 or 0 decides,
+# unset means yes only on a loopback HOST. Never on an install reachable from elsewhere; prints 1 or 0.
+sample_data_choice() {
+	local host="$1" asked="${2:-}"
+	if ! is_loopback_host "$host"; then
+		if [ "$asked" = 1 ]; then log "SAMPLE_DATA=1 is ignored: HOST=$host is reachable from other machines, and the sample people's passwords are published."; fi
+		echo 0
+		return
+	fi
+	case "$asked" in
+		0) echo 0 ;;
+		*) echo 1 ;;
+	esac
+}

@@ -39,20 +39,32 @@ if [ -f scripts/services.ts ]; then
 	services_pid=$!
 fi
 npx tsx scripts/migrate.ts
-npx tsx scripts/seed.ts --if-empty
+sample_data="$(sample_data_choice "$HOST" "${SAMPLE_DATA:-}")"
+if [ "$sample_data" = 1 ]; then
+	npx tsx scripts/seed.ts --if-empty
+else
+	npx tsx scripts/setup-link.ts
+fi
 ensure_build
 
 node build/index.js &
 server_pid=$!
 if wait_for_http "http://127.0.0.1:$PORT/api/health"; then
-	cat <<MSG
+	echo
+	echo "  Kickpanel is running at $ORIGIN"
+	if [ "$sample_data" = 1 ]; then
+		cat <<MSG
 
-  Kickpanel is running at $ORIGIN
-  Sample sign-ins (sample data; change them before real use):
+  ================================ SAMPLE DATA ================================
+  For trying Kickpanel out on this machine: an invented shop whose people have
+  the published passwords below. SAMPLE_DATA=0 starts without them; a HOST
+  other than 127.0.0.1 never loads them.
 $(node -e "for (const u of require('./content-seed/users.json').users) console.log('    ' + u.role.padEnd(10) + u.email.padEnd(30) + u.password)")
-
-  Ctrl-C stops the server and the database it started.
-
+  =============================================================================
 MSG
+	fi
+	echo
+	echo "  Ctrl-C stops the server and the database it started."
+	echo
 fi
 wait "$server_pid"

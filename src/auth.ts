@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { SvelteKitAuth, CredentialsSignin } from '@auth/sveltekit';
 import Credentials from '@auth/sveltekit/providers/credentials';
 import { authSecret, config } from '$lib/server/config';
@@ -35,6 +36,8 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (even
 			if (user) {
 				token.uid = Number(user.id);
 				token.sv = (user as { sessionVersion?: number }).sessionVersion ?? 1;
+				// Each sign-in gets its own id, so signing out can end this session and no other.
+				token.sid = randomUUID();
 			}
 			return token;
 		}

@@ -20,11 +20,11 @@ export const init: ServerInit = async () => {
 };
 
 // Pages anyone may open without signing in; everything else needs an account.
-const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite'];
+const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite', '/setup/'];
 
 const loadUser: Handle = async ({ event, resolve }) => {
 	const claims = await sessionClaims(event.cookies);
-	event.locals.user = claims ? await activeSessionUser(claims.uid, claims.sv) : null;
+	event.locals.user = claims ? await activeSessionUser(claims.uid, claims.sv, claims.sid) : null;
 	event.locals.units = event.locals.user?.units ?? (event.cookies.get('units') === 'imperial' ? 'imperial' : 'metric');
 	const path = event.url.pathname;
 	const isPublic = path === '/signin' || PUBLIC_PREFIXES.some((p) => path.startsWith(p));

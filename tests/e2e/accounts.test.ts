@@ -107,3 +107,18 @@ describe('inviting a new member of staff', () => {
 		}
 	});
 });
+
+describe('signing out', () => {
+	it('makes a copy of the session cookie stop working', async () => {
+		const page = await freshPage(DESKTOP);
+		await signInAs(page, userFor('viewer').email, userFor('viewer').password);
+		const cookie = (await page.context().cookies()).find((c) => c.name.endsWith('authjs.session-token'));
+		expect(cookie).toBeDefined();
+		const withCopy = () => fetch(`${BASE}/api/vehicles`, { headers: { cookie: `${cookie!.name}=${cookie!.value}` } });
+		expect((await withCopy()).status).toBe(200);
+
+		await Promise.all([page.waitForURL((url) => url.pathname === '/signin'), page.click('button:has-text("Sign out")')]);
+		expect((await withCopy()).status).toBe(401);
+		await page.close();
+	});
+});

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTransport } from 'nodemailer';
 import { closeDb, freshDatabase } from '../helpers/database';
-import { makeUser } from '../helpers/users';
+import { makeUser, SAMPLE_SESSION } from '../helpers/users';
 import { linkToken, startTestOutbox, type TestOutbox } from '../helpers/mail';
 import { AccountToken, AuditLog, User, Vehicle } from '../../src/lib/server/db/models';
 import { activeSessionUser, authenticate, setUserStatus } from '../../src/lib/server/services/users';
@@ -112,7 +112,7 @@ describe('invitations', () => {
 describe('password reset', () => {
 	it('mails a link that sets a new password once and signs every session out', async () => {
 		const user = await makeUser('editor', 'Reset Sample');
-		expect(await activeSessionUser(user.id, 1)).not.toBeNull();
+		expect(await activeSessionUser(user.id, 1, SAMPLE_SESSION)).not.toBeNull();
 
 		const asked = await requestPasswordReset(user.email.toUpperCase(), '10.30.0.1');
 		expect(asked).toMatchObject({ ok: true, message: RESET_REQUESTED });
@@ -124,8 +124,8 @@ describe('password reset', () => {
 		expect(await resetLinkWorks(token)).toBe(true);
 
 		await resetPassword(token, { password: 'fresh-pass-word', confirm: 'fresh-pass-word' });
-		expect(await activeSessionUser(user.id, 1)).toBeNull();
-		expect(await activeSessionUser(user.id, 2)).not.toBeNull();
+		expect(await activeSessionUser(user.id, 1, SAMPLE_SESSION)).toBeNull();
+		expect(await activeSessionUser(user.id, 2, SAMPLE_SESSION)).not.toBeNull();
 		expect((await authenticate(user.email, 'fresh-pass-word', '10.30.0.2')).ok).toBe(true);
 		expect((await authenticate(user.email, 'test-password-123', '10.30.0.2')).ok).toBe(false);
 
@@ -207,20 +207,20 @@ describe('password reset', () => {
 describe('the next request of a disabled or blocked person', () => {
 	it('finds no session for a disabled account', async () => {
 		const staff = await makeUser('editor');
-		expect(await activeSessionUser(staff.id, 1)).not.toBeNull();
+		expect(await activeSessionUser(staff.id, 1, SAMPLE_SESSION)).not.toBeNull();
 		await setUserStatus(staff.id, 'disabled', admin.id);
-		expect(await activeSessionUser(staff.id, 1)).toBeNull();
+		expect(await activeSessionUser(staff.id, 1, SAMPLE_SESSION)).toBeNull();
 	});
 
 	it('refuses a blocked editor with the reason and end date, at the guard and at the save itself', async () => {
 		const writer = await makeUser('editor', 'Blocked Sample');
-		const before = await activeSessionUser(writer.id, 1);
+		const before = await activeSessionUser(writer.id, 1, SAMPLE_SESSION);
 		expect(requireRole(locals(before), 'editor').id).toBe(writer.id);
 		const created = await createVehicle(emptyContent({ make: 'Ossendra', model: 'Drift', yearFrom: 2011, yearTo: 2015, body: 'sedan' }), before!);
 
 		const until = new Date(Date.now() + 3 * DAY_MS).toISOString().slice(0, 10);
 		await blockUser(writer.id, { reason: 'Pasted a customer phone number into notes', until }, moderator);
-		const session = await activeSessionUser(writer.id, 1);
+		const session = await activeSessionUser(writer.id, 1, SAMPLE_SESSION);
 		expect(session!.block).toEqual({ reason: 'Pasted a customer phone number into notes', until: `${until}T00:00:00.000Z` });
 
 		let refusal: unknown;
@@ -246,7 +246,7 @@ describe('the next request of a disabled or blocked person', () => {
 
 		expect(await activeBlockFor(writer.id, new Date(Date.parse(`${until}T00:00:00.000Z`) + 1))).toBeNull();
 		expect(await liftBlock(writer.id, moderator)).toBe(true);
-		expect((await activeSessionUser(writer.id, 1))!.block).toBeNull();
+		expect((await activeSessionUser(writer.id, 1, SAMPLE_SESSION))!.block).toBeNull();
 	});
 
 	it('lets moderators block only lower roles, never themselves, and only until a later day', async () => {
@@ -275,8 +275,8 @@ describe('account settings', () => {
 		expect((await authenticate(me.email, 'new-pass-word-1', '10.40.0.2')).ok).toBe(true);
 		// Sessions signed in before the change no longer count; one carrying the new version does.
 		expect(after).toBe(before + 1);
-		expect(await activeSessionUser(me.id, before)).toBeNull();
-		expect(await activeSessionUser(me.id, after)).toMatchObject({ id: me.id });
+		expect(await activeSessionUser(me.id, before, SAMPLE_SESSION)).toBeNull();
+		expect(await activeSessionUser(me.id, after, SAMPLE_SESSION)).toMatchObject({ id: me.id });
 	});
 });
 

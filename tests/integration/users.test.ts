@@ -4,6 +4,7 @@ import { AuditLog, User } from '../../src/lib/server/db/models';
 import { activeSessionUser, authenticate, changeRole, createUser, setUserStatus, UserError } from '../../src/lib/server/services/users';
 import { SharedLimiter } from '../../src/lib/server/auth/sharedLimiter';
 import { db } from '../../src/lib/server/db';
+import { SAMPLE_SESSION } from '../helpers/users';
 
 beforeAll(() => freshDatabase('users'));
 afterAll(() => closeDb());
@@ -50,20 +51,21 @@ describe('staff accounts', () => {
 	it('records role changes and disables in the audit log, and the session loses access at once', async () => {
 		const admin = await createUser({ email: 'owner@kickpanel.test', name: 'Owner', password: 'owner-pass-12', role: 'admin' }, null);
 		const staff = await createUser({ email: 'staff@kickpanel.test', name: 'Staff', password: 'staff-pass-12', role: 'editor' }, null);
-		expect((await activeSessionUser(staff.id, 1))?.role).toBe('editor');
+		expect((await activeSessionUser(staff.id, 1, SAMPLE_SESSION))?.role).toBe('editor');
 
 		await changeRole(staff.id, 'viewer', admin.id);
-		expect((await activeSessionUser(staff.id, 1))?.role).toBe('viewer');
+		expect(await activeSessionUser(staff.id, 1, SAMPLE_SESSION)).toBeNull();
+		expect((await activeSessionUser(staff.id, 2, SAMPLE_SESSION))?.role).toBe('viewer');
 
 		await setUserStatus(staff.id, 'disabled', admin.id);
-		expect(await activeSessionUser(staff.id, 1)).toBeNull();
+		expect(await activeSessionUser(staff.id, 2, SAMPLE_SESSION)).toBeNull();
 		expect((await authenticate('staff@kickpanel.test', 'staff-pass-12', '10.3.0.1')).ok).toBe(false);
 
 		const log = await AuditLog.findAll({ where: { targetId: String(staff.id) }, order: [['id', 'ASC']] });
 		expect(log.map((l) => [l.action, JSON.parse(l.details)])).toEqual([
 			['user.create', { role: 'editor' }],
-			['user.role', { from: 'editor', to: 'viewer' }],
-			['user.status', { from: 'active', to: 'disabled' }]
+			['user.role', { from: 'editor', to: 'viewer', revokedInvites: 0 }],
+			['user.status', { from: 'active', to: 'disabled', revokedInvites: 0 }]
 		]);
 		expect(log[1].actorId).toBe(admin.id);
 	});

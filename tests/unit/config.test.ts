@@ -68,4 +68,14 @@ describe('settings from the environment', () => {
 		expect(() => authSecret(readConfig({ AUTH_SECRET: '' }))).toThrow(ConfigError);
 		expect(authSecret(readConfig({ AUTH_SECRET: 'a-long-random-value' }))).toBe('a-long-random-value');
 	});
+
+	it('refuses a short AUTH_SECRET in production and names its length', () => {
+		const short = 'a'.repeat(31);
+		const long = 'a'.repeat(32);
+		expect(() => authSecret(readConfig({ NODE_ENV: 'production', AUTH_SECRET: short }))).toThrow(/31 characters long.*at least 32/);
+		expect(() => authSecret(readConfig({ NODE_ENV: 'production', AUTH_SECRET: 'secret' }))).toThrow(ConfigError);
+		expect(authSecret(readConfig({ NODE_ENV: 'production', AUTH_SECRET: long }))).toBe(long);
+		// Outside production a short one still works, for tests and a development server.
+		expect(authSecret(readConfig({ AUTH_SECRET: short }))).toBe(short);
+	});
 });

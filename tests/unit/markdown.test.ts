@@ -161,9 +161,28 @@ describe('renderMarkdown formats notes', () => {
 		expect(renderMarkdown('"Tarn" -- 2009...2013')).toBe('<p>“Tarn” – 2009…2013</p>\n');
 	});
 
-	it('keeps http images and drops their other sources', () => {
-		expect(renderMarkdown('![grommet](https://img.example/g.jpg)')).toBe('<p><img src="https://img.example/g.jpg" alt="grommet" /></p>\n');
-		expect(renderMarkdown('![grommet](data:image/png;base64,iVBORw0KGgo=)')).toBe('<p><img alt="grommet" /></p>\n');
+	it('keeps images from the app\'s own photo store', () => {
+		const id = 'a'.repeat(64);
+		expect(renderMarkdown(`![grommet](/photos/${id}/display)`)).toBe(`<p><img src="/photos/${id}/display" alt="grommet" /></p>\n`);
+		expect(renderMarkdown(`![grommet](/photos/${id}/thumb)`)).toBe(`<p><img src="/photos/${id}/thumb" alt="grommet" /></p>\n`);
+	});
+
+	it('writes any other image as its alt text, so reading a page fetches nothing from elsewhere', () => {
+		const id = 'a'.repeat(64);
+		for (const src of [
+			'https://img.example/g.jpg',
+			'http://img.example/g.jpg',
+			'//img.example/g.jpg',
+			'data:image/png;base64,iVBORw0KGgo=',
+			`https://img.example/photos/${id}/display`,
+			`/photos/${id}/display/../../../elsewhere`,
+			`/photos/${id}/original`,
+			'/photos/abc/display',
+			`/\\img.example/photos/${id}/display`
+		]) {
+			expect(renderMarkdown(`![grommet](${src})`), src).toBe('<p>grommet</p>\n');
+		}
+		expect(renderMarkdown('![<b>loud</b> grommet](https://img.example/g.jpg)')).toBe('<p>&lt;b&gt;loud&lt;/b&gt; grommet</p>\n');
 	});
 
 	it('still reads javascript: and onclick= in prose, as entities', () => {

@@ -119,6 +119,8 @@ export function readConfig(env: Env = process.env) {
 			trustHost: (e.AUTH_TRUST_HOST ?? false) || !!e.ORIGIN,
 			/** Signs and encrypts sessions; authSecret() refuses to go on without one. */
 			secret: e.AUTH_SECRET ?? null,
+			/** A production server refuses a secret short enough to guess. */
+			requireStrongSecret: e.NODE_ENV === 'production',
 			maxFailuresPerAccount: e.AUTH_MAX_FAILURES_ACCOUNT ?? 5,
 			maxFailuresPerAddress: e.AUTH_MAX_FAILURES_ADDRESS ?? 20,
 			lockoutSeconds: e.AUTH_LOCKOUT_SECONDS ?? 15 * 60
@@ -176,13 +178,16 @@ export type Config = ReturnType<typeof readConfig>;
 /** This process's settings. Tests may point a section elsewhere (a database, a mail capture) before use. */
 export const config: Config = readConfig();
 
-/** The session secret; the app refuses to start without one rather than sign sessions with an empty key. */
+/** Shortest AUTH_SECRET a production server accepts: 32 characters of base64 carry 192 bits. */
+export const MIN_AUTH_SECRET_LENGTH = 32;
+const MAKE_A_SECRET = 'set it to a long random value (for example `openssl rand -base64 32`), or run `npm start`, which generates one into .data/auth-secret.';
+
+/** The session secret; the app refuses to start without one (or, in production, with a short one) rather than sign guessable sessions. */
 export function authSecret(settings: Pick<Config, 'auth'> = config): string {
-	if (!settings.auth.secret) {
-		throw new ConfigError([
-			'AUTH_SECRET is not set. It signs and encrypts sessions: set it to a long random value ' +
-				'(for example `openssl rand -base64 32`), or run `npm start`, which generates one into .data/auth-secret.'
-		]);
+	const { secret, requireStrongSecret } = settings.auth;
+	if (!secret) throw new ConfigError([`AUTH_SECRET is not set. It signs and encrypts sessions: ${MAKE_A_SECRET}`]);
+	if (requireStrongSecret && secret.length < MIN_AUTH_SECRET_LENGTH) {
+		throw new ConfigError([`AUTH_SECRET is ${secret.length} characters long; a production server needs at least ${MIN_AUTH_SECRET_LENGTH}: ${MAKE_A_SECRET}`]);
 	}
-	return settings.auth.secret;
+	return secret;
 }

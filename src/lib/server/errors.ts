@@ -41,3 +41,9 @@ export function fieldMessages(error: ZodError): Record<string, string> {
 	}
 	return out;
 }
+
+/** A form that did not pass its schema, refused with the first problem as the message and one per field. */
+export function invalidInput(error: ZodError): never {
+	const fields = fieldMessages(error);
+	throw new ServiceError(Object.values(fields)[0] ?? 'Check the form.', 400, fields);
+}

@@ -1,10 +1,22 @@
 import MarkdownIt from 'markdown-it';
 import sanitizeHtml from 'sanitize-html';
+import { RENDITIONS } from './storage/renditions';
 
 // Notes are written by staff but read by everyone, so the HTML is built with raw
 // HTML off and then filtered again: two independent gates.
 
 const markdown = new MarkdownIt({ html: false, linkify: true, typographer: true });
+
+// Images come only from this app's own photo store (ids are the content's sha256), so a page never makes a
+// reader's browser fetch from another host. Any other image is written as its alt text.
+const OWN_PHOTO = new RegExp(`^/photos/[0-9a-f]{64}/(?:${RENDITIONS.join('|')})$`);
+export const isOwnPhotoPath = (src: string): boolean => OWN_PHOTO.test(src);
+
+const renderImage = markdown.renderer.rules.image!;
+markdown.renderer.rules.image = (tokens, idx, options, env, self) => {
+	if (isOwnPhotoPath(String(tokens[idx].attrGet('src') ?? ''))) return renderImage(tokens, idx, options, env, self);
+	return markdown.utils.escapeHtml(self.renderInlineAsText(tokens[idx].children ?? [], options, env));
+};
 
 const SANITIZE: sanitizeHtml.IOptions = {
 	allowedTags: [
@@ -28,10 +40,11 @@ const SANITIZE: sanitizeHtml.IOptions = {
 		td: { 'text-align': [/^(left|right|center)$/] }
 	},
 	allowedSchemes: ['http', 'https', 'mailto'],
-	allowedSchemesByTag: { img: ['http', 'https'] },
+	allowedSchemesByTag: { img: [] },
 	allowedSchemesAppliedToAttributes: ['href', 'src', 'cite'],
 	allowProtocolRelative: false,
 	disallowedTagsMode: 'discard',
+	exclusiveFilter: (frame) => frame.tag === 'img' && !isOwnPhotoPath(frame.attribs.src ?? ''),
 	transformTags: {
 		a: sanitizeHtml.simpleTransform('a', { rel: 'noopener nofollow' })
 	},

@@ -11,7 +11,7 @@ const MB = 1024 * KB;
 const BODY_LIMITS: readonly { test: RegExp; bytes: number | null }[] = [
 	{ test: /^\/(?:api\/)?vehicles\/[^/]+\/photos\/?$/, bytes: null },
 	{ test: /^\/auth\//, bytes: 16 * KB },
-	{ test: /^\/(?:signin|signout|reset|invite)(?:\/|$)/, bytes: 16 * KB },
+	{ test: /^\/(?:signin|signout|reset|invite|setup)(?:\/|$)/, bytes: 16 * KB },
 	{ test: /^\/vehicles\/(?:new|[^/]+\/edit)\/?$/, bytes: 2 * MB },
 	{ test: /^\/api\/(?:vehicles|markdown)(?:\/|$)/, bytes: 2 * MB },
 	{ test: /./, bytes: 256 * KB }

@@ -5,8 +5,9 @@ import { authSecret } from '../config';
 export const SESSION_MAX_AGE_SECONDS = 12 * 60 * 60;
 const COOKIE_NAMES = ['__Secure-authjs.session-token', 'authjs.session-token'];
 
-/** Who a session cookie names (user id, session version) and until when it holds. */
-export type SessionClaims = { uid: number; sv: number; exp: number };
+/** Who a session cookie names (user id, session version), which sign-in it came from, and until when it holds. */
+export type SessionClaims = { uid: number; sv: number; sid: string; exp: number };
+const SESSION_ID = /^[0-9a-f-]{36}$/;
 // Decrypting the session token is the costly part of a request; tokens are immutable, so cache them briefly.
 const decoded = new Map<string, SessionClaims | null>();
 const CACHE_LIMIT = 5_000;
@@ -17,8 +18,9 @@ async function claimsFor(cookieName: string, token: string): Promise<SessionClai
 	let claims: SessionClaims | null = null;
 	try {
 		const payload = await decode({ token, secret: authSecret(), salt: cookieName });
-		if (payload && typeof payload.uid === 'number' && typeof payload.exp === 'number') {
-			claims = { uid: payload.uid, sv: typeof payload.sv === 'number' ? payload.sv : 1, exp: payload.exp };
+		// A session without its own id could not be ended by signing out, so it is not accepted.
+		if (payload && typeof payload.uid === 'number' && typeof payload.exp === 'number' && typeof payload.sid === 'string' && SESSION_ID.test(payload.sid)) {
+			claims = { uid: payload.uid, sv: typeof payload.sv === 'number' ? payload.sv : 1, sid: payload.sid, exp: payload.exp };
 		}
 	} catch {
 		claims = null;

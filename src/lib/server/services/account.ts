@@ -5,18 +5,13 @@ import { beginSignInAttempt, forgiveSignInTries, waitWords } from '../auth/throt
 import type { SessionUser } from '../../domain/sessionUser';
 import { newUserSchema } from './users';
 import { announceAccountChange } from '../events';
-import { ServiceError, fieldMessages } from '../errors';
-
-function refuse(error: z.ZodError): never {
-	const fields = fieldMessages(error);
-	throw new ServiceError(Object.values(fields)[0] ?? 'Check the form.', 400, fields);
-}
+import { ServiceError, invalidInput } from '../errors';
 
 export const nameSchema = z.object({ name: newUserSchema.shape.name });
 
 export async function changeName(userId: number, input: unknown): Promise<string> {
 	const parsed = nameSchema.safeParse(input);
-	if (!parsed.success) refuse(parsed.error);
+	if (!parsed.success) invalidInput(parsed.error);
 	await User.update({ name: parsed.data.name }, { where: { id: userId } });
 	announceAccountChange(userId);
 	return parsed.data.name;
@@ -33,7 +28,7 @@ export const passwordChangeSchema = z
 /** Needs the current password (its tries count with sign-in tries); changes the password and ends every session signed in with the old one; returns the new session version for this device. */
 export async function changePassword(user: SessionUser, input: unknown, clientAddress: string): Promise<number> {
 	const parsed = passwordChangeSchema.safeParse(input);
-	if (!parsed.success) refuse(parsed.error);
+	if (!parsed.success) invalidInput(parsed.error);
 	const throttle = await beginSignInAttempt(user.email, clientAddress);
 	if (throttle.locked) throw new ServiceError(`Too many wrong passwords. Wait ${waitWords(throttle.retryAfterSeconds)} and try again.`, 403);
 	const row = await User.findByPk(user.id);

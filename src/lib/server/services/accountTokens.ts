@@ -36,10 +36,10 @@ export async function usableToken(
 	return row;
 }
 
-/** Earlier links of the same kind for the same person stop working when a new one is sent or one is used. */
+/** Earlier links of the same kind for the same person (or, given no one, all of them) stop working when a new one is sent or one is used. */
 export async function revokeOpenTokens(
 	kind: TokenKind,
-	who: { email: string } | { userId: number },
+	who: { email: string } | { userId: number } | Record<string, never>,
 	now: Date,
 	transaction: Transaction
 ): Promise<number> {

@@ -12,7 +12,7 @@ import { emailSchema, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
 import { shopSettings } from './settings';
 import { recordAudit } from './audit';
-import { ServiceError, fieldMessages } from '../errors';
+import { ServiceError, invalidInput } from '../errors';
 
 export const INVITE_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
 
@@ -29,11 +29,6 @@ export const acceptInviteSchema = z
 	})
 	.refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords are not the same; type them again.' });
 
-function refuse(error: z.ZodError): never {
-	const fields = fieldMessages(error);
-	throw new ServiceError(Object.values(fields)[0] ?? 'Check the form.', 400, fields);
-}
-
 /**
  * Mails a single-use link that lets the person choose their name and password. No user row exists until the
  * link is used, so nobody can sign in as an invited address before that. Inviting again revokes the older link.
@@ -41,7 +36,7 @@ function refuse(error: z.ZodError): never {
 export async function inviteByEmail(input: unknown, admin: SessionUser, now = new Date()): Promise<{ email: string; role: Role; expiresAt: Date }> {
 	if (!roleAtLeast(admin.role, 'admin')) throw new ServiceError('Inviting staff needs the admin role.', 403);
 	const parsed = inviteSchema.safeParse(input);
-	if (!parsed.success) refuse(parsed.error);
+	if (!parsed.success) invalidInput(parsed.error);
 	const { email, role } = parsed.data;
 	const { token, tokenHash } = newToken();
 	const expiresAt = new Date(now.getTime() + INVITE_LIFETIME_MS);
@@ -109,7 +104,7 @@ export const INVITE_UNUSABLE = 'This invitation link has expired, was replaced b
 
 export async function acceptInvite(token: string, input: unknown, now = new Date()): Promise<{ email: string; userId: number }> {
 	const parsed = acceptInviteSchema.safeParse(input);
-	if (!parsed.success) refuse(parsed.error);
+	if (!parsed.success) invalidInput(parsed.error);
 	// A dead link is refused before the slow password hash, so made-up tokens cost next to nothing.
 	if (!(await usableToken('invite', token, now))) throw new ServiceError(INVITE_UNUSABLE, 404);
 	const passwordHash = await hashPassword(parsed.data.password);

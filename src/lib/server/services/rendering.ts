@@ -9,7 +9,7 @@ export type RenderedNotes = Partial<Record<SectionKey, string>>;
  * Which renderer made a stored rendering. Raise it whenever the HTML for the same Markdown changes
  * (markdown.ts, its sanitizer rules, or renderNotes): every revision's notes are then rendered again on first read.
  */
-export const NOTES_RENDERER_VERSION = 1;
+export const NOTES_RENDERER_VERSION = 2;
 
 /** Markdown notes of every section as safe HTML. */
 export function renderNotes(content: VehicleContent): RenderedNotes {

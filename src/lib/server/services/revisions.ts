@@ -15,6 +15,7 @@ import { recordAudit } from './audit';
 import { announceRevision, announceVehicleChange } from '../events';
 import { EditConflictError, NoChangeError, ServiceError } from '../errors';
 import { refuseBlockedAuthor } from './blocks';
+import { SHARED_STATE_TTL_MS } from '../cache';
 
 export type StoredRevision = {
 	id: number;
@@ -34,14 +35,25 @@ export type StoredRevision = {
 	createdAt: Date;
 };
 
-// Revisions never change once written (only the hidden flag), so parsed copies are kept in memory.
-const cache = new Map<number, StoredRevision>();
+// Revisions never change once written, so parsed copies are kept in memory. The hidden flag is the exception:
+// it is read again once a copy is older than SHARED_STATE_TTL_MS, so another app server's hide shows here within that.
+const cache = new Map<number, { rev: StoredRevision; checkedAt: number }>();
 const CACHE_LIMIT = 4_000;
 
 function remember(rev: StoredRevision): StoredRevision {
 	if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
-	cache.set(rev.id, rev);
+	cache.set(rev.id, { rev, checkedAt: Date.now() });
 	return rev;
+}
+
+async function withCurrentHiddenFlag(id: number, cached: { rev: StoredRevision; checkedAt: number }): Promise<StoredRevision> {
+	if (Date.now() - cached.checkedAt <= SHARED_STATE_TTL_MS) return cached.rev;
+	const row = await Revision.findByPk(id, { attributes: ['hidden'] });
+	if (!row) {
+		cache.delete(id);
+		return cached.rev;
+	}
+	return remember(!!row.hidden === cached.rev.hidden ? cached.rev : { ...cached.rev, hidden: !!row.hidden });
 }
 
 function toStored(row: Revision & { author?: User | null }, content: VehicleContent, rendered: RenderedNotes): StoredRevision {
@@ -66,7 +78,7 @@ function toStored(row: Revision & { author?: User | null }, content: VehicleCont
 
 export async function revisionById(id: number, transaction?: Transaction): Promise<StoredRevision | null> {
 	const hit = cache.get(id);
-	if (hit && !transaction) return hit;
+	if (hit && !transaction) return withCurrentHiddenFlag(id, hit);
 	const row = await Revision.findByPk(id, {
 		include: [
 			{ model: User, as: 'author', attributes: ['name'] },

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { db } from '../db';
-import { ROLES, User, type Role } from '../db/models';
+import { Op, type Transaction } from 'sequelize';
+import { AccountToken, EndedSession, ROLES, User, type Role } from '../db/models';
 import { hashPassword, MIN_PASSWORD_LENGTH, verifyPassword } from '../auth/password';
 import { beginSignInAttempt, forgiveSignInTries } from '../auth/throttle';
 import type { SessionUser } from '../../domain/sessionUser';
@@ -70,8 +71,10 @@ export async function changeRole(userId: number, role: Role, actorId: number): P
 		if (user.role === role) return;
 		if (user.id === actorId) throw new UserError('You cannot change your own role; ask another admin.');
 		const from = user.role;
-		await user.update({ role }, { transaction });
-		await recordAudit({ actorId, action: 'user.role', targetType: 'user', targetId: user.id, details: { from, to: role } }, transaction);
+		// Signed-in sessions carry what the role allowed when they began: they end, on every app server.
+		await user.update({ role, sessionVersion: user.sessionVersion + 1 }, { transaction });
+		const revokedInvites = role === 'admin' ? 0 : await revokeInvitesFrom(user.id, transaction);
+		await recordAudit({ actorId, action: 'user.role', targetType: 'user', targetId: user.id, details: { from, to: role, revokedInvites } }, transaction);
 	}));
 }
 
@@ -82,9 +85,21 @@ export async function setUserStatus(userId: number, status: 'active' | 'disabled
 		if (user.status === status) return;
 		if (user.id === actorId) throw new UserError('You cannot disable your own account.');
 		const from = user.status;
-		await user.update({ status }, { transaction });
-		await recordAudit({ actorId, action: 'user.status', targetType: 'user', targetId: user.id, details: { from, to: status } }, transaction);
+		// A new session version means enabling the account again does not bring its old sessions back.
+		await user.update({ status, sessionVersion: user.sessionVersion + 1 }, { transaction });
+		const revokedInvites = status === 'disabled' ? await revokeInvitesFrom(user.id, transaction) : 0;
+		await recordAudit({ actorId, action: 'user.status', targetType: 'user', targetId: user.id, details: { from, to: status, revokedInvites } }, transaction);
 	}));
+}
+
+/** Invitations an admin sent and nobody has used yet stop working once that person may no longer invite. */
+async function revokeInvitesFrom(userId: number, transaction: Transaction): Promise<number> {
+	const now = new Date();
+	const [count] = await AccountToken.update(
+		{ revokedAt: now },
+		{ where: { kind: 'invite', invitedBy: userId, usedAt: null, revokedAt: null, expiresAt: { [Op.gt]: now } }, transaction }
+	);
+	return count;
 }
 
 /** Runs a write, then drops the person's cached session so the next request reads the committed row. */
@@ -94,23 +109,38 @@ async function afterCommitForget<T>(userId: number, write: () => Promise<T>): Pr
 	return result;
 }
 
-type SessionSnapshot = { user: SessionUser; status: string; sessionVersion: number } | null;
+type SessionSnapshot = { user: SessionUser; status: string; sessionVersion: number; endedSessions: Set<string> } | null;
 const sessionSnapshots = lookupCache<number, SessionSnapshot>(SHARED_STATE_TTL_MS);
 
 // Every write to a person's account, role, block or password announces it, so the next request sees it.
 onAccountChanged((userId) => sessionSnapshots.delete(userId));
 
-/** The signed-in user for a session, read fresh so a disabled, demoted or blocked user is refused at once. */
-
-export async function activeSessionUser(userId: number, sessionVersion: number): Promise<SessionUser | null> {
+/**
+ * The signed-in user for a session, read fresh so a disabled, demoted or blocked user is refused at once.
+ * Another app server's sign-out, disable or role change reaches this one within SHARED_STATE_TTL_MS.
+ */
+export async function activeSessionUser(userId: number, sessionVersion: number, sessionId: string): Promise<SessionUser | null> {
 	const snapshot = await sessionSnapshots.get(userId, async () => {
 		const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'role', 'status', 'units', 'sessionVersion'] });
 		if (!user) return null;
 		const block = await activeBlockFor(user.id);
-		return { user: { ...toSessionUser(user), block: block ? { reason: block.reason, until: block.until } : null }, status: user.status, sessionVersion: user.sessionVersion };
+		const ended = await EndedSession.findAll({ where: { userId, expiresAt: { [Op.gt]: new Date() } }, attributes: ['sessionId'] });
+		return {
+			user: { ...toSessionUser(user), block: block ? { reason: block.reason, until: block.until } : null },
+			status: user.status,
+			sessionVersion: user.sessionVersion,
+			endedSessions: new Set(ended.map((row) => row.sessionId))
+		};
 	});
-	if (!snapshot || snapshot.status !== 'active' || snapshot.sessionVersion !== sessionVersion) return null;
+	if (!snapshot || snapshot.status !== 'active' || snapshot.sessionVersion !== sessionVersion || snapshot.endedSessions.has(sessionId)) return null;
 	return snapshot.user;
+}
+
+/** Signing out: this session stops working everywhere, though its cookie may live on in a copy. */
+export async function endSession(claims: { uid: number; sid: string; exp: number }, now = new Date()): Promise<void> {
+	await EndedSession.destroy({ where: { expiresAt: { [Op.lte]: now } } });
+	await EndedSession.upsert({ sessionId: claims.sid, userId: claims.uid, expiresAt: new Date(claims.exp * 1000) });
+	announceAccountChange(claims.uid);
 }
 
 export type SignInResult =

@@ -1,10 +1,13 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import { ROLES, type Role } from '../../../domain/roles';
 
-export const TOKEN_KINDS = ['invite', 'reset'] as const;
+export const TOKEN_KINDS = ['invite', 'reset', 'setup'] as const;
 export type TokenKind = (typeof TOKEN_KINDS)[number];
 
-/** A single-use link mailed to someone: an invitation (by e-mail, with a role) or a password reset (for a user). */
+/**
+ * A single-use link: an invitation (by e-mail, with a role), a password reset (for a user), or the setup link
+ * that makes the first admin of an empty install.
+ */
 export class AccountToken extends Model<InferAttributes<AccountToken>, InferCreationAttributes<AccountToken>> {
 	declare id: CreationOptional<number>;
 	declare kind: TokenKind;

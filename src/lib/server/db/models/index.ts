@@ -14,10 +14,11 @@ import { initPart, Part } from './Part';
 import { initConfirmation, Confirmation } from './Confirmation';
 import { initPhoto, Photo } from './Photo';
 import { initRenderedNotes, RenderedNotesRow } from './RenderedNotes';
+import { initEndedSession, EndedSession } from './EndedSession';
 
 export { User, Make, VehicleModel, Vehicle, VehicleSlug, Revision, AuditLog, Setting, Part, Confirmation };
 export { AccountToken, Watch, NotificationPreference, PendingNotice, Block };
-export { Photo, RenderedNotesRow };
+export { Photo, RenderedNotesRow, EndedSession };
 export type { Role, UserStatus } from './User';
 export { ROLES } from './User';
 export type { Protection } from './Vehicle';
@@ -41,6 +42,7 @@ export function initModels(sequelize: Sequelize) {
 	initConfirmation(sequelize);
 	initPhoto(sequelize);
 	initRenderedNotes(sequelize);
+	initEndedSession(sequelize);
 
 	Make.hasMany(VehicleModel, { foreignKey: 'makeId', as: 'models' });
 	VehicleModel.belongsTo(Make, { foreignKey: 'makeId', as: 'make' });
