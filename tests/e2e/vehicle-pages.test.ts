@@ -39,7 +39,7 @@ describe('a writer edits, a moderator puts it right', () => {
 		// edit above, one field changed that is a measurement.
 		const newest = page.getByTestId('revision-rows').locator('li').first();
 		expect(await newest.textContent()).toContain('Passenger seat height re-measured');
-		expect(await newest.textContent()).toMatch(/Seat spaces[\s\S]*1 field[\s\S]*1 measurement changed/);
+		expect(await newest.textContent()).toMatch(/Seat space[\s\S]*1 field[\s\S]*1 measurement changed/);
 		await screenshot(page, 'history-phone');
 		await Promise.all([page.waitForURL(/\/compare\?/), page.click('button:has-text("Show what changed")')]);
 		const body = await page.textContent('main');
