@@ -11,6 +11,7 @@ import { layoutData } from '$lib/server/views/layout';
 import { vehiclePageData } from '$lib/server/views/vehiclePage';
 import { config } from '$lib/server/config';
 import { bodyLimits, securityHeaders } from '$lib/server/perimeter';
+import { movedAddress } from '$lib/server/movedAddresses';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -53,4 +54,9 @@ const memoised: Handle =
 			})
 		: ({ event, resolve }) => resolve(event);
 
-export const handle = sequence(securityHeaders({ https: config.origin.startsWith('https:') }), bodyLimits, authHandle, loadUser, memoised);
+const moved: Handle = ({ event, resolve }) => {
+	const to = movedAddress(event.url);
+	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
+};
+
+export const handle = sequence(securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, authHandle, loadUser, memoised);

@@ -7,8 +7,8 @@ const LINKS: NavLink[] = [
 	{ href: '/fit', label: 'Will it fit?', role: 'viewer' },
 	{ href: '/calc', label: 'Calculators', role: 'viewer' },
 	{ href: '/parts', label: 'Parts', role: 'viewer' },
-	{ href: '/changes', label: 'Recent changes', role: 'viewer' },
-	{ href: '/watchlist', label: 'Watchlist', role: 'viewer' },
+	{ href: '/shop-log', label: 'Shop log', role: 'viewer' },
+	{ href: '/following', label: 'Following', role: 'viewer' },
 	{ href: '/guide', label: 'Guide', role: 'viewer' },
 	{ href: '/admin/users', label: 'Staff', role: 'admin' }
 ];

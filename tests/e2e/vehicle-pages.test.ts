@@ -35,8 +35,13 @@ describe('a writer edits, a moderator puts it right', () => {
 		await page.getByRole('status').filter({ hasText: /Saved revision \d+/ }).waitFor();
 
 		await page.goto(`${BASE}/vehicles/${SLUG}/history`);
-		expect(await page.textContent('table')).toContain('Passenger seat height re-measured');
-		await Promise.all([page.waitForURL(/\/compare\?/), page.click('button:has-text("Compare selected revisions")')]);
+		// The newest entry: its change note, the section it touched and, worked by hand from the one
+		// edit above, one field changed that is a measurement.
+		const newest = page.getByTestId('revision-rows').locator('li').first();
+		expect(await newest.textContent()).toContain('Passenger seat height re-measured');
+		expect(await newest.textContent()).toMatch(/Seat space[\s\S]*1 field[\s\S]*1 measurement changed/);
+		await screenshot(page, 'history-phone');
+		await Promise.all([page.waitForURL(/\/compare\?/), page.click('button:has-text("Show what changed")')]);
 		const body = await page.textContent('main');
 		expect(body).toContain('Passenger seat space, height');
 		expect(body).toMatch(/85 mm[\s\S]*82 mm/);
@@ -68,7 +73,7 @@ describe('a page opened again shows every change since', () => {
 	const OTHER = 'korvane-bristle-2016-2022-suv';
 	const seats = (page: import('playwright-core').Page) => page.textContent('#section-seats');
 
-	it('follows a watch, the units, a trust mark and a new revision', async () => {
+	it('follows a follow, the units, a trust mark and a new revision', async () => {
 		const page = await pageAs('admin');
 		const url = `${BASE}/vehicles/${OTHER}`;
 		await page.goto(url, { waitUntil: 'networkidle' });
@@ -76,14 +81,17 @@ describe('a page opened again shows every change since', () => {
 		expect(await page.textContent('#section-power .prose')).toContain('current sensor on the negative terminal');
 		expect(await seats(page)).toContain('115');
 
-		await page.click('button:has-text("Watch this page")');
-		await page.getByRole('button', { name: /Watching/ }).waitFor();
+		await page.click('button:has-text("Follow this car")');
+		await page.getByRole('button', { name: 'Following' }).waitFor();
 		await page.reload({ waitUntil: 'networkidle' });
-		expect(await page.getByRole('button', { name: /Watching/ }).count()).toBe(1);
-		await page.click('button:has-text("Watching")');
-		await page.getByRole('button', { name: 'Watch this page' }).waitFor();
+		expect(await page.getByRole('button', { name: 'Following' }).count()).toBe(1);
+		await page.goto(`${BASE}/following`, { waitUntil: 'networkidle' });
+		expect(await page.textContent('main')).toContain('Korvane Bristle');
+		await page.goto(url, { waitUntil: 'networkidle' });
+		await page.click('button:has-text("Following")');
+		await page.getByRole('button', { name: 'Follow this car' }).waitFor();
 		await page.reload({ waitUntil: 'networkidle' });
-		expect(await page.getByRole('button', { name: 'Watch this page' }).count()).toBe(1);
+		expect(await page.getByRole('button', { name: 'Follow this car' }).count()).toBe(1);
 
 		await page.click('button:has-text("in / ft")');
 		await page.locator('button[aria-pressed="true"]:has-text("in / ft")').waitFor();
@@ -140,5 +148,33 @@ describe('a page opened again shows every change since', () => {
 		const html = await res.text();
 		const order = [...html.matchAll(/<input[^>]*name="removal\.steps\.\d+"[^>]*>/g)].map((m) => /value="([^"]*)"/.exec(m[0])?.[1]);
 		expect(order).toEqual(before.map((t) => t.replaceAll('&', '&amp;').replaceAll('"', '&quot;')));
+	});
+});
+
+describe('the shop log and the old addresses', () => {
+	it('sends the old addresses on to the shop log and the cars a person follows', async () => {
+		const page = await pageAs('moderator', DESKTOP);
+		await page.goto(`${BASE}/changes?awaiting=1`, { waitUntil: 'networkidle' });
+		expect(new URL(page.url()).pathname).toBe('/shop-log');
+		expect(await page.textContent('h1')).toBe('Shop log');
+		await page.goto(`${BASE}/watchlist`, { waitUntil: 'networkidle' });
+		expect(new URL(page.url()).pathname).toBe('/following');
+		const moved = await page.request.get(`${BASE}/vehicles/${SLUG}/watch`, { maxRedirects: 0 });
+		expect(moved.status()).toBe(308);
+		expect(moved.headers().location).toBe(`/vehicles/${SLUG}/follow`);
+		await page.close();
+	});
+
+	it('lets a moderator sign off a change awaiting sign-off, at phone width', async () => {
+		const page = await pageAs('moderator');
+		await page.goto(`${BASE}/shop-log?awaiting=1`, { waitUntil: 'networkidle' });
+		const before = Number((await page.textContent('main p:has-text("awaiting sign-off")'))!.match(/(\d+)/)![1]);
+		expect(before).toBeGreaterThan(0);
+		await screenshot(page, 'shop-log-phone');
+		await page.getByRole('button', { name: 'Sign off' }).first().click();
+		await page.getByRole('status').filter({ hasText: /#\d+ signed off\./ }).waitFor();
+		await page.goto(`${BASE}/shop-log?awaiting=1`, { waitUntil: 'networkidle' });
+		expect(await page.textContent('main')).toContain(`${before - 1} ${before - 1 === 1 ? 'change' : 'changes'} awaiting sign-off`);
+		await page.close();
 	});
 });

@@ -338,7 +338,7 @@ describe('refusing what is not a usable photo, storing nothing', () => {
 		await setProtection(vehicle.id, 'moderators', moderator);
 		const asEditor = await addPhotosToVehicle(vehicle.id, [{ name: 'x.jpg', bytes }], seatDetails, editor).catch((e) => e);
 		expect(asEditor.status).toBe(403);
-		expect(asEditor.message).toMatch(/protected/);
+		expect(asEditor.message).toMatch(/locked for moderators/);
 		await setProtection(vehicle.id, 'none', moderator);
 		expect(await Photo.findByPk(createHash('sha256').update(bytes).digest('hex'))).toBeNull();
 	});

@@ -86,7 +86,7 @@ describe('watching pages', () => {
 
 		const [notice, ...more] = await outbox.to(counterStaff.email);
 		expect(more).toHaveLength(0);
-		expect(notice.subject).toBe('Varnholt Pellar 2008–2012 was changed by Writer Sample');
+		expect(notice.subject).toBe('Writer Sample updated Varnholt Pellar 2008–2012');
 		expect(notice.text).toContain(compare);
 		expect(notice.text).toContain('rear bench access');
 		expect(notice.html).toContain(compare.replace(/&/g, '&amp;'));
@@ -128,7 +128,7 @@ describe('watching pages', () => {
 		expect(await sendDigests(new Date(now + 25 * HOUR_MS))).toBe(1);
 		const [digest, ...rest] = await outbox.to(digestReader.email);
 		expect(rest).toHaveLength(0);
-		expect(digest.subject).toBe('Kickpanel daily digest: 3 changes on 1 watched page');
+		expect(digest.subject).toBe('Today on the cars you follow: 3 updates to 1 car');
 		expect(digest.text.match(/compare\?from=\d+&to=\d+/g)).toHaveLength(3);
 		expect(digest.text).toContain('rear bench access');
 		expect(digest.text).toContain('passenger tray depth');

@@ -1,4 +1,4 @@
-/** A moderator's stop on someone's editing, as the blocked person and the guard see it. */
+/** A moderator's pause on someone's editing, as the paused person and the guard see it. */
 export type EditBlock = { reason: string; until: string };
 
 function utc(iso: string): string {
@@ -6,5 +6,5 @@ function utc(iso: string): string {
 }
 
 export function blockNotice(block: EditBlock): string {
-	return `You are blocked from editing until ${utc(block.until)}. Reason given: ${block.reason} — if you think this is a mistake, talk to a moderator or the shop owner.`;
+	return `Your editing is paused until ${utc(block.until)}, because: ${block.reason} — if you think this is a mistake, talk to a moderator or the shop owner.`;
 }

@@ -15,7 +15,7 @@ export const load: PageServerLoad = async ({ locals }) => {
 const unitsForm = z.object({ units: z.enum(['metric', 'imperial'], { error: 'Choose metric or imperial.' }) });
 const noticesForm = z.object({
 	watchOwnEdits: z.enum(['yes', 'no'], { error: 'Choose yes or no.' }),
-	noticeMode: z.enum(['immediate', 'digest'], { error: 'Choose at once or a daily digest.' })
+	noticeMode: z.enum(['immediate', 'digest'], { error: 'Choose at once or one round-up a day.' })
 });
 
 export const actions: Actions = {

@@ -1,4 +1,4 @@
-// "Did you mean": one slip of the finger in a make or model name, checked against the names the wiki knows.
+// Reading past a typo: one slip of the finger in a make or model name, checked against the names the wiki knows.
 
 /** Words shorter than this are never corrected: a one-letter change to a short word is another word. */
 export const FUZZY_MIN_LENGTH = 4;

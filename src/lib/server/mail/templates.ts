@@ -5,8 +5,8 @@ export type MailBody = { subject: string; text: string; html: string };
 const ROLE_WORDS: Record<string, string> = {
 	viewer: 'look up vehicle pages',
 	editor: 'look up and edit vehicle pages',
-	moderator: 'edit vehicle pages and review changes',
-	admin: 'edit, review and manage staff accounts'
+	moderator: 'edit vehicle pages and sign off changes',
+	admin: 'edit, sign off changes and manage staff accounts'
 };
 
 function escapeHtml(s: string): string {
@@ -82,7 +82,7 @@ ${button(input.link, 'Choose a new password')}
 	return { subject, text, html };
 }
 
-/** One change to a watched page, as a notice shows it. */
+/** One update to a followed car, as a notice shows it. */
 export type ChangeLine = {
 	vehicleTitle: string;
 	pageLink: string;
@@ -93,63 +93,68 @@ export type ChangeLine = {
 	isNewPage: boolean;
 };
 
+const didWhat = (c: ChangeLine) => (c.isNewPage ? 'started the page for' : 'updated');
+const noteText = (c: ChangeLine) => (c.summary === null ? '(change note hidden by a moderator)' : c.summary || '(no change note)');
+
 function changeText(c: ChangeLine): string {
-	const what = c.isNewPage ? 'created the page' : 'changed the page';
-	const summary = c.summary === null ? '(summary hidden by a moderator)' : c.summary || '(no summary)';
-	return [`${c.vehicleTitle}: ${c.editorName} ${what} at ${utc(c.when)}.`, `  Summary: ${summary}`, `  ${c.compareLink ? `See what changed: ${c.compareLink}` : `Open the page: ${c.pageLink}`}`].join('\n');
-}
-
-function changeHtml(c: ChangeLine): string {
-	const what = c.isNewPage ? 'created the page' : 'changed the page';
-	const summary = c.summary === null ? '<em>(summary hidden by a moderator)</em>' : escapeHtml(c.summary || '(no summary)');
-	const link = c.compareLink
-		? `<a href="${escapeHtml(c.compareLink)}" style="color:#964d20">See what changed</a>`
-		: `<a href="${escapeHtml(c.pageLink)}" style="color:#964d20">Open the page</a>`;
-	return `<li style="margin-bottom:12px"><a href="${escapeHtml(c.pageLink)}" style="color:#1c1a17;font-weight:600">${escapeHtml(c.vehicleTitle)}</a>:
-${escapeHtml(c.editorName)} ${what} at ${escapeHtml(utc(c.when))}.<br>Summary: ${summary}<br>${link}</li>`;
-}
-
-function noticeFooterText(accountLink: string, watchlistLink: string): string {
 	return [
-		`You get this because you watch these pages.`,
-		`Stop watching a page from your watchlist: ${watchlistLink}`,
-		`Choose notices at once or a daily digest on your account page: ${accountLink}`
+		`${c.editorName} ${didWhat(c)} ${c.vehicleTitle} — ${utc(c.when)}`,
+		`  Change note: ${noteText(c)}`,
+		`  ${c.compareLink ? `Show what changed: ${c.compareLink}` : `Open the page: ${c.pageLink}`}`
 	].join('\n');
 }
 
-function noticeFooterHtml(accountLink: string, watchlistLink: string): string {
-	return `You get this because you watch these pages. Stop watching a page from <a href="${escapeHtml(watchlistLink)}">your watchlist</a>; choose between notices at once or a daily digest on <a href="${escapeHtml(accountLink)}">your account page</a>.`;
+function changeHtml(c: ChangeLine): string {
+	const note = c.summary === null ? `<em>${escapeHtml(noteText(c))}</em>` : escapeHtml(noteText(c));
+	const link = c.compareLink
+		? `<a href="${escapeHtml(c.compareLink)}" style="color:#964d20">Show what changed</a>`
+		: `<a href="${escapeHtml(c.pageLink)}" style="color:#964d20">Open the page</a>`;
+	return `<li style="margin-bottom:12px">${escapeHtml(c.editorName)} ${didWhat(c)} <a href="${escapeHtml(c.pageLink)}" style="color:#1c1a17;font-weight:600">${escapeHtml(c.vehicleTitle)}</a> — ${escapeHtml(utc(c.when))}<br>Change note: ${note}<br>${link}</li>`;
 }
 
-export function changeNoticeMail(input: { recipientName: string; change: ChangeLine; accountLink: string; watchlistLink: string }): MailBody {
+function noticeFooterText(accountLink: string, followingLink: string): string {
+	return [
+		`You get this because you follow these cars.`,
+		`Unfollow a car from the list of cars you follow: ${followingLink}`,
+		`Choose notices at once or one round-up a day on your account page: ${accountLink}`
+	].join('\n');
+}
+
+function noticeFooterHtml(accountLink: string, followingLink: string): string {
+	return `You get this because you follow these cars. Unfollow a car from <a href="${escapeHtml(followingLink)}">the cars you follow</a>; choose notices at once or one round-up a day on <a href="${escapeHtml(accountLink)}">your account page</a>.`;
+}
+
+type NoticeLinks = { accountLink: string; followingLink: string };
+
+export function changeNoticeMail(input: { recipientName: string; change: ChangeLine } & NoticeLinks): MailBody {
 	const c = input.change;
-	const subject = `${c.vehicleTitle} was ${c.isNewPage ? 'created' : 'changed'} by ${c.editorName}`;
-	const text = [`Hello ${input.recipientName},`, ``, changeText(c), ``, noticeFooterText(input.accountLink, input.watchlistLink)].join('\n');
+	const subject = `${c.editorName} ${didWhat(c)} ${c.vehicleTitle}`;
+	const text = [`Hello ${input.recipientName},`, ``, changeText(c), ``, noticeFooterText(input.accountLink, input.followingLink)].join('\n');
 	const html = page(
 		subject,
 		`<p>Hello ${escapeHtml(input.recipientName)},</p><ul style="padding-left:18px">${changeHtml(c)}</ul>`,
-		noticeFooterHtml(input.accountLink, input.watchlistLink)
+		noticeFooterHtml(input.accountLink, input.followingLink)
 	);
 	return { subject, text, html };
 }
 
-export function digestMail(input: { recipientName: string; changes: ChangeLine[]; accountLink: string; watchlistLink: string }): MailBody {
-	const pages = new Set(input.changes.map((c) => c.pageLink)).size;
+export function digestMail(input: { recipientName: string; changes: ChangeLine[] } & NoticeLinks): MailBody {
+	const cars = new Set(input.changes.map((c) => c.pageLink)).size;
 	const count = input.changes.length;
-	const subject = `Kickpanel daily digest: ${count} ${count === 1 ? 'change' : 'changes'} on ${pages} watched ${pages === 1 ? 'page' : 'pages'}`;
+	const subject = `Today on the cars you follow: ${count} ${count === 1 ? 'update' : 'updates'} to ${cars} ${cars === 1 ? 'car' : 'cars'}`;
 	const text = [
 		`Hello ${input.recipientName},`,
 		``,
-		`Since your last digest:`,
+		`Since your last round-up:`,
 		``,
 		input.changes.map(changeText).join('\n\n'),
 		``,
-		noticeFooterText(input.accountLink, input.watchlistLink)
+		noticeFooterText(input.accountLink, input.followingLink)
 	].join('\n');
 	const html = page(
 		subject,
-		`<p>Hello ${escapeHtml(input.recipientName)},</p><p>Since your last digest:</p><ul style="padding-left:18px">${input.changes.map(changeHtml).join('\n')}</ul>`,
-		noticeFooterHtml(input.accountLink, input.watchlistLink)
+		`<p>Hello ${escapeHtml(input.recipientName)},</p><p>Since your last round-up:</p><ul style="padding-left:18px">${input.changes.map(changeHtml).join('\n')}</ul>`,
+		noticeFooterHtml(input.accountLink, input.followingLink)
 	);
 	return { subject, text, html };
 }

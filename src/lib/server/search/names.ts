@@ -6,13 +6,13 @@ const NONE: readonly string[] = [];
 
 /**
  * The names the search holds. Make and model names repeat across thousands of pages, so each string,
- * word list and set of identity words is kept once; the words are counted for "did you mean".
+ * word list and set of identity words is kept once; the words are counted for the search's "Read as" correction.
  */
 export class NameTable {
 	private strings = new Map<string, string>();
 	private wordLists = new Map<string, readonly string[]>();
 	private sets = new Map<string, NameWords>();
-	/** Identity words and how many pages use each: what "did you mean" may suggest. */
+	/** Identity words and how many pages use each: what a "Read as" correction may suggest. */
 	readonly vocabulary = new Map<string, number>();
 	/** Per query, the score of each name set already worked out (stamped with the query's generation). */
 	private scoreGen = new Uint32Array(256);

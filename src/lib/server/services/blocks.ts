@@ -18,7 +18,7 @@ export const blockSchema = z.object({
 		.trim()
 		.min(3, 'Give a reason; the person sees it.')
 		.max(500, 'Keep the reason under 500 characters.'),
-	until: z.iso.date({ error: 'Pick the day the block ends.' })
+	until: z.iso.date({ error: 'Pick the day the pause ends.' })
 });
 
 /** An end date means the block lifts at 00:00 UTC on that day. */
@@ -44,10 +44,10 @@ export async function refuseBlockedAuthor(userId: number, now = new Date()): Pro
 const RANK: Record<Role, number> = Object.fromEntries(ROLES.map((r, i) => [r, i])) as Record<Role, number>;
 
 function mayBlock(actor: SessionUser, target: User, act: 'block' | 'unblock'): string | null {
-	const doing = act === 'block' ? 'Blocking someone' : 'Lifting a block';
+	const doing = act === 'block' ? 'Pausing someone’s editing' : 'Ending a pause';
 	if (!roleAtLeast(actor.role, 'moderator')) return `${doing} needs the moderator role.`;
-	if (actor.id === target.id) return act === 'block' ? 'You cannot block yourself.' : 'You cannot lift your own block; ask another moderator.';
-	if (actor.role !== 'admin' && RANK[target.role] >= RANK[actor.role]) return `A ${actor.role} can ${act} only people with a lower role; ask an admin.`;
+	if (actor.id === target.id) return act === 'block' ? 'You cannot pause your own editing.' : 'You cannot end your own pause; ask another moderator.';
+	if (actor.role !== 'admin' && RANK[target.role] >= RANK[actor.role]) return `A ${actor.role} can ${act === 'block' ? 'pause' : 'end the pause of'} only people with a lower role; ask an admin.`;
 	return null;
 }
 
@@ -61,7 +61,7 @@ export async function blockUser(targetId: number, input: unknown, actor: Session
 	const until = blockEnd(parsed.data.until);
 	if (until.getTime() <= now.getTime()) throw new ServiceError('Pick an end day after today.', 400, { until: 'Pick an end day after today.' });
 	if (until.getTime() - now.getTime() > LONGEST_BLOCK_DAYS * DAY_MS) {
-		throw new ServiceError('Blocks last at most five years; disable the account instead.', 400, { until: 'Pick a day within five years.' });
+		throw new ServiceError('A pause lasts at most five years; disable the account instead.', 400, { until: 'Pick a day within five years.' });
 	}
 	const block = await db().transaction(async (transaction) => {
 		const target = await User.findByPk(targetId, { transaction, lock: transaction.LOCK.UPDATE });

@@ -170,7 +170,7 @@ async function editableVehicle(vehicleId: number, user: SessionUser, action: str
 	if (!roleAtLeast(user.role, 'editor')) throw new ServiceError(`${action} needs the editor role.`, 403);
 	const vehicle = await vehicleById(vehicleId);
 	if (!vehicle) throw new ServiceError('That vehicle page no longer exists.', 404);
-	if (!canEditVehicle(user, vehicle)) throw new ServiceError('This page is protected: only moderators can change its photos.', 403);
+	if (!canEditVehicle(user, vehicle)) throw new ServiceError('This page is locked for moderators: only moderators can change its photos.', 403);
 	return vehicle;
 }
 

@@ -39,7 +39,7 @@ export async function visibleRevision(
 
 /** Marks one revision as looked at by a moderator; marking it again changes nothing. */
 export async function markReviewed(revisionId: number, actor: SessionUser, now = new Date()): Promise<{ alreadyReviewed: boolean }> {
-	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Marking changes reviewed needs the moderator role.', 403);
+	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Signing off changes needs the moderator role.', 403);
 	return db().transaction(async (transaction) => {
 		const row = await Revision.findByPk(revisionId, { attributes: ['id', 'vehicleId', 'reviewedAt'], transaction, lock: transaction.LOCK.UPDATE });
 		if (!row) throw new ServiceError('That revision does not exist.', 404);

@@ -232,7 +232,7 @@ export async function saveRevision(vehicleId: number, input: SaveInput, author: 
 		if (!vehicle) throw new ServiceError('That vehicle page no longer exists.', 404);
 		if (!canEditVehicle(author, vehicle)) {
 			throw new ServiceError(
-				vehicle.protection === 'moderators' ? 'This page is protected: only moderators can edit it.' : 'Editing needs the editor role.',
+				vehicle.protection === 'moderators' ? 'This page is locked for moderators: only moderators can edit it.' : 'Editing needs the editor role.',
 				403
 			);
 		}
@@ -302,7 +302,7 @@ export async function setRevisionHidden(revisionId: number, hidden: boolean, rea
 }
 
 export async function setProtection(vehicleId: number, protection: 'none' | 'moderators', actor: SessionUser): Promise<void> {
-	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Protecting a page needs the moderator role.', 403);
+	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Locking a page for moderators needs the moderator role.', 403);
 	await db().transaction(async (transaction) => {
 		const vehicle = await Vehicle.findByPk(vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
 		if (!vehicle) throw new ServiceError('That vehicle page no longer exists.', 404);

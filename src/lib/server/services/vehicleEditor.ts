@@ -12,7 +12,7 @@ import { EditConflictError, NoChangeError, ServiceError } from '../errors';
 import { currentRevision, vehicleBySlug, type VehicleSummary } from './vehicles';
 import { canEditVehicle, revisionById, saveRevision } from './revisions';
 
-const PROTECTED = 'This page is protected: only moderators can edit it.';
+const PROTECTED = 'This page is locked for moderators: only moderators can edit it.';
 
 /** The page this person may edit at this address; an address renamed while they were editing still finds it. */
 export async function editableVehicle(slug: string, user: SessionUser): Promise<VehicleSummary> {

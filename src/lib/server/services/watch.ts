@@ -155,7 +155,7 @@ async function release(ids: number[]): Promise<void> {
 	if (ids.length) await PendingNotice.update({ sentAt: null }, { where: { id: ids } });
 }
 
-const footerLinks = () => ({ accountLink: `${config.origin}/account`, watchlistLink: `${config.origin}/watchlist` });
+const footerLinks = () => ({ accountLink: `${config.origin}/account`, followingLink: `${config.origin}/following` });
 
 /** Sends every queued "at once" notice; a notice whose mail fails stays queued for the next try. */
 export async function deliverImmediateNotices(now = new Date()): Promise<number> {

@@ -22,7 +22,7 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 		trustSummary(vehicle, locals.units)
 	]);
 	if (!revision) {
-		error(404, newerAwaitingReview ? 'This new page is waiting for a moderator to review it.' : 'This vehicle page has no saved revision yet.');
+		error(404, newerAwaitingReview ? 'This new page is awaiting sign-off by a moderator.' : 'This vehicle page has no saved revision yet.');
 	}
 	const saved = Number(url.searchParams.get('saved'));
 	// The identity notes are in the cached fragments; the header needs only the names and years.

@@ -15,15 +15,15 @@ export const load: PageServerLoad = async ({ locals }) => {
 const reviewForm = z.object({ reviewBeforeShow: z.enum(['on', 'off'], { error: 'Choose on or off.' }) });
 
 export const actions: Actions = {
-	review: async ({ locals, request }) => {
+	signoff: async ({ locals, request }) => {
 		const admin = requireRole(locals, 'admin');
 		return formAction(request, async (posted) => {
 			const on = reviewForm.parse(Object.fromEntries(posted)).reviewBeforeShow === 'on';
 			await setReviewBeforeShow(on, admin);
 			return {
 				message: on
-					? 'Review before it shows is on: viewers see a change once a moderator has reviewed it.'
-					: 'Review before it shows is off: everyone sees the latest revision.'
+					? 'Sign-off before viewers see it is on: viewers see a change once a moderator has signed it off.'
+					: 'Sign-off before viewers see it is off: everyone sees the latest revision.'
 			};
 		});
 	}

@@ -2,6 +2,7 @@ import { error } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { hasRole, requireRole } from '$lib/server/auth/guard';
 import { listRevisions } from '$lib/server/services/revisions';
+import { withTallies } from '$lib/server/services/revisionTally';
 import { changesFilter } from '$lib/server/services/changes';
 import { activeBlockFor, blockUser, liftBlock } from '$lib/server/services/blocks';
 import { formAction } from '$lib/server/forms';
@@ -23,35 +24,35 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const moderating = hasRole(viewer, 'moderator') && !viewer.block && viewer.id !== id;
 	const [revisions, block] = await Promise.all([
 		listRevisions({ authorId: id, section: filter.data.section, page: filter.data.page }),
-		// Everyone may see that someone is blocked; the reason is for moderators and the person themselves.
+		// Everyone may see that someone's editing is paused; the reason is for moderators and the person themselves.
 		activeBlockFor(id)
 	]);
 	const showReason = moderating || viewer.id === id;
 	return {
 		person: { id: person.id, name: person.name, role: person.role },
-		revisions,
+		revisions: { ...revisions, items: await withTallies(revisions.items) },
 		block: block ? { until: block.until, reason: showReason ? block.reason : null } : null,
 		moderating
 	};
 };
 
 export const actions: Actions = {
-	block: async ({ locals, params, request }) => {
+	pause: async ({ locals, params, request }) => {
 		const moderator = requireRole(locals, 'moderator');
 		return formAction(
 			request,
 			async (posted) => {
-				const block = await blockUser(personId(params.id), Object.fromEntries(posted), moderator);
-				return { message: `Blocked from editing until ${block.until.slice(0, 10)}.` };
+				const pause = await blockUser(personId(params.id), Object.fromEntries(posted), moderator);
+				return { message: `Editing paused until ${pause.until.slice(0, 10)}.` };
 			},
 			{ values: ['reason', 'until'] }
 		);
 	},
-	lift: async ({ locals, params, request }) => {
+	end: async ({ locals, params, request }) => {
 		const moderator = requireRole(locals, 'moderator');
 		return formAction(request, async () => {
 			const lifted = await liftBlock(personId(params.id), moderator);
-			return { message: lifted ? 'Block lifted; they can edit again.' : 'There was no block in force.' };
+			return { message: lifted ? 'Pause ended; they can edit again.' : 'There was no pause in force.' };
 		});
 	}
 };

@@ -29,7 +29,7 @@ export const GET: RequestHandler = ({ locals, params }) =>
 const saveBody = z.object({
 	baseRevisionId: z.number({ error: 'baseRevisionId must be the id of the revision you edited.' }).int().positive(),
 	content: z.unknown(),
-	summary: z.string({ error: 'summary must be text.' }).max(500, 'Keep the summary under 500 characters.').default('')
+	summary: z.string({ error: 'summary must be text.' }).max(500, 'Keep the change note under 500 characters.').default('')
 });
 
 export const PUT: RequestHandler = ({ locals, params, request }) =>

@@ -11,9 +11,11 @@ export type CompareResponse = {
 };
 
 export const load: PageLoad = async ({ fetch, params, url }) => {
-	const from = url.searchParams.get('from');
-	const to = url.searchParams.get('to');
-	if (!from || !to) error(400, 'Pick two revisions to compare from the history page.');
+	// Two ticked rows of the history list, or its older and newer pickers; either way the older comes first.
+	const ticked = url.searchParams.getAll('pick');
+	const pair = ticked.length === 2 ? ticked : [url.searchParams.get('from'), url.searchParams.get('to')];
+	if (ticked.length > 2 || !pair[0] || !pair[1]) error(400, 'Tick two revisions on the history page (or pick an older and a newer one) to see what changed.');
+	const [from, to] = Number(pair[0]) > Number(pair[1]) ? [pair[1], pair[0]] : [pair[0], pair[1]];
 	const res = await fetch(`/api/vehicles/${params.slug}/compare?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`);
 	const body = await res.json();
 	if (!res.ok) error(res.status, body.message);

@@ -30,13 +30,13 @@ export const actions: Actions = {
 			return { message: hidden === 'true' ? `Revision ${revisionId} hidden.` : `Revision ${revisionId} shown again.` };
 		});
 	},
-	protect: async ({ locals, params, request }) => {
+	lock: async ({ locals, params, request }) => {
 		const user = requireRole(locals, 'moderator');
 		return formAction(request, async (posted) => {
 			const { protection } = protectForm.parse(Object.fromEntries(posted));
 			const vehicle = await requireVehicle(params.slug);
 			await setProtection(vehicle.id, protection, user);
-			return { message: protection === 'moderators' ? 'Page protected: only moderators can edit it now.' : 'Protection removed: editors can edit again.' };
+			return { message: protection === 'moderators' ? 'Locked for moderators: only moderators can edit it now.' : 'Unlocked: any writer can edit again.' };
 		});
 	}
 };

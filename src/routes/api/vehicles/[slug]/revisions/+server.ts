@@ -4,6 +4,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, queryInt } from '$lib/server/http';
 import { requireVehicle } from '$lib/server/services/vehicles';
 import { listRevisions } from '$lib/server/services/revisions';
+import { withTallies } from '$lib/server/services/revisionTally';
 
 export const GET: RequestHandler = ({ locals, params, url }) =>
 	apiCall(async () => {
@@ -15,7 +16,8 @@ export const GET: RequestHandler = ({ locals, params, url }) =>
 			pageSize: queryInt(url, 'pageSize', { min: 1, max: 500 })
 		});
 		return json({
-			items: result.items.map((r) => ({
+			// sizeDelta stays for older clients; tally says what changed: { fields, notes, measurements } or null.
+			items: (await withTallies(result.items)).map((r) => ({
 				id: r.id,
 				parentId: r.parentId,
 				author: r.author,
@@ -24,6 +26,7 @@ export const GET: RequestHandler = ({ locals, params, url }) =>
 				size: r.size,
 				sizeDelta: r.sizeDelta,
 				sections: r.sections,
+				tally: r.tally,
 				hidden: r.hidden,
 				restoresRevisionId: r.restoresRevisionId
 			})),

@@ -9,20 +9,20 @@ import { asHttpError } from '$lib/server/http';
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = requireRole(locals, 'viewer');
 	const vehicle = await requireVehicle(params.slug).catch(asHttpError);
-	return { vehicle: { slug: vehicle.slug, title: vehicle.title }, watching: await isWatching(user.id, vehicle.id) };
+	return { vehicle: { slug: vehicle.slug, title: vehicle.title }, following: await isWatching(user.id, vehicle.id) };
 };
 
-async function toggle(event: RequestEvent, watch: boolean) {
+async function toggle(event: RequestEvent, follow: boolean) {
 	const user = requireRole(event.locals, 'viewer');
 	const vehicle = await requireVehicle(event.params.slug).catch(asHttpError);
 	const form = await event.request.formData();
-	if (watch) await watchPage(user.id, vehicle.id).catch(asHttpError);
+	if (follow) await watchPage(user.id, vehicle.id).catch(asHttpError);
 	else await unwatchPage(user.id, vehicle.id);
 	const back = form.get('returnTo');
 	redirect(303, typeof back === 'string' && back ? safeNext(back) : `/vehicles/${vehicle.slug}`);
 }
 
 export const actions: Actions = {
-	watch: (event) => toggle(event, true),
-	unwatch: (event) => toggle(event, false)
+	follow: (event) => toggle(event, true),
+	unfollow: (event) => toggle(event, false)
 };

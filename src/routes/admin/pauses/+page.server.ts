@@ -7,17 +7,17 @@ import { liftBlock, listBlocks } from '$lib/server/services/blocks';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	const user = requireRole(locals, 'moderator');
-	return { blocks: await listBlocks(), role: user.role, outbox: !config.production };
+	return { pauses: await listBlocks(), role: user.role, outbox: !config.production };
 };
 
 const personRef = z.object({ userId: z.coerce.number().int().positive('Pick a person.') });
 
 export const actions: Actions = {
-	lift: async ({ locals, request }) => {
+	end: async ({ locals, request }) => {
 		const moderator = requireRole(locals, 'moderator');
 		return formAction(request, async (posted) => {
 			const lifted = await liftBlock(personRef.parse(Object.fromEntries(posted)).userId, moderator);
-			return { message: lifted ? 'Block lifted; they can edit again.' : 'That block had already ended.' };
+			return { message: lifted ? 'Pause ended; they can edit again.' : 'That pause had already ended.' };
 		});
 	}
 };

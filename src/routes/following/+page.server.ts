@@ -10,14 +10,14 @@ export const load: PageServerLoad = async ({ locals }) => {
 	return { items, prefs };
 };
 
-const pageRef = z.object({ vehicleId: z.coerce.number().int().positive('Pick a page.') });
+const pageRef = z.object({ vehicleId: z.coerce.number().int().positive('Pick a car.') });
 
 export const actions: Actions = {
-	unwatch: async ({ locals, request }) => {
+	unfollow: async ({ locals, request }) => {
 		const user = requireRole(locals, 'viewer');
 		return formAction(request, async (posted) => {
 			await unwatchPage(user.id, pageRef.parse(Object.fromEntries(posted)).vehicleId);
-			return { message: 'You no longer watch that page.' };
+			return { message: 'You no longer follow that car.' };
 		});
 	}
 };
