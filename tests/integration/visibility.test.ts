@@ -206,6 +206,26 @@ describe('fit screen, reverse scan and search', () => {
 		expect(await hits('wordlaterchange')).toEqual([A.slug]);
 		index.stop();
 	});
+
+	it('catches up with a sign-off and a hide made on another server by polling', async () => {
+		const index = new LiveSearchIndex();
+		index.start({ pollMs: 0, listen: false });
+		const hits = async (q: string) => (await index.search({ q, conditions: [] }, { limit: 10 })).items.map((h) => h.slug);
+		const change = await edit(A.id, editor, (c) => (c.identity.notes = 'wordpolledchange'), 'polled');
+		await index.ready();
+		expect(await hits('wordpolledchange')).toEqual([]);
+		// Signed off elsewhere: no new revision, only the page row is touched.
+		await markReviewed(change, moderator);
+		expect(await index.catchUp()).toBe(1);
+		expect(await hits('wordpolledchange')).toEqual([A.slug]);
+		// Hidden elsewhere, once a newer unsigned change sits on top: the index falls back to an older revision.
+		await edit(A.id, editor, (c) => (c.identity.notes = 'wordontop'), 'on top');
+		await setRevisionHidden(change, true, 'test', moderator);
+		expect(await index.catchUp()).toBe(1);
+		expect(await hits('wordpolledchange')).toEqual([]);
+		expect(await hits('wordontop')).toEqual([]);
+		index.stop();
+	});
 });
 
 describe('notices', () => {

@@ -109,15 +109,22 @@ export class LiveSearchIndex {
 		await this.putShown(this.engine, vehicleIds);
 	}
 
-	private async putShown(engine: VehicleSearchEngine, vehicleIds: number[]): Promise<void> {
+	/** Puts each page's shown revision; returns how many pages changed in the index. */
+	private async putShown(engine: VehicleSearchEngine, vehicleIds: number[]): Promise<number> {
 		const inputs = await shownRevisionsOf(vehicleIds, await readingRules());
+		let changed = 0;
 		for (const input of inputs) {
 			// A hide can move the shown revision back to an older one.
 			if ((engine.revisionOf(input.id) ?? 0) > input.revisionId) engine.remove(input.id);
-			engine.put(input);
+			if (engine.put(input)) changed++;
 		}
 		const found = new Set(inputs.map((i) => i.id));
-		for (const id of vehicleIds) if (!found.has(id)) engine.remove(id);
+		for (const id of vehicleIds) {
+			if (found.has(id) || engine.revisionOf(id) === null) continue;
+			engine.remove(id);
+			changed++;
+		}
+		return changed;
 	}
 
 	/** One polling step: indexes pages whose newest revision is newer than the one held. Returns how many changed. */
@@ -144,10 +151,10 @@ export class LiveSearchIndex {
 		this.touchedSince = touchedAt;
 		const stale = new Set(changed.filter((c) => (engine.revisionOf(c.vehicleId) ?? 0) < c.revisionId).map((c) => c.vehicleId));
 		for (const id of touched) stale.add(id);
-		if (stale.size) await this.putShown(engine, [...stale]);
+		const updated = stale.size ? await this.putShown(engine, [...stale]) : 0;
 		for (const c of changed) this.watermark = Math.max(this.watermark, c.revisionId);
 		this.compactIfNeeded(engine);
-		return stale.size;
+		return updated;
 	}
 
 	/** Replaced pages leave retired slots behind; past a fifth of the index a fresh build replaces it. */
