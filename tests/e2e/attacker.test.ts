@@ -4,6 +4,7 @@ import { join, relative } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import sharp from 'sharp';
 import { request, type APIRequestContext, type APIResponse } from 'playwright-core';
 import { BASE, userFor } from './browser';
 
@@ -71,6 +72,9 @@ let unsignedSlug = '';
 let hiddenRevisionId = 0;
 let unsignedRevisionId = 0;
 let visibleRevisionId = 0;
+/** A photo shown only in hidden revisions (uploaded by a moderator), and one shown only in an unsigned-off change. */
+let hiddenPhotoId = '';
+let unsignedPhotoId = '';
 
 async function signedIn(who: Identity): Promise<APIRequestContext> {
 	const ctx = await request.newContext({ baseURL: BASE, extraHTTPHeaders: { origin: BASE } });
@@ -92,14 +96,43 @@ async function jsonOf(res: APIResponse) {
 	return res.json();
 }
 
-async function saveNotes(who: Identity, slug: string, text: string, summary: string): Promise<number> {
+async function saveNotes(who: Identity, slug: string, text: string, summary: string, dropPhoto?: string): Promise<number> {
 	const ctx = people.get(who)!;
 	const page = await jsonOf(await ctx.get(`/api/vehicles/${slug}`));
 	const content = structuredClone(page.content);
 	content.identity.notes = text;
+	if (dropPhoto) content.photos = content.photos.filter((p: { id: string }) => p.id !== dropPhoto);
 	content.seats.notes = `Also under the seat: ${text}`;
 	const saved = await jsonOf(await ctx.put(`/api/vehicles/${slug}`, { data: { baseRevisionId: page.revisionId, content, summary } }));
 	return saved.revisionId;
+}
+
+async function uploadPhoto(who: Identity, slug: string): Promise<{ id: string; revisionId: number }> {
+	const r = Math.floor(Math.random() * 256);
+	const buffer = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r, g: 90, b: 60 } } }).jpeg().toBuffer();
+	const res = await people.get(who)!.post(`/api/vehicles/${slug}/photos`, {
+		multipart: { file: { name: 'rail.jpg', mimeType: 'image/jpeg', buffer }, section: 'seats', alt: 'Seat rail (sample photo)' }
+	});
+	return jsonOf(res);
+}
+
+async function hide(slug: string, revisionId: number) {
+	const res = await people.get('moderator')!.post(`/vehicles/${slug}/history?/hide`, {
+		form: { revisionId: String(revisionId), hidden: 'true', reason: 'Customer details' },
+		maxRedirects: 0
+	});
+	expect(res.status()).toBeLessThan(400);
+	const listed = await jsonOf(await people.get('moderator')!.get(`/api/vehicles/${slug}/revisions`));
+	expect(listed.items.find((r: { id: number }) => r.id === revisionId), `revision ${revisionId} is hidden`).toMatchObject({ hidden: true });
+}
+
+/** Every captured mail to one address, as the admin's outbox shows it. */
+async function mailsTo(who: Identity): Promise<string> {
+	const admin = people.get('admin')!;
+	const list = await admin.get(`/admin/outbox?to=${encodeURIComponent(userFor(who).email)}`);
+	const ids = [...new Set([...(await list.text()).matchAll(/\/admin\/outbox\/([0-9]+-[0-9a-f]+)/g)].map((m) => m[1]))];
+	const bodies = await Promise.all(ids.map(async (id) => (await admin.get(`/admin/outbox/${id}`)).text()));
+	return bodies.join('\n').toLowerCase();
 }
 
 async function setSignOff(on: boolean) {
@@ -197,21 +230,25 @@ describe('the perimeter, tried as an attacker would', () => {
 		[hiddenSlug, unsignedSlug] = [slugs[0], slugs[1]];
 		visibleRevisionId = (await jsonOf(await people.get('viewer')!.get(`/api/vehicles/${hiddenSlug}`))).revisionId;
 
-		// A revision that leaked something, the page edited again, then the leak hidden by a moderator
-		// (the current revision cannot be hidden, so the edit comes first).
+		// A photo and a revision that leaked something, the page edited again without them, then both revisions
+		// hidden by a moderator (the current revision cannot be hidden, so the edit comes first).
+		const photo = await uploadPhoto('moderator', hiddenSlug);
+		hiddenPhotoId = photo.id;
 		hiddenRevisionId = await saveNotes('editor', hiddenSlug, `Customer phone ${HIDDEN}`, 'Notes from the job');
-		await saveNotes('editor', hiddenSlug, 'Notes written again without the customer details', 'Notes tidied');
-		const hide = await people.get('moderator')!.post(`/vehicles/${hiddenSlug}/history?/hide`, {
-			form: { revisionId: String(hiddenRevisionId), hidden: 'true', reason: 'Customer details' },
-			maxRedirects: 0
-		});
-		expect(hide.status()).toBeLessThan(400);
-		const listed = await jsonOf(await people.get('moderator')!.get(`/api/vehicles/${hiddenSlug}/revisions`));
-		expect(listed.items.find((r: { id: number }) => r.id === hiddenRevisionId), 'the sentinel revision is hidden').toMatchObject({ hidden: true });
+		await saveNotes('editor', hiddenSlug, 'Notes written again without the customer details', 'Notes tidied', hiddenPhotoId);
+		await hide(hiddenSlug, hiddenRevisionId);
+		await hide(hiddenSlug, photo.revisionId);
+
+		// A viewer and a moderator follow the page that gets the unsigned-off change.
+		for (const who of ['viewer', 'moderator'] as const) {
+			const res = await people.get(who)!.post(`/vehicles/${unsignedSlug}/watch?/watch`, { form: { returnTo: '' }, maxRedirects: 0 });
+			expect(res.status()).toBeLessThan(400);
+		}
 
 		// With sign-off required, a change nobody signed off yet and a brand-new page.
 		await setSignOff(true);
-		unsignedRevisionId = await saveNotes('editor', unsignedSlug, `Unchecked figure ${UNSIGNED}`, 'Unchecked change');
+		unsignedRevisionId = await saveNotes('editor', unsignedSlug, `Unchecked figure ${UNSIGNED}`, `Unchecked change ${UNSIGNED}`);
+		unsignedPhotoId = (await uploadPhoto('editor', unsignedSlug)).id;
 		const created = await people.get('editor')!.post('/vehicles/new', {
 			form: { make: 'Quillan', model: NEW_PAGE, yearFrom: '2020', yearTo: '2022', body: 'sedan', market: '', aliases: '' },
 			maxRedirects: 0
@@ -295,6 +332,31 @@ describe('the perimeter, tried as an attacker would', () => {
 		}
 		expect(findings).toEqual([]);
 	}, 900_000);
+
+	it('serves a photo of hidden or unsigned-off revisions only to those who may read them', async () => {
+		const status = async (who: Identity, id: string) => (await people.get(who)!.get(`/photos/${id}/thumb`, { maxRedirects: 0 })).status();
+		const served = async (id: string) => {
+			const ok: Identity[] = [];
+			for (const who of IDENTITIES) if ((await status(who, id)) === 200) ok.push(who);
+			return ok;
+		};
+		expect(await served(hiddenPhotoId)).toEqual(MAY_SEE[HIDDEN]);
+		// The editor uploaded this one, so it is theirs to see in any case.
+		expect(await served(unsignedPhotoId)).toEqual(MAY_SEE[UNSIGNED]);
+		expect(await status('viewer', hiddenPhotoId)).toBe(404);
+		expect(await status('viewer', unsignedPhotoId)).toBe(404);
+	});
+
+	it('sends a following viewer no notice of an unsigned-off change, while a moderator gets one', async () => {
+		// The moderator's mail shows delivery ran; then the viewer's outbox may be read.
+		let moderatorMail = '';
+		for (let i = 0; i < 40 && !moderatorMail.includes(UNSIGNED); i++) {
+			await new Promise((r) => setTimeout(r, 250));
+			moderatorMail = await mailsTo('moderator');
+		}
+		expect(moderatorMail).toContain(UNSIGNED);
+		expect(await mailsTo('viewer')).not.toContain(UNSIGNED);
+	});
 
 	it('gives an editor none of a hidden revision’s values through a save based on it', async () => {
 		const editor = people.get('editor')!;
