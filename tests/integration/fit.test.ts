@@ -78,7 +78,7 @@ afterAll(() => closeDb());
 
 describe('a part against one page', () => {
 	it('calls an exact fit after clearance tight, with zero margins', async () => {
-		const a = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'driver' });
+		const a = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'driver' }, viewer);
 		expect(a.check).toBe('seat');
 		if (a.check !== 'seat') return;
 		expect(a.chosen?.result).toEqual({ verdict: 'tight', rotated: false, margins: { l: 0, w: 0, h: 0 }, limiting: 'l' });
@@ -86,42 +86,42 @@ describe('a part against one page', () => {
 	});
 
 	it('fits only turned under the passenger seat', async () => {
-		const a = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'pas' });
+		const a = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'pas' }, viewer);
 		if (a.check !== 'seat') throw new Error('seat check expected');
 		expect(a.chosen?.result).toEqual({ verdict: 'fits', rotated: true, margins: { l: 60, w: 110, h: 40 }, limiting: 'h' });
 	});
 
 	it('is no-fit 1 mm over, naming height', async () => {
-		const a = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'rear' });
+		const a = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'rear' }, viewer);
 		if (a.check !== 'seat') throw new Error('seat check expected');
 		expect(a.chosen?.result).toMatchObject({ verdict: 'no-fit', limiting: 'h', margins: { h: -1 } });
 	});
 
 	it('says not measured where a dimension is missing, and picks the best seat when none is asked for', async () => {
-		const a = await checkVehicleFit({ vehicle: pimm, box: { l: 300, w: 200, h: 50 }, seat: 'passenger' });
+		const a = await checkVehicleFit({ vehicle: pimm, box: { l: 300, w: 200, h: 50 }, seat: 'passenger' }, viewer);
 		if (a.check !== 'seat') throw new Error('seat check expected');
 		expect(a.chosen?.result.verdict).toBe('not-measured');
-		const best = await checkVehicleFit({ vehicle: pimm, box: { l: 300, w: 200, h: 50 } });
+		const best = await checkVehicleFit({ vehicle: pimm, box: { l: 300, w: 200, h: 50 } }, viewer);
 		if (best.check !== 'seat') throw new Error('seat check expected');
 		expect(best.chosen?.spaceId).toBe('d1');
 	});
 
 	it('checks a head unit against the dash and a speaker against its location', async () => {
-		const dash = await checkVehicleFit({ vehicle: tarrow, partId: headUnit.id });
+		const dash = await checkVehicleFit({ vehicle: tarrow, partId: headUnit.id }, viewer);
 		expect(dash).toMatchObject({ check: 'dash', result: { verdict: 'fits', depthMarginMm: 25, needsKit: false } });
-		const spk = await checkVehicleFit({ vehicle: tarrow, partId: speaker.id, location: 'rd' });
+		const spk = await checkVehicleFit({ vehicle: tarrow, partId: speaker.id, location: 'rd' }, viewer);
 		// 118 − 142 = −24 mm on the cut-out
 		expect(spk).toMatchObject({ check: 'speaker', chosen: { locationId: 'rd', result: { verdict: 'no-fit', limiting: 'cutout' } } });
-		const best = await checkVehicleFit({ vehicle: tarrow, partId: speaker.id });
+		const best = await checkVehicleFit({ vehicle: tarrow, partId: speaker.id }, viewer);
 		// 145 − 142 = 3 mm on the cut-out: tight under the 5 mm speaker threshold
 		expect(best).toMatchObject({ check: 'speaker', chosen: { locationId: 'fd', result: { verdict: 'tight', margins: { cutout: 3, depth: 12 } } } });
 	});
 
 	it('refuses a seat the page does not record and a missing part or box', async () => {
-		await expect(checkVehicleFit({ vehicle: pimm, partId: amp.id, seat: 'rear' })).rejects.toMatchObject({ status: 400 });
-		await expect(checkVehicleFit({ vehicle: pimm })).rejects.toMatchObject({ status: 400 });
-		await expect(checkVehicleFit({ vehicle: 'no-such-page', partId: amp.id })).rejects.toMatchObject({ status: 404 });
-		await expect(checkVehicleFit({ vehicle: pimm, partId: 999_999 })).rejects.toMatchObject({ status: 404 });
+		await expect(checkVehicleFit({ vehicle: pimm, partId: amp.id, seat: 'rear' }, viewer)).rejects.toMatchObject({ status: 400 });
+		await expect(checkVehicleFit({ vehicle: pimm }, viewer)).rejects.toMatchObject({ status: 400 });
+		await expect(checkVehicleFit({ vehicle: 'no-such-page', partId: amp.id }, viewer)).rejects.toMatchObject({ status: 404 });
+		await expect(checkVehicleFit({ vehicle: pimm, partId: 999_999 }, viewer)).rejects.toMatchObject({ status: 404 });
 	});
 
 	it('names who entered the figures and in which revision', async () => {
@@ -129,8 +129,8 @@ describe('a part against one page', () => {
 		const content = structuredClone(rev.content);
 		content.seats.spaces[1].heightMm = 105;
 		await saveRevision(vehicle.id, { baseRevisionId: rev.id, content, summary: 'passenger seat re-measured' }, secondWriter);
-		const driver = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'driver' });
-		const passenger = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'passenger' });
+		const driver = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'driver' }, viewer);
+		const passenger = await checkVehicleFit({ vehicle: tarrow, partId: amp.id, seat: 'passenger' }, viewer);
 		expect(driver.evidence).toMatchObject({ measuredBy: 'Writer One', measuredInRevisionId: rev.id, changedBy: 'Writer Two' });
 		expect(passenger.evidence).toMatchObject({ measuredBy: 'Writer Two', changedBy: 'Writer Two' });
 		expect(passenger.evidence!.measuredInRevisionId).toBeGreaterThan(rev.id);

@@ -58,7 +58,7 @@ async function origins(revisionId: number): Promise<Record<string, number>> {
 async function evidence(slug: string) {
 	const vehicle = await requireVehicle(slug);
 	const rev = (await revisionById(vehicle.latestRevisionId!))!;
-	return measurementOrigins(vehicle, placeReaders(rev.content));
+	return measurementOrigins(rev, placeReaders(rev.content));
 }
 
 describe('origins recorded with each revision', () => {
@@ -247,12 +247,12 @@ describe('listing by section', () => {
 		});
 		const vehicleId = (await revisionById(r1))!.vehicleId;
 		const ids = async (section: 'seats' | 'removal' | 'dash' | 'camera') =>
-			(await listRevisions({ vehicleId, section })).items.map((i) => i.id);
+			(await listRevisions(null, { vehicleId, section })).items.map((i) => i.id);
 		expect(await ids('seats')).toEqual([r4, r3, r1]);
 		expect(await ids('removal')).toEqual([r2, r1]);
 		expect(await ids('dash')).toEqual([r4, r1]);
 		expect(await ids('camera')).toEqual([r1]);
-		const listed = await listRevisions({ vehicleId, section: 'seats' });
+		const listed = await listRevisions(null, { vehicleId, section: 'seats' });
 		expect(listed.total).toBe(3);
 		expect(listed.items.every((i) => i.sections.includes('seats'))).toBe(true);
 	});

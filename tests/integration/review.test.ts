@@ -4,7 +4,8 @@ import { makeUser } from '../helpers/users';
 import { AuditLog, Vehicle } from '../../src/lib/server/db/models';
 import { emptyContent, type VehicleContent } from '../../src/lib/domain/content/schema';
 import { createVehicle, listRevisions, revisionById, saveRevision, setRevisionHidden } from '../../src/lib/server/services/revisions';
-import { markReviewed, reviewState, setReviewBeforeShow, visibleRevision } from '../../src/lib/server/services/review';
+import { markReviewed, reviewState, setReviewBeforeShow } from '../../src/lib/server/services/review';
+import { pageRevision } from '../../src/lib/server/services/visibility';
 import { vehicleById } from '../../src/lib/server/services/vehicles';
 import { shopSettings } from '../../src/lib/server/services/settings';
 import type { SessionUser } from '../../src/lib/domain/sessionUser';
@@ -30,7 +31,7 @@ async function edit(key: string, notes: string, author: SessionUser): Promise<nu
 }
 
 async function shown(key: string, user: SessionUser) {
-	const result = await visibleRevision((await vehicleById(pages[key]))!, user);
+	const result = await pageRevision((await vehicleById(pages[key]))!, user);
 	return { id: result.revision?.id ?? null, newerAwaitingReview: result.newerAwaitingReview };
 }
 
@@ -49,17 +50,17 @@ describe('reviewing changes', () => {
 		const byModerator = await edit('a', 'Dash trim pops off with a plastic tool.', moderator);
 		expect(await reviewState(byEditor)).toEqual({ reviewedBy: null, reviewedAt: null });
 		expect((await reviewState(byModerator))?.reviewedBy).toBe(moderator.id);
-		const unreviewed = await listRevisions({ unreviewed: true });
+		const unreviewed = await listRevisions(moderator, { unreviewed: true });
 		expect(unreviewed.items.map((r) => r.id)).toEqual([byEditor]);
 		expect(unreviewed.items[0].reviewedAt).toBeNull();
 	});
 
 	it('lets only moderators mark a revision reviewed, once, and logs it', async () => {
-		const [{ id }] = (await listRevisions({ unreviewed: true })).items;
+		const [{ id }] = (await listRevisions(moderator, { unreviewed: true })).items;
 		await expect(markReviewed(id, editor)).rejects.toMatchObject({ status: 403 });
 		expect(await markReviewed(id, moderator)).toEqual({ alreadyReviewed: false });
 		expect(await markReviewed(id, moderator)).toEqual({ alreadyReviewed: true });
-		expect((await listRevisions({ unreviewed: true })).total).toBe(0);
+		expect((await listRevisions(moderator, { unreviewed: true })).total).toBe(0);
 		expect(await AuditLog.count({ where: { action: 'revision.review', targetId: String(id), actorId: moderator.id } })).toBe(1);
 		await expect(markReviewed(999_999, moderator)).rejects.toMatchObject({ status: 404 });
 	});

@@ -21,7 +21,7 @@ async function edit(fn: (c: VehicleContent) => void, summary: string): Promise<n
 }
 
 const tallyOf = async (id: number) => {
-	const listed = await withTallies((await listRevisions({ vehicleId })).items);
+	const listed = await withTallies((await listRevisions(moderator, { vehicleId })).items);
 	return listed.find((r) => r.id === id)!.tally;
 };
 
@@ -53,10 +53,10 @@ describe('what each listed revision changed', () => {
 	});
 
 	it('shows no count for a hidden revision', async () => {
-		const [newest] = (await listRevisions({ vehicleId })).items;
+		const [newest] = (await listRevisions(moderator, { vehicleId })).items;
 		const older = await Revision.findOne({ where: { vehicleId }, order: [['id', 'ASC']], offset: 1 });
 		await setRevisionHidden(Number(older!.id), true, 'testing the tally', moderator);
-		const listed = await withTallies((await listRevisions({ vehicleId })).items);
+		const listed = await withTallies((await listRevisions(moderator, { vehicleId })).items);
 		expect(listed.find((r) => r.id === Number(older!.id))!.tally).toBeNull();
 		expect(listed.find((r) => r.id === newest.id)!.tally).toEqual({ fields: 1, notes: 0, measurements: 1 });
 	});

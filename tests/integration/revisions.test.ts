@@ -131,7 +131,7 @@ describe('saving revisions', () => {
 describe('moderation', () => {
 	it('restores an old revision as a new one with an automatic summary and an audit entry', async () => {
 		const { vehicle } = await page('tarnell-brisk-2010-2014-hatchback');
-		const history = await listRevisions({ vehicleId: vehicle.id });
+		const history = await listRevisions(viewer, { vehicleId: vehicle.id });
 		const oldest = history.items[history.items.length - 1];
 		await expect(restoreRevision(vehicle.id, oldest.id, writer)).rejects.toMatchObject({ status: 403 });
 		const restored = await restoreRevision(vehicle.id, oldest.id, moderator);
@@ -147,7 +147,7 @@ describe('moderation', () => {
 		await expect(setRevisionHidden(latest.id, true, 'test', moderator)).rejects.toMatchObject({ status: 409 });
 		const target = latest.parentId!;
 		await setRevisionHidden(target, true, 'customer phone number in notes', moderator);
-		const history = await listRevisions({ vehicleId: vehicle.id });
+		const history = await listRevisions(viewer, { vehicleId: vehicle.id });
 		expect(history.items.find((i) => i.id === target)).toMatchObject({ hidden: true, summary: '' });
 		await expect(compareRevisions(vehicle.id, target, latest.id, viewer, 'metric')).rejects.toMatchObject({ status: 403 });
 		expect(await Revision.findByPk(target)).not.toBeNull();

@@ -1,6 +1,6 @@
 /** In-process notices after a revision is committed: the search index and watchers listen here. */
 export type RevisionWritten = {
-	kind: 'save' | 'restore' | 'hide' | 'unhide' | 'create';
+	kind: 'save' | 'restore' | 'hide' | 'unhide' | 'create' | 'review';
 	vehicleId: number;
 	revisionId: number;
 	authorId: number;

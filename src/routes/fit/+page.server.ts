@@ -11,7 +11,7 @@ import { BODY_STYLE_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 const ONE_LIST_LIMIT = 200;
 
 export const load: PageServerLoad = async ({ locals, url }) => {
-	requireRole(locals, 'viewer');
+	const user = requireRole(locals, 'viewer');
 	const q = url.searchParams;
 	const slug = (q.get('vehicle') ?? '').trim();
 
@@ -20,7 +20,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	if (slug) {
 		try {
 			const v = await requireVehicle(slug);
-			const [facts, trust] = await Promise.all([vehicleFitFacts(v), trustSummary(v, locals.units)]);
+			const [facts, trust] = await Promise.all([vehicleFitFacts(v, user), trustSummary(v, locals.units)]);
 			if (facts) {
 				vehicle = {
 					slug: v.slug,
@@ -38,11 +38,11 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		}
 	}
 
-	const makes = (await catalogue()).map((m) => ({ name: m.name, slug: m.slug }));
+	const makes = (await catalogue(user)).map((m) => ({ name: m.name, slug: m.slug }));
 	const makeSlug = q.get('make') || (vehicle ? (makes.find((m) => m.name === vehicle.make)?.slug ?? '') : '');
-	const all = await listVehicles({ pageSize: ONE_LIST_LIMIT });
+	const all = await listVehicles(user, { pageSize: ONE_LIST_LIMIT });
 	const oneList = all.total <= ONE_LIST_LIMIT;
-	const list = oneList ? all.items : makeSlug ? (await listVehicles({ make: makeSlug, pageSize: ONE_LIST_LIMIT })).items : [];
+	const list = oneList ? all.items : makeSlug ? (await listVehicles(user, { make: makeSlug, pageSize: ONE_LIST_LIMIT })).items : [];
 
 	return {
 		makes,

@@ -14,7 +14,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	const filter = changesFilter(url);
 	if (!filter.success) error(400, filter.error.issues[0].message);
 	const [revisions, users] = await Promise.all([
-		listRevisions({ authorId: filter.data.user, section: filter.data.section, unreviewed: filter.data.awaiting === '1', page: filter.data.page }),
+		listRevisions(user, { authorId: filter.data.user, section: filter.data.section, unreviewed: filter.data.awaiting === '1', page: filter.data.page }),
 		listUsers()
 	]);
 	return {

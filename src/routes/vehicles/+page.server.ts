@@ -17,10 +17,10 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	const raw = Object.fromEntries([...url.searchParams].filter(([, v]) => v.trim() !== ''));
 	const filter = filterSchema.parse(raw);
 	const yearTyped = url.searchParams.get('year')?.trim() ?? '';
-	const makes = (await catalogue()).filter((m) => m.models.length > 0);
+	const makes = (await catalogue(user)).filter((m) => m.models.length > 0);
 	const make = makes.find((m) => m.slug === filter.make) ?? null;
 	const model = make?.models.find((m) => m.slug === filter.model) ?? null;
-	const result = await listVehicles({ make: make?.slug, model: model?.slug, year: filter.year, page: filter.page });
+	const result = await listVehicles(user, { make: make?.slug, model: model?.slug, year: filter.year, page: filter.page });
 	return {
 		makes,
 		make: make ? { name: make.name, slug: make.slug, models: make.models } : null,

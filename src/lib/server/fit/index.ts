@@ -1,9 +1,10 @@
 // The seat-space index each app instance keeps in memory for the reverse fit query: every page's
-// latest seat spaces (in SeatSpaceIndex's typed arrays), dash and speaker locations. MariaDB is the
+// shown seat spaces (the revision every signed-in person may read) (in SeatSpaceIndex's typed arrays), dash and speaker locations. MariaDB is the
 // truth; this copy is loaded once, patched on every revision this process saves, and caught up with
 // other instances' saves by a cheap look for changed pages.
 import { SeatSpaceIndex, type SeatSpaceRow } from '../../domain/fit';
 import { onRevisionWritten } from '../events';
+import { readingRules, rulesKey } from '../services/readingRules';
 import { factsAfter, factsOf, pagesTouchedSince, type SeatFact, type VehicleFacts } from './source';
 
 export type { SeatFact, VehicleFacts } from './source';
@@ -24,14 +25,24 @@ let loading: Promise<void> | null = null;
 let loaded = false;
 let lastPoll = 0;
 let unsubscribe: (() => void) | null = null;
+/** The reading rules the index was loaded under; a change reloads it. */
+let loadedRules = '';
 
 const POLL_MS = 15_000;
 const BATCH = 1000;
 
-/** Keeps the newer of two readings of a page: revision ids only grow, so a late, stale read never wins. */
-function remember(f: VehicleFacts): void {
+/**
+ * Keeps the newer of two readings of a page: revision ids only grow, so a late, stale read never wins —
+ * except a re-read after a hide, which may move the shown revision back (`replace`).
+ */
+function remember(f: VehicleFacts, replace = false): void {
 	const had = facts.get(f.vehicleId);
-	if (had && had.revisionId > f.revisionId) return;
+	if (had && had.revisionId > f.revisionId && !replace) return;
+	if (had && had.revisionId > f.revisionId) {
+		facts.set(f.vehicleId, f);
+		built = null;
+		return;
+	}
 	facts.set(f.vehicleId, f);
 	if (!built) return;
 	const range = built.ranges.get(f.vehicleId);
@@ -57,8 +68,10 @@ function remember(f: VehicleFacts): void {
 
 async function loadAll(): Promise<void> {
 	let after = 0;
+	const rules = await readingRules();
+	loadedRules = rulesKey(rules);
 	for (;;) {
-		const batch = await factsAfter(after, BATCH);
+		const batch = await factsAfter(after, BATCH, rules);
 		for (const f of batch) remember(f);
 		if (batch.length < BATCH) break;
 		after = batch[batch.length - 1].vehicleId;
@@ -67,16 +80,18 @@ async function loadAll(): Promise<void> {
 	loaded = true;
 }
 
-async function refreshVehicle(vehicleId: number): Promise<void> {
-	const f = await factsOf(vehicleId);
-	if (f) remember(f);
+async function refreshVehicle(vehicleId: number, replace = false): Promise<void> {
+	const f = await factsOf(vehicleId, await readingRules());
+	if (f) return remember(f, replace);
+	// No revision everyone may read any more: the page leaves the index.
+	if (facts.delete(vehicleId)) built = null;
 }
 
 function listen(): void {
 	if (unsubscribe) return;
 	unsubscribe = onRevisionWritten(async (event) => {
 		// Before the first load there is nothing to patch: the load reads the latest anyway.
-		if (loaded || loading) await refreshVehicle(event.vehicleId);
+		if (loaded || loading) await refreshVehicle(event.vehicleId, event.kind === 'hide' || event.kind === 'unhide');
 	});
 }
 
@@ -93,10 +108,8 @@ export function warmSeatSpaceIndex(): Promise<void> {
 async function pollForChanges(): Promise<void> {
 	const since = new Date(lastPoll - POLL_MS);
 	lastPoll = Date.now();
-	for (const v of await pagesTouchedSince(since)) {
-		const known = facts.get(v.vehicleId);
-		if (v.revisionId !== null && (!known || known.revisionId < v.revisionId)) await refreshVehicle(v.vehicleId);
-	}
+	// A touched page may have a new revision, or a hide or sign-off that changes which one is shown.
+	for (const v of await pagesTouchedSince(since)) await refreshVehicle(v.vehicleId, true);
 }
 
 function build(): Built {
@@ -119,6 +132,10 @@ function build(): Built {
 /** The index as of now: loaded once, patched on every saved revision, caught up with other instances. */
 export async function seatSpaceIndex(): Promise<Built> {
 	await warmSeatSpaceIndex();
+	if (loaded && loadedRules !== rulesKey(await readingRules())) {
+		resetSeatSpaceIndex();
+		await warmSeatSpaceIndex();
+	}
 	if (Date.now() - lastPoll > POLL_MS) await pollForChanges();
 	built ??= build();
 	return built;

@@ -1,9 +1,12 @@
-// What the seat-space index reads from MariaDB: each page's latest seat spaces, dash and speaker locations.
+// What the seat-space index reads from MariaDB: the seat spaces, dash and speaker locations of the revision
+// of each page that every signed-in person may read (readingRules.ts).
 import { Op, QueryTypes } from 'sequelize';
 import { db } from '../db';
 import { Vehicle } from '../db/models';
 import { SEATS, type DashSection, type Seat, type SeatSpace, type SpeakerLocation } from '../../domain/content/schema';
 import { vehicleTitle } from '../../domain/slug';
+import type { ReadingRules } from '../../domain/visibility';
+import { INDEX_READER, pageRevisionSql } from '../services/readingRules';
 
 /** One page's places as the reverse fit query needs them. */
 export type VehicleFacts = {
@@ -31,7 +34,7 @@ type FactRow = {
 	speakers: unknown;
 };
 
-const FACTS_SQL = `SELECT v.id AS vehicleId, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, mk.name AS make, md.name AS model,
+const factsSql = (rules: ReadingRules) => `SELECT v.id AS vehicleId, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, mk.name AS make, md.name AS model,
 	r.id AS revisionId,
 	JSON_EXTRACT(r.content, '$.seats.spaces') AS seats,
 	JSON_EXTRACT(r.content, '$.dash') AS dash,
@@ -39,7 +42,7 @@ const FACTS_SQL = `SELECT v.id AS vehicleId, v.slug, v.year_from AS yearFrom, v.
 FROM vehicles v
 JOIN makes mk ON mk.id = v.make_id
 JOIN models md ON md.id = v.model_id
-JOIN revisions r ON r.id = v.latest_revision_id`;
+JOIN revisions r ON r.id = ${pageRevisionSql('v', INDEX_READER, rules)}`;
 
 const json = <T>(v: unknown, fallback: T): T => {
 	if (v === null || v === undefined) return fallback;
@@ -75,20 +78,20 @@ function toFacts(row: FactRow): VehicleFacts {
 }
 
 /** Pages after `afterId` in id order, a batch at a time. */
-export async function factsAfter(afterId: number, batch: number): Promise<VehicleFacts[]> {
-	const rows = await db().query<FactRow>(`${FACTS_SQL} WHERE v.id > :after ORDER BY v.id LIMIT :batch`, {
+export async function factsAfter(afterId: number, batch: number, rules: ReadingRules): Promise<VehicleFacts[]> {
+	const rows = await db().query<FactRow>(`${factsSql(rules)} WHERE v.id > :after ORDER BY v.id LIMIT :batch`, {
 		replacements: { after: afterId, batch },
 		type: QueryTypes.SELECT
 	});
 	return rows.map(toFacts);
 }
 
-export async function factsOf(vehicleId: number): Promise<VehicleFacts | null> {
-	const rows = await db().query<FactRow>(`${FACTS_SQL} WHERE v.id = :id`, { replacements: { id: vehicleId }, type: QueryTypes.SELECT });
+export async function factsOf(vehicleId: number, rules: ReadingRules): Promise<VehicleFacts | null> {
+	const rows = await db().query<FactRow>(`${factsSql(rules)} WHERE v.id = :id`, { replacements: { id: vehicleId }, type: QueryTypes.SELECT });
 	return rows[0] ? toFacts(rows[0]) : null;
 }
 
-/** Pages touched since `since`, with their latest revision id: what another instance may have saved. */
+/** Pages touched since `since`: what another instance may have saved, hidden or signed off. */
 export async function pagesTouchedSince(since: Date): Promise<{ vehicleId: number; revisionId: number | null }[]> {
 	const changed = await Vehicle.findAll({ where: { updatedAt: { [Op.gte]: since } }, attributes: ['id', 'latestRevisionId'] });
 	return changed.map((v) => ({ vehicleId: v.id, revisionId: v.latestRevisionId === null ? null : Number(v.latestRevisionId) }));

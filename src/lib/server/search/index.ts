@@ -10,12 +10,15 @@ import { config } from '../config';
 import { VehicleSearchEngine } from './engine';
 import { withNoteSnippet } from './hits';
 import type { SearchOutcome, VinCandidate } from './types';
-import { latestRevisions, latestRevisionsOf, newestRevisionId, pagesChangedAfter, revisionContents } from './source';
+import { newestRevisionId, pagesChangedAfter, pagesTouchedSince, revisionContents, shownRevisions, shownRevisionsOf } from './source';
+import { readingRules, rulesKey } from '../services/readingRules';
 
 /** Revision ids are handed out before commit, so a slower transaction can land below the newest id seen; look back this far. */
 const POLL_OVERLAP = 200;
 const SNIPPET_TEXT_CACHE = 2_000;
 const DEFAULT_POLL_MS = 5_000;
+/** A page row touched in a transaction that commits late carries an earlier time; look back this far. */
+const POLL_TOUCH_OVERLAP_MS = 30_000;
 
 export type IndexState = 'empty' | 'building' | 'ready' | 'failed';
 
@@ -28,6 +31,9 @@ export class LiveSearchIndex {
 	private unsubscribe: (() => void) | null = null;
 	private polling: Promise<number> | null = null;
 	private sectionText = new Map<number, SearchSection[]>();
+	/** The reading rules the index was built under, and when pages were last looked at for hides and sign-offs. */
+	private rules = '';
+	private touchedSince = new Date(0);
 	state: IndexState = 'empty';
 	lastError: string | null = null;
 
@@ -87,20 +93,38 @@ export class LiveSearchIndex {
 		const engine = new VehicleSearchEngine();
 		// Read the newest id first: anything written while the pages are read is caught up below.
 		const mark = await newestRevisionId();
-		for await (const batch of latestRevisions()) engine.putMany(batch);
+		const touched = new Date(Date.now() - POLL_TOUCH_OVERLAP_MS);
+		const rules = await readingRules();
+		for await (const batch of shownRevisions(rules)) engine.putMany(batch);
 		engine.warm();
 		this.watermark = mark;
+		this.touchedSince = touched;
+		this.rules = rulesKey(rules);
 		await this.catchUpInto(engine);
 		return engine;
 	}
 
-	/** Re-reads pages from the database and puts their latest revision in the index. */
+	/** Re-reads pages from the database and puts the revision everyone may read in the index (none: the page leaves it). */
 	async refresh(vehicleIds: number[]): Promise<void> {
-		const inputs = await latestRevisionsOf(vehicleIds);
-		const engine = this.engine;
-		for (const input of inputs) engine.put(input);
+		await this.putShown(this.engine, vehicleIds);
+	}
+
+	/** Puts each page's shown revision; returns how many pages changed in the index. */
+	private async putShown(engine: VehicleSearchEngine, vehicleIds: number[]): Promise<number> {
+		const inputs = await shownRevisionsOf(vehicleIds, await readingRules());
+		let changed = 0;
+		for (const input of inputs) {
+			// A hide can move the shown revision back to an older one.
+			if ((engine.revisionOf(input.id) ?? 0) > input.revisionId) engine.remove(input.id);
+			if (engine.put(input)) changed++;
+		}
 		const found = new Set(inputs.map((i) => i.id));
-		for (const id of vehicleIds) if (!found.has(id)) engine.remove(id);
+		for (const id of vehicleIds) {
+			if (found.has(id) || engine.revisionOf(id) === null) continue;
+			engine.remove(id);
+			changed++;
+		}
+		return changed;
 	}
 
 	/** One polling step: indexes pages whose newest revision is newer than the one held. Returns how many changed. */
@@ -115,15 +139,22 @@ export class LiveSearchIndex {
 	}
 
 	private async catchUpInto(engine: VehicleSearchEngine): Promise<number> {
-		const changed = await pagesChangedAfter(Math.max(0, this.watermark - POLL_OVERLAP));
-		const stale = changed.filter((c) => (engine.revisionOf(c.vehicleId) ?? 0) < c.revisionId).map((c) => c.vehicleId);
-		if (stale.length) {
-			const inputs = await latestRevisionsOf(stale);
-			for (const input of inputs) engine.put(input);
+		// The shop switched sign-off on or off (here or on another server): every page may read differently.
+		if (engine === this.engine && this.rules && this.rules !== rulesKey(await readingRules())) {
+			this.built = null;
+			await this.ready();
+			return engine.size;
 		}
+		const touchedAt = new Date(Date.now() - POLL_TOUCH_OVERLAP_MS);
+		const changed = await pagesChangedAfter(Math.max(0, this.watermark - POLL_OVERLAP));
+		const touched = await pagesTouchedSince(this.touchedSince);
+		this.touchedSince = touchedAt;
+		const stale = new Set(changed.filter((c) => (engine.revisionOf(c.vehicleId) ?? 0) < c.revisionId).map((c) => c.vehicleId));
+		for (const id of touched) stale.add(id);
+		const updated = stale.size ? await this.putShown(engine, [...stale]) : 0;
 		for (const c of changed) this.watermark = Math.max(this.watermark, c.revisionId);
 		this.compactIfNeeded(engine);
-		return stale.length;
+		return updated;
 	}
 
 	/** Replaced pages leave retired slots behind; past a fifth of the index a fresh build replaces it. */

@@ -1,13 +1,16 @@
-// What the search index reads from MariaDB: each page's latest revision, and what changed since a revision id.
+// What the search index reads from MariaDB: the revision of each page that every signed-in person may read
+// (readingRules.ts), and what changed since a revision id or a moment.
 import { QueryTypes } from 'sequelize';
 import { db } from '../db';
 import { CONTENT_SCHEMA_VERSION, type VehicleContent } from '../../domain/content/schema';
 import type { IndexInput } from './types';
+import type { ReadingRules } from '../../domain/visibility';
+import { INDEX_READER, pageRevisionSql } from '../services/readingRules';
 
 type LatestRow = { id: number; slug: string; revisionId: number | string; content: string };
 
-const LATEST_SQL = `SELECT v.id, v.slug, v.latest_revision_id AS revisionId, r.content
-	FROM vehicles v JOIN revisions r ON r.id = v.latest_revision_id`;
+const shownSql = (rules: ReadingRules) => `SELECT v.id, v.slug, r.id AS revisionId, r.content
+	FROM vehicles v JOIN revisions r ON r.id = ${pageRevisionSql('v', INDEX_READER, rules)}`;
 
 function toInput(row: LatestRow): IndexInput | null {
 	// Content was validated when it was saved; only its version is checked here.
@@ -16,11 +19,11 @@ function toInput(row: LatestRow): IndexInput | null {
 	return { id: Number(row.id), slug: row.slug, revisionId: Number(row.revisionId), content };
 }
 
-/** Every page's latest revision, a batch at a time in id order, so a large wiki never sits in memory twice. */
-export async function* latestRevisions(batchSize = 500): AsyncGenerator<IndexInput[]> {
+/** Every page's shown revision, a batch at a time in id order, so a large wiki never sits in memory twice. */
+export async function* shownRevisions(rules: ReadingRules, batchSize = 500): AsyncGenerator<IndexInput[]> {
 	let after = 0;
 	for (;;) {
-		const rows = await db().query<LatestRow>(`${LATEST_SQL} WHERE v.id > :after ORDER BY v.id LIMIT :batch`, {
+		const rows = await db().query<LatestRow>(`${shownSql(rules)} WHERE v.id > :after ORDER BY v.id LIMIT :batch`, {
 			replacements: { after, batch: batchSize },
 			type: QueryTypes.SELECT
 		});
@@ -31,9 +34,9 @@ export async function* latestRevisions(batchSize = 500): AsyncGenerator<IndexInp
 	}
 }
 
-export async function latestRevisionsOf(vehicleIds: number[]): Promise<IndexInput[]> {
+export async function shownRevisionsOf(vehicleIds: number[], rules: ReadingRules): Promise<IndexInput[]> {
 	if (!vehicleIds.length) return [];
-	const rows = await db().query<LatestRow>(`${LATEST_SQL} WHERE v.id IN (:ids)`, {
+	const rows = await db().query<LatestRow>(`${shownSql(rules)} WHERE v.id IN (:ids)`, {
 		replacements: { ids: vehicleIds },
 		type: QueryTypes.SELECT
 	});
@@ -53,6 +56,12 @@ export async function pagesChangedAfter(afterId: number): Promise<{ vehicleId: n
 		{ replacements: { afterId }, type: QueryTypes.SELECT }
 	);
 	return rows.map((r) => ({ vehicleId: Number(r.vehicleId), revisionId: Number(r.revisionId) }));
+}
+
+/** Pages whose row was touched since `since` (a hide or a sign-off changes what is shown without a new revision). */
+export async function pagesTouchedSince(since: Date): Promise<number[]> {
+	const rows = await db().query<{ id: number }>('SELECT id FROM vehicles WHERE updated_at >= :since', { replacements: { since }, type: QueryTypes.SELECT });
+	return rows.map((r) => Number(r.id));
 }
 
 /** Page text for snippets: the content of a few revisions by id. */

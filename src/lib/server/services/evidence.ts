@@ -2,7 +2,7 @@ import { QueryTypes } from 'sequelize';
 import { db } from '../db';
 import type { VehicleContent } from '../../domain/content/schema';
 import { placeFigures } from '../../domain/origins';
-import { currentRevision, type VehicleSummary } from './vehicles';
+import type { StoredRevision } from './revisions';
 
 // Who measured the figures a page shows now, and in which revision.
 
@@ -52,13 +52,11 @@ JOIN revisions m ON m.id = t.credit
 LEFT JOIN users u ON u.id = m.author_id`;
 
 /** Who entered the figures now shown for each place, by evidence key (the keys of `places`). */
-export async function measurementOrigins(vehicle: VehicleSummary, places: Readonly<Record<string, unknown>>): Promise<Record<string, Evidence>> {
-	const current = await currentRevision(vehicle);
-	if (!current) return {};
+export async function measurementOrigins(current: StoredRevision, places: Readonly<Record<string, unknown>>): Promise<Record<string, Evidence>> {
 	const keys = Object.keys(places);
 	if (keys.length === 0) return {};
 	const rows = await db().query<{ part: string; id: number | string; createdAt: Date; authorName: string | null }>(ORIGINS_SQL, {
-		replacements: { vehicleId: vehicle.id, current: current.id, parts: keys },
+		replacements: { vehicleId: current.vehicleId, current: current.id, parts: keys },
 		type: QueryTypes.SELECT
 	});
 	const found = new Map(rows.map((r) => [r.part, r]));

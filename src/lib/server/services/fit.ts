@@ -5,7 +5,9 @@ import { boxSchema, reverseOptionsSchema, vehicleFitSchema, type ReverseOptions,
 import { SEATS } from '../../domain/content/schema';
 import { partBox, type Part } from '../../domain/part';
 import { measurementOrigins, placeReaders, type Evidence } from './evidence';
-import { currentRevision, requireVehicle, type VehicleSummary } from './vehicles';
+import { requireVehicle, type VehicleSummary } from './vehicles';
+import { pageRevision } from './visibility';
+import type { Reader } from '../../domain/visibility';
 import { requirePart } from './parts';
 import { seatSpaceIndex } from '../fit';
 import { ServiceError } from '../errors';
@@ -24,22 +26,22 @@ export type VehicleFitFacts = {
 };
 
 /** Null when the page has no revision yet. */
-export async function vehicleFitFacts(vehicle: VehicleSummary): Promise<VehicleFitFacts | null> {
-	const rev = await currentRevision(vehicle);
+export async function vehicleFitFacts(vehicle: VehicleSummary, reader: Reader): Promise<VehicleFitFacts | null> {
+	const { revision: rev } = await pageRevision(vehicle, reader);
 	if (!rev) return null;
 	const c = rev.content;
 	return {
 		vehicle,
 		revisionId: rev.id,
 		places: { seats: c.seats.spaces, dash: { opening: c.dash.opening, depthMm: c.dash.depthMm, kit: c.dash.kit }, speakers: c.speakers.locations },
-		evidence: await measurementOrigins(vehicle, placeReaders(c))
+		evidence: await measurementOrigins(rev, placeReaders(c))
 	};
 }
 
 export type VehicleFitAnswer = FitAnswer<Evidence> & { vehicle: { slug: string; title: string }; part: Part | null };
 
 /** A part (or a typed box) against one vehicle page's current measurements. */
-export async function checkVehicleFit(request: VehicleFitRequest): Promise<VehicleFitAnswer> {
+export async function checkVehicleFit(request: VehicleFitRequest, reader: Reader): Promise<VehicleFitAnswer> {
 	const parsed = vehicleFitSchema.safeParse(request);
 	if (!parsed.success) {
 		const issue = parsed.error.issues[0];
@@ -47,8 +49,8 @@ export async function checkVehicleFit(request: VehicleFitRequest): Promise<Vehic
 	}
 	const input = parsed.data;
 	const vehicle = await requireVehicle(input.vehicle);
-	const facts = await vehicleFitFacts(vehicle);
-	if (!facts) throw new ServiceError('This page has no revision yet.', 404);
+	const facts = await vehicleFitFacts(vehicle, reader);
+	if (!facts) throw new ServiceError('No vehicle page at this address.', 404);
 	const part = input.partId !== undefined ? await requirePart(input.partId) : null;
 	const where = part?.kind === 'speaker' ? input.location : input.seat;
 	const answer = fitAnswer(facts.places, { part, box: input.box, clearanceMm: input.clearanceMm, where }, facts.evidence)!;

@@ -1,4 +1,4 @@
-import { Op, QueryTypes } from 'sequelize';
+import { Op } from 'sequelize';
 import { z } from 'zod';
 import { db } from '../db';
 import { Photo } from '../db/models';
@@ -19,11 +19,10 @@ import {
 	type PhotoLimits,
 	type Rendition
 } from '../storage/renditions';
+import { photoOpenTo } from './visibility';
 import { canEditVehicle, revisionById, saveRevision, type StoredRevision } from './revisions';
 import { vehicleById, type VehicleSummary } from './vehicles';
 import { EditConflictError, ServiceError, fieldMessages } from '../errors';
-import { onRevisionWritten } from '../events';
-import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 import { config } from '../config';
 
 export type PhotoRecord = {
@@ -300,25 +299,12 @@ export async function photosBySection(content: VehicleContent): Promise<SectionP
 	}));
 }
 
-// Whether a revision that is not hidden shows the photo; a hide, an unhide or any new revision clears it.
-const shownOnAPage = lookupCache<string, boolean>(SHARED_STATE_TTL_MS);
-onRevisionWritten(() => shownOnAPage.clear());
-
 /**
- * Who may see a photo: moderators always (they review hidden revisions); anyone else while a revision
- * that is not hidden shows it, or when they uploaded it themselves. A photo a moderator hid away is
- * answered as missing, so nobody can tell it exists.
+ * Who may see a photo: whoever may read a revision that shows it (services/visibility.ts), or the person who
+ * uploaded it. Anything else is answered as missing, so nobody can tell it exists.
  */
 export async function photoVisibleTo(photoId: string, user: Pick<SessionUser, 'id' | 'role'>): Promise<boolean> {
-	if (roleAtLeast(user.role, 'moderator')) return true;
-	const shown = await shownOnAPage.get(photoId, async () => {
-		const rows = await db().query(
-			'SELECT 1 FROM revision_photos rp JOIN revisions r ON r.id = rp.revision_id WHERE rp.photo_id = ? AND r.hidden = 0 LIMIT 1',
-			{ replacements: [photoId], type: QueryTypes.SELECT }
-		);
-		return rows.length > 0;
-	});
-	if (shown) return true;
+	if (await photoOpenTo(photoId, user)) return true;
 	return (await Photo.count({ where: { id: photoId, uploaderId: user.id } })) > 0;
 }
 

@@ -1,53 +1,30 @@
-import { Op } from 'sequelize';
 import { db } from '../db';
 import { Revision, Setting } from '../db/models';
 import { roleAtLeast } from '../../domain/roles';
 import type { SessionUser } from '../../domain/sessionUser';
-import { revisionById, type StoredRevision } from './revisions';
-import type { VehicleSummary } from './vehicles';
+import { forgetRevisionFlags, touchVehicle } from './revisions';
+import { announceRevision } from '../events';
 import { forgetShopSettings, shopSettings } from './settings';
 import { recordAudit } from './audit';
 import { ServiceError } from '../errors';
 
-export type VisibleRevision = { revision: StoredRevision | null; newerAwaitingReview: boolean };
-
-/**
- * The revision a person is shown. With "review before it shows" on, viewers get the newest revision a moderator
- * has reviewed (or one saved before the setting was switched on); editors and up always get the newest.
- */
-export async function visibleRevision(
-	vehicle: Pick<VehicleSummary, 'id' | 'latestRevisionId'>,
-	user: Pick<SessionUser, 'role'> | null
-): Promise<VisibleRevision> {
-	const latestId = vehicle.latestRevisionId;
-	if (!latestId) return { revision: null, newerAwaitingReview: false };
-	const settings = await shopSettings();
-	if (!settings.reviewBeforeShow || roleAtLeast(user?.role, 'editor')) {
-		return { revision: await revisionById(latestId), newerAwaitingReview: false };
-	}
-	const shown: Record<string | symbol, unknown>[] = [{ reviewedAt: { [Op.ne]: null } }];
-	if (settings.reviewBeforeShowSince) shown.push({ createdAt: { [Op.lt]: new Date(settings.reviewBeforeShowSince) } });
-	const row = await Revision.findOne({
-		where: { vehicleId: vehicle.id, hidden: false, id: { [Op.lte]: latestId }, [Op.or]: shown },
-		attributes: ['id'],
-		order: [['id', 'DESC']]
-	});
-	if (!row) return { revision: null, newerAwaitingReview: true };
-	const id = Number(row.id);
-	return { revision: await revisionById(id), newerAwaitingReview: id !== latestId };
-}
-
 /** Marks one revision as looked at by a moderator; marking it again changes nothing. */
 export async function markReviewed(revisionId: number, actor: SessionUser, now = new Date()): Promise<{ alreadyReviewed: boolean }> {
 	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Signing off changes needs the moderator role.', 403);
-	return db().transaction(async (transaction) => {
+	const outcome: { alreadyReviewed: boolean; vehicleId?: number } = await db().transaction(async (transaction) => {
 		const row = await Revision.findByPk(revisionId, { attributes: ['id', 'vehicleId', 'reviewedAt'], transaction, lock: transaction.LOCK.UPDATE });
 		if (!row) throw new ServiceError('That revision does not exist.', 404);
 		if (row.reviewedAt) return { alreadyReviewed: true };
 		await Revision.update({ reviewedBy: actor.id, reviewedAt: now }, { where: { id: revisionId }, transaction });
+		await touchVehicle(row.vehicleId, transaction);
 		await recordAudit({ actorId: actor.id, action: 'revision.review', targetType: 'revision', targetId: revisionId, details: { vehicleId: row.vehicleId } }, transaction);
-		return { alreadyReviewed: false };
+		return { alreadyReviewed: false, vehicleId: row.vehicleId };
 	});
+	if (outcome.alreadyReviewed) return { alreadyReviewed: true };
+	forgetRevisionFlags(revisionId);
+	// Viewers may now read it: indexes and caches follow, and watchers who could not read it get their notice.
+	await announceRevision({ kind: 'review', vehicleId: outcome.vehicleId!, revisionId, authorId: actor.id });
+	return { alreadyReviewed: false };
 }
 
 export async function reviewState(revisionId: number): Promise<{ reviewedBy: number | null; reviewedAt: Date | null } | null> {

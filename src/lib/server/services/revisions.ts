@@ -15,7 +15,9 @@ import { recordAudit } from './audit';
 import { announceRevision, announceVehicleChange } from '../events';
 import { EditConflictError, NoChangeError, ServiceError } from '../errors';
 import { refuseBlockedAuthor } from './blocks';
-import { SHARED_STATE_TTL_MS } from '../cache';
+import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
+import { mayReadRevision, readsHidden, type Reader } from '../../domain/visibility';
+import { readingRules, signedOffSql } from './readingRules';
 
 export type StoredRevision = {
 	id: number;
@@ -32,28 +34,41 @@ export type StoredRevision = {
 	sections: SectionKey[];
 	restoresRevisionId: number | null;
 	hidden: boolean;
+	reviewedAt: Date | null;
 	createdAt: Date;
 };
 
-// Revisions never change once written, so parsed copies are kept in memory. The hidden flag is the exception:
-// it is read again once a copy is older than SHARED_STATE_TTL_MS, so another app server's hide shows here within that.
-const cache = new Map<number, { rev: StoredRevision; checkedAt: number }>();
+// A revision's content never changes once written, so parsed copies are kept in memory. Its flags (hidden,
+// signed off) do change, possibly on another app server: they are kept only for the shared-state time limit,
+// and this process's own hides and sign-offs clear them at once.
+type RevisionContent = Omit<StoredRevision, 'hidden' | 'reviewedAt'>;
+type Flags = Pick<StoredRevision, 'hidden' | 'reviewedAt'>;
+const contents = new Map<number, RevisionContent>();
 const CACHE_LIMIT = 4_000;
+const flagCache = lookupCache<number, Flags | null>(SHARED_STATE_TTL_MS, CACHE_LIMIT);
 
 function remember(rev: StoredRevision): StoredRevision {
-	if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
-	cache.set(rev.id, { rev, checkedAt: Date.now() });
+	rememberContent(rev);
+	flagCache.delete(rev.id);
+	void flagCache.get(rev.id, async () => ({ hidden: rev.hidden, reviewedAt: rev.reviewedAt }));
 	return rev;
 }
 
-async function withCurrentHiddenFlag(id: number, cached: { rev: StoredRevision; checkedAt: number }): Promise<StoredRevision> {
-	if (Date.now() - cached.checkedAt <= SHARED_STATE_TTL_MS) return cached.rev;
-	const row = await Revision.findByPk(id, { attributes: ['hidden'] });
-	if (!row) {
-		cache.delete(id);
-		return cached.rev;
-	}
-	return remember(!!row.hidden === cached.rev.hidden ? cached.rev : { ...cached.rev, hidden: !!row.hidden });
+/** After this process hid, showed or signed off a revision. */
+export function forgetRevisionFlags(id: number): void {
+	flagCache.delete(id);
+}
+
+/** Forgets every kept flag, as a fresh app server would start. */
+export function forgetAllRevisionFlags(): void {
+	flagCache.clear();
+}
+
+async function revisionFlags(id: number): Promise<Flags | null> {
+	return flagCache.get(id, async () => {
+		const row = await Revision.findByPk(id, { attributes: ['hidden', 'reviewedAt'] });
+		return row ? { hidden: !!row.hidden, reviewedAt: row.reviewedAt ?? null } : null;
+	});
 }
 
 function toStored(row: Revision & { author?: User | null }, content: VehicleContent, rendered: RenderedNotes): StoredRevision {
@@ -72,13 +87,17 @@ function toStored(row: Revision & { author?: User | null }, content: VehicleCont
 		sections: (row.sections ? row.sections.split(',') : []) as SectionKey[],
 		restoresRevisionId: row.restoresRevisionId === null ? null : Number(row.restoresRevisionId),
 		hidden: !!row.hidden,
+		reviewedAt: row.reviewedAt ?? null,
 		createdAt: row.createdAt
 	};
 }
 
 export async function revisionById(id: number, transaction?: Transaction): Promise<StoredRevision | null> {
-	const hit = cache.get(id);
-	if (hit && !transaction) return withCurrentHiddenFlag(id, hit);
+	const hit = contents.get(id);
+	if (hit && !transaction) {
+		const flags = await revisionFlags(id);
+		return flags ? { ...hit, ...flags } : null;
+	}
 	const row = await Revision.findByPk(id, {
 		include: [
 			{ model: User, as: 'author', attributes: ['name'] },
@@ -91,7 +110,17 @@ export async function revisionById(id: number, transaction?: Transaction): Promi
 	const kept = (row as Revision & { renderedNotes?: RenderedNotesRow | null }).renderedNotes;
 	const content = JSON.parse(row.content) as VehicleContent;
 	const rendered = kept ? (JSON.parse(kept.notes) as RenderedNotes) : await storeRenderedNotes(row.sha256, content, transaction);
-	return remember(toStored(row, content, rendered));
+	const stored = toStored(row, content, rendered);
+	// Read inside a transaction, the flags may not be committed yet: keep only the content.
+	if (!transaction) return remember(stored);
+	rememberContent(stored);
+	return stored;
+}
+
+function rememberContent(rev: StoredRevision): void {
+	const { hidden: _hidden, reviewedAt: _reviewedAt, ...content } = rev;
+	if (contents.size >= CACHE_LIMIT) contents.delete(contents.keys().next().value!);
+	contents.set(rev.id, content);
 }
 
 export function validateContent(input: unknown): VehicleContent {
@@ -242,7 +271,8 @@ export async function saveRevision(vehicleId: number, input: SaveInput, author: 
 		let merged = false;
 		if (input.baseRevisionId !== latest.id) {
 			const base = await revisionById(input.baseRevisionId, transaction);
-			if (!base || base.vehicleId !== vehicle.id) throw new ServiceError('The revision you started from is not part of this page.', 400);
+			// A base the author may not read is refused like one that does not exist: a merge would show its values.
+			if (!base || base.vehicleId !== vehicle.id || !mayReadRevision(base, author, await readingRules())) throw new ServiceError('The revision you started from is not part of this page.', 400);
 			const outcome = mergeContent(base.content, latest.content, yours);
 			if (outcome.conflicts.length) throw new EditConflictError(outcome.conflicts, latest.id, outcome.merged);
 			next = validateContent(outcome.merged);
@@ -280,6 +310,11 @@ export async function restoreRevision(vehicleId: number, revisionId: number, act
 	return result;
 }
 
+/** A change to who reads a page's revisions: other app servers' indexes look for touched pages. */
+export async function touchVehicle(vehicleId: number, transaction: Transaction): Promise<void> {
+	await db().query('UPDATE vehicles SET updated_at = CURRENT_TIMESTAMP(3) WHERE id = ?', { replacements: [vehicleId], transaction });
+}
+
 export async function setRevisionHidden(revisionId: number, hidden: boolean, reason: string, actor: SessionUser): Promise<void> {
 	if (!roleAtLeast(actor.role, 'moderator')) throw new ServiceError('Hiding a revision needs the moderator role.', 403);
 	const vehicleId = await db().transaction(async (transaction) => {
@@ -291,13 +326,14 @@ export async function setRevisionHidden(revisionId: number, hidden: boolean, rea
 		}
 		if (!!row.hidden === hidden) return row.vehicleId;
 		await row.update({ hidden }, { transaction });
+		await touchVehicle(row.vehicleId, transaction);
 		await recordAudit(
 			{ actorId: actor.id, action: hidden ? 'revision.hide' : 'revision.unhide', targetType: 'revision', targetId: revisionId, details: { reason, vehicleId: row.vehicleId } },
 			transaction
 		);
 		return row.vehicleId;
 	});
-	cache.delete(revisionId);
+	forgetRevisionFlags(revisionId);
 	await announceRevision({ kind: hidden ? 'hide' : 'unhide', vehicleId, revisionId, authorId: actor.id });
 }
 
@@ -333,7 +369,11 @@ export type RevisionListItem = {
 
 export const PAGE_SIZE = 50;
 
-export async function listRevisions(filter: {
+/**
+ * Revisions newest first, as `reader` may list them: a hidden one keeps its row with no summary; with
+ * sign-off required, a viewer is not told of changes nobody signed off yet.
+ */
+export async function listRevisions(reader: Reader, filter: {
 	vehicleId?: number;
 	authorId?: number;
 	section?: SectionKey;
@@ -346,13 +386,15 @@ export async function listRevisions(filter: {
 	const where: Record<string | symbol, unknown> = {};
 	if (filter.vehicleId) where.vehicleId = filter.vehicleId;
 	if (filter.authorId) where.authorId = filter.authorId;
+	const conditions = [literal(signedOffSql('`Revision`', reader, await readingRules()))];
 	if (filter.section) {
 		// Revisions that changed the section are those it originates in.
 		const part = db().escape(sectionPart(filter.section));
-		where[Op.and] = [
+		conditions.push(
 			literal(`EXISTS (SELECT 1 FROM revision_origins o WHERE o.revision_id = \`Revision\`.\`id\` AND o.part = ${part} AND o.origin_revision_id = o.revision_id)`)
-		];
+		);
 	}
+	where[Op.and] = conditions;
 	if (filter.unreviewed) where.reviewedAt = null;
 	const { rows, count } = await Revision.findAndCountAll({
 		where,
@@ -383,7 +425,7 @@ export async function listRevisions(filter: {
 			vehicleSlug: v.slug,
 			vehicleTitle: vehicleTitle({ make: v.make.name, model: v.model.name, yearFrom: v.yearFrom, yearTo: v.yearTo }),
 			author: { id: a.id, name: a.name },
-			summary: r.hidden ? '' : r.summary,
+			summary: r.hidden && !readsHidden(reader) ? '' : r.summary,
 			createdAt: r.createdAt.toISOString(),
 			size: r.size,
 			sizeDelta: r.sizeDelta,
@@ -415,8 +457,12 @@ export async function compareRevisions(
 	if (!from || !to || from.vehicleId !== vehicleId || to.vehicleId !== vehicleId) {
 		throw new ServiceError('Both revisions must belong to this page.', 404);
 	}
-	if ((from.hidden || to.hidden) && !roleAtLeast(viewer.role, 'moderator')) {
+	const rules = await readingRules();
+	if ((from.hidden || to.hidden) && !readsHidden(viewer)) {
 		throw new ServiceError('One of these revisions is hidden by a moderator.', 403);
+	}
+	if (!mayReadRevision(from, viewer, rules) || !mayReadRevision(to, viewer, rules)) {
+		throw new ServiceError('Both revisions must belong to this page.', 404);
 	}
 	const fromPhotos = new Set(from.content.photos.map((p) => p.id));
 	const toPhotos = new Set(to.content.photos.map((p) => p.id));

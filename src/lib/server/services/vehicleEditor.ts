@@ -9,8 +9,9 @@ import { conflictViews } from '../../domain/content/conflictViews';
 import { applyResolution, type MergeConflict } from '../../domain/content/merge';
 import { parseContent } from '../../domain/content/schema';
 import { EditConflictError, NoChangeError, ServiceError } from '../errors';
-import { currentRevision, vehicleBySlug, type VehicleSummary } from './vehicles';
+import { vehicleBySlug, type VehicleSummary } from './vehicles';
 import { canEditVehicle, revisionById, saveRevision } from './revisions';
+import { mayRead } from './visibility';
 
 const PROTECTED = 'This page is locked for moderators: only moderators can edit it.';
 
@@ -25,7 +26,8 @@ export async function editableVehicle(slug: string, user: SessionUser): Promise<
 
 /** What the editor opens with: the current revision as form text, in the person's length unit. */
 export async function editorStart(vehicle: VehicleSummary, unit: LengthUnit): Promise<{ draft: ContentDraft; baseRevisionId: number }> {
-	const revision = await currentRevision(vehicle);
+	// Editors work on the newest revision, which is never a hidden one.
+	const revision = vehicle.latestRevisionId ? await revisionById(vehicle.latestRevisionId) : null;
 	if (!revision) throw new ServiceError('This vehicle page has no saved revision to edit.', 404);
 	return { draft: formFromContent(revision.content, unit), baseRevisionId: revision.id };
 }
@@ -114,7 +116,7 @@ export async function submitEditor(vehicle: VehicleSummary, posted: FormData, au
 
 	const { baseRevisionId } = post;
 	const base = Number.isInteger(baseRevisionId) && baseRevisionId > 0 ? await revisionById(baseRevisionId) : null;
-	if (!base || base.vehicleId !== vehicle.id) {
+	if (!base || base.vehicleId !== vehicle.id || !(await mayRead(base, author))) {
 		throw new ServiceError('The revision you started from is not part of this page. Copy what you typed, then open the editor again.', 400);
 	}
 	const built = contentFromForm(post.entries, post.unit, base.content);

@@ -1,7 +1,8 @@
-import { Op, fn, col } from 'sequelize';
+import { Op, fn, col, literal } from 'sequelize';
+import type { Reader } from '../../domain/visibility';
+import { pageOpenSql, readingRules } from './readingRules';
 import { Make, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
 import { vehicleTitle } from '../../domain/slug';
-import { revisionById, type StoredRevision } from './revisions';
 import { ServiceError } from '../errors';
 import { onRevisionWritten, onVehicleChanged } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
@@ -64,14 +65,11 @@ export async function vehicleById(id: number): Promise<VehicleSummary | null> {
 	return v ? summary(v) : null;
 }
 
-export async function currentRevision(vehicle: VehicleSummary): Promise<StoredRevision | null> {
-	return vehicle.latestRevisionId ? revisionById(vehicle.latestRevisionId) : null;
-}
-
-export async function listVehicles(filter: { make?: string; model?: string; year?: number; body?: string; page?: number; pageSize?: number }) {
+/** Pages in title order: only those with a revision the reader may read. */
+export async function listVehicles(reader: Reader, filter: { make?: string; model?: string; year?: number; body?: string; page?: number; pageSize?: number }) {
 	const pageSize = Math.min(Math.max(filter.pageSize ?? 50, 1), 200);
 	const page = Math.max(filter.page ?? 1, 1);
-	const where: Record<string, unknown> = {};
+	const where: Record<string | symbol, unknown> = { [Op.and]: [literal(pageOpenSql('`Vehicle`', reader, await readingRules()))] };
 	if (filter.year) Object.assign(where, { yearFrom: { [Op.lte]: filter.year }, yearTo: { [Op.gte]: filter.year } });
 	if (filter.body) where.body = filter.body;
 	const include = [
@@ -93,9 +91,10 @@ export async function listVehicles(filter: { make?: string; model?: string; year
 }
 
 /** Makes with their models and how many pages each has, for browsing. */
-export async function catalogue() {
+export async function catalogue(reader: Reader) {
 	const makes = await Make.findAll({ order: [['name', 'ASC']], include: [{ model: VehicleModel, as: 'models', attributes: ['id', 'name', 'slug'] }] });
-	const counts = await Vehicle.findAll({ attributes: ['modelId', [fn('COUNT', col('id')), 'n']], group: ['modelId'], raw: true });
+	const open = literal(pageOpenSql('`Vehicle`', reader, await readingRules()));
+	const counts = await Vehicle.findAll({ attributes: ['modelId', [fn('COUNT', col('id')), 'n']], where: { [Op.and]: [open] }, group: ['modelId'], raw: true });
 	const byModel = new Map((counts as unknown as { modelId: number; n: number }[]).map((c) => [c.modelId, Number(c.n)]));
 	return makes.map((m) => ({
 		name: m.name,

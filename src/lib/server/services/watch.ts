@@ -7,7 +7,9 @@ import { changeNoticeMail, digestMail, type ChangeLine } from '../mail/templates
 import { onRevisionWritten, type RevisionWritten } from '../events';
 import { revisionById } from './revisions';
 import { vehicleById, type VehicleSummary } from './vehicles';
-import { visibleRevision } from './review';
+import { mayRead, pageRevision } from './visibility';
+import { mayReadRevision, readsUnsignedOff } from '../../domain/visibility';
+import { readingRules } from './readingRules';
 import { ServiceError } from '../errors';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
@@ -69,7 +71,7 @@ export async function watchlist(user: SessionUser): Promise<WatchlistItem[]> {
 	for (const w of watches) {
 		const vehicle = await vehicleById(w.vehicleId);
 		if (!vehicle) continue;
-		const { revision, newerAwaitingReview } = await visibleRevision(vehicle, user);
+		const { revision, newerAwaitingReview } = await pageRevision(vehicle, user);
 		items.push({
 			vehicle: { id: vehicle.id, slug: vehicle.slug, title: vehicle.title },
 			watchedSince: w.createdAt.toISOString(),
@@ -88,33 +90,44 @@ export async function watchlist(user: SessionUser): Promise<WatchlistItem[]> {
 	return items.sort((a, b) => (b.latest?.at ?? '').localeCompare(a.latest?.at ?? ''));
 }
 
-const NOTIFYING_KINDS: RevisionWritten['kind'][] = ['create', 'save', 'restore'];
+const NOTIFYING_KINDS: RevisionWritten['kind'][] = ['create', 'save', 'restore', 'review'];
 
 /**
  * After a committed change: the author starts watching (unless they turned that off), and every other active
- * watcher gets a notice queued, to go out at once or in their daily digest.
+ * watcher who may read the change gets a notice queued, to go out at once or in their daily digest. A watcher
+ * who may not read it yet (a viewer, while sign-off is required) is told when a moderator signs it off.
  */
 export async function queueNotices(event: RevisionWritten): Promise<number> {
 	if (!NOTIFYING_KINDS.includes(event.kind)) return 0;
+	const revision = await revisionById(event.revisionId);
+	if (!revision) return 0;
+	const rules = await readingRules();
+	const signOff = event.kind === 'review';
+	if (signOff && !rules.signOffRequired) return 0;
 	const authorPrefs = await noticePreferences(event.authorId);
-	if (authorPrefs.watchOwnEdits) {
+	if (!signOff && authorPrefs.watchOwnEdits) {
 		await Watch.bulkCreate([{ userId: event.authorId, vehicleId: event.vehicleId }], { ignoreDuplicates: true });
 		watchedBy.delete(event.authorId);
 	}
 	const watchers = await Watch.findAll({
-		where: { vehicleId: event.vehicleId, userId: { [Op.ne]: event.authorId } },
+		where: { vehicleId: event.vehicleId, userId: { [Op.ne]: revision.authorId } },
 		include: [
 			{
 				model: User,
 				as: 'user',
 				where: { status: 'active' },
-				attributes: ['id'],
+				attributes: ['id', 'role'],
 				include: [{ model: NotificationPreference, as: 'noticePreference', required: false }]
 			}
 		]
 	});
-	if (!watchers.length) return 0;
-	const rows = watchers.map((w) => {
+	// On a sign-off, only those who could not read the change before hear of it now.
+	const readers = watchers.filter((w) => {
+		const user = (w as Watch & { user: User }).user;
+		return mayReadRevision(revision, user, rules) && !(signOff && readsUnsignedOff(user, rules));
+	});
+	if (!readers.length) return 0;
+	const rows = readers.map((w) => {
 		const prefs = (w as Watch & { user: User & { noticePreference?: NotificationPreference | null } }).user.noticePreference;
 		return { userId: w.userId, vehicleId: event.vehicleId, revisionId: event.revisionId, mode: prefs?.noticeMode ?? DEFAULT_PREFERENCES.noticeMode };
 	});
@@ -128,9 +141,10 @@ function links(vehicle: VehicleSummary, revisionId: number, parentId: number | n
 	return { pageLink, compareLink: parentId ? `${pageLink}/compare?from=${parentId}&to=${revisionId}` : null };
 }
 
-async function changeLine(notice: PendingNotice): Promise<ChangeLine | null> {
+/** A notice tells of a change only a person who may read it now; others' notices are dropped when due. */
+async function changeLine(notice: PendingNotice, recipient: Pick<User, 'role'>): Promise<ChangeLine | null> {
 	const [revision, vehicle] = await Promise.all([revisionById(Number(notice.revisionId)), vehicleById(notice.vehicleId)]);
-	if (!revision || !vehicle) return null;
+	if (!revision || !vehicle || !(await mayRead(revision, recipient))) return null;
 	return {
 		vehicleTitle: vehicle.title,
 		...links(vehicle, revision.id, revision.parentId),
@@ -164,8 +178,8 @@ export async function deliverImmediateNotices(now = new Date()): Promise<number>
 	for (const notice of due) {
 		const [id] = await claim([Number(notice.id)], now);
 		if (!id) continue;
-		const user = await User.findByPk(notice.userId, { attributes: ['id', 'email', 'name', 'status'] });
-		const line = await changeLine(notice);
+		const user = await User.findByPk(notice.userId, { attributes: ['id', 'email', 'name', 'status', 'role'] });
+		const line = user ? await changeLine(notice, user) : null;
 		if (!user || user.status !== 'active' || !line) continue;
 		try {
 			await sendMail({ to: user.email, ...changeNoticeMail({ recipientName: user.name, change: line, ...footerLinks() }) });
@@ -199,9 +213,9 @@ export async function sendDigests(now = new Date()): Promise<number> {
 		if (now.getTime() - since.getTime() < DIGEST_INTERVAL_MS - DIGEST_SLACK_MS) continue;
 		const notices = await PendingNotice.findAll({ where: { userId, mode: 'digest', sentAt: null, createdAt: { [Op.lte]: now } }, order: [['revisionId', 'ASC']] });
 		const ids = await claim(notices.map((n) => Number(n.id)), now);
-		const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'status'] });
+		const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'status', 'role'] });
 		if (!ids.length || !user || user.status !== 'active') continue;
-		const lines = (await Promise.all(notices.filter((n) => ids.includes(Number(n.id))).map(changeLine))).filter((l): l is ChangeLine => l !== null);
+		const lines = (await Promise.all(notices.filter((n) => ids.includes(Number(n.id))).map((n) => changeLine(n, user)))).filter((l): l is ChangeLine => l !== null);
 		if (!lines.length) continue;
 		try {
 			await sendMail({ to: user.email, ...digestMail({ recipientName: user.name, changes: lines, ...footerLinks() }) });

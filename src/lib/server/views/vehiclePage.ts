@@ -1,7 +1,7 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { requireRole } from '../auth/guard';
 import { vehicleBySlug } from '../services/vehicles';
-import { visibleRevision } from '../services/review';
+import { pageRevision } from '../services/visibility';
 import { isWatching } from '../services/watch';
 import { trustSummary } from '../services/trust';
 import { canEditVehicle } from '../services/revisions';
@@ -17,7 +17,7 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 	if ('redirectTo' in found) redirect(301, `/vehicles/${found.redirectTo}`);
 	const { vehicle } = found;
 	const [{ revision, newerAwaitingReview }, watching, trust] = await Promise.all([
-		visibleRevision(vehicle, user),
+		pageRevision(vehicle, user),
 		isWatching(user.id, vehicle.id),
 		trustSummary(vehicle, locals.units)
 	]);

@@ -12,7 +12,7 @@ import { againstPageSchema, boxAgainstSpaceSchema, reverseQuerySchema } from '$l
 /** A box against a typed space, or a part (or box) against a vehicle page's measurements. */
 export const POST: RequestHandler = ({ locals, request }) =>
 	apiCall(async () => {
-		requireRole(locals, 'viewer');
+		const user = requireRole(locals, 'viewer');
 		const raw = await request
 			.clone()
 			.json()
@@ -23,7 +23,7 @@ export const POST: RequestHandler = ({ locals, request }) =>
 			return json({ verdict: r.verdict, rotated: r.rotated, margins: r.margins, limiting: r.limiting });
 		}
 		const body = await readJson(request, againstPageSchema);
-		const answer = await checkVehicleFit({ ...body, clearanceMm: body.clearanceMm ?? body.marginMm });
+		const answer = await checkVehicleFit({ ...body, clearanceMm: body.clearanceMm ?? body.marginMm }, user);
 		const reason = fitReason(answer, locals.units);
 		const head = { vehicle: answer.vehicle, part: answer.part ? { id: answer.part.id, sku: answer.part.sku, name: answer.part.name, kind: answer.part.kind } : null, evidence: answer.evidence };
 		if (answer.check === 'seat') {

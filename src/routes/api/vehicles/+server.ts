@@ -6,8 +6,8 @@ import { listVehicles } from '$lib/server/services/vehicles';
 
 export const GET: RequestHandler = ({ locals, url }) =>
 	apiCall(async () => {
-		requireRole(locals, 'viewer');
-		const result = await listVehicles({
+		const user = requireRole(locals, 'viewer');
+		const result = await listVehicles(user, {
 			make: url.searchParams.get('make') ?? undefined,
 			model: url.searchParams.get('model') ?? undefined,
 			year: queryInt(url, 'year', { min: 1950, max: 2100 }),

@@ -23,7 +23,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	if (!filter.success) error(400, filter.error.issues[0].message);
 	const moderating = hasRole(viewer, 'moderator') && !viewer.block && viewer.id !== id;
 	const [revisions, block] = await Promise.all([
-		listRevisions({ authorId: id, section: filter.data.section, page: filter.data.page }),
+		listRevisions(viewer, { authorId: id, section: filter.data.section, page: filter.data.page }),
 		// Everyone may see that someone's editing is paused; the reason is for moderators and the person themselves.
 		activeBlockFor(id)
 	]);

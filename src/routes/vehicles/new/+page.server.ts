@@ -14,7 +14,7 @@ type Values = Record<(typeof FIELDS)[number], string>;
 const text = (v: string | null, max = 120) => (v ?? '').trim().slice(0, max);
 
 export const load: PageServerLoad = async ({ locals, url }) => {
-	requireRole(locals, 'editor');
+	const user = requireRole(locals, 'editor');
 	const year = /^\d{4}$/.test(url.searchParams.get('year') ?? '') ? String(url.searchParams.get('year')) : '';
 	const values: Values = {
 		make: text(url.searchParams.get('make')),
@@ -25,7 +25,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		market: '',
 		aliases: ''
 	};
-	const makes = await catalogue();
+	const makes = await catalogue(user);
 	return { values, makes: makes.map((m) => ({ name: m.name, models: m.models.map((mo) => mo.name) })) };
 };
 

@@ -3,14 +3,15 @@ import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
-import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
+import { requireVehicle } from '$lib/server/services/vehicles';
+import { requirePageRevision } from '$lib/server/services/visibility';
 import { saveRevision } from '$lib/server/services/revisions';
 
 export const GET: RequestHandler = ({ locals, params }) =>
 	apiCall(async () => {
-		requireRole(locals, 'viewer');
+		const user = requireRole(locals, 'viewer');
 		const vehicle = await requireVehicle(params.slug);
-		const rev = await currentRevision(vehicle);
+		const rev = await requirePageRevision(vehicle, user);
 		return json({
 			slug: vehicle.slug,
 			make: vehicle.make,
@@ -19,10 +20,10 @@ export const GET: RequestHandler = ({ locals, params }) =>
 			yearTo: vehicle.yearTo,
 			body: vehicle.body,
 			protection: vehicle.protection,
-			revisionId: rev?.id ?? null,
-			changedAt: rev?.createdAt.toISOString() ?? null,
-			changedBy: rev?.authorName ?? null,
-			content: rev?.content ?? null
+			revisionId: rev.id,
+			changedAt: rev.createdAt.toISOString(),
+			changedBy: rev.authorName,
+			content: rev.content
 		});
 	});
 

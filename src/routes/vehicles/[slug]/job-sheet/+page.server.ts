@@ -1,29 +1,28 @@
 import type { PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
-import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
+import { requireVehicle } from '$lib/server/services/vehicles';
+import { requirePageRevision } from '$lib/server/services/visibility';
 import { listParts, partsByIds } from '$lib/server/services/parts';
 import { measurementOrigins, placeReaders } from '$lib/server/services/evidence';
 import { trustSummary } from '$lib/server/services/trust';
-import { ServiceError } from '$lib/server/errors';
 import { jobSheet } from '$lib/domain/jobSheet';
 import { readJobSheetQuery } from '$lib/domain/calcInput';
 import { BODY_STYLE_NAMES, BATTERY_LOCATION_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 
 export const load: PageServerLoad = async ({ locals, params, url }) => {
-	requireRole(locals, 'viewer');
+	const user = requireRole(locals, 'viewer');
 	const q = url.searchParams;
 	const unit = q.get('unit') === 'in' || (!q.get('unit') && locals.units === 'imperial') ? 'in' : 'mm';
 	try {
 		const vehicle = await requireVehicle(params.slug);
-		const rev = await currentRevision(vehicle);
-		if (!rev) throw new ServiceError('This page has no revision yet.', 404);
+		const rev = await requirePageRevision(vehicle, user);
 		const partIds = q.getAll('part').flatMap((v) => v.split(',')).map(Number);
 		const [parts, catalogue, trust, evidence] = await Promise.all([
 			partsByIds(partIds),
 			listParts(),
 			trustSummary(vehicle, locals.units),
-			measurementOrigins(vehicle, placeReaders(rev.content))
+			measurementOrigins(rev, placeReaders(rev.content))
 		]);
 
 		const { lengths, speakers, cores, errors } = readJobSheetQuery((name) => q.get(name), unit);

@@ -2,7 +2,8 @@ import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
-import { currentRevision, requireVehicle, vehicleBySlug } from '$lib/server/services/vehicles';
+import { requireVehicle, vehicleBySlug } from '$lib/server/services/vehicles';
+import { pageRevision } from '$lib/server/services/visibility';
 import { canEditVehicle } from '$lib/server/services/revisions';
 import {
 	addPhotosToVehicle,
@@ -22,7 +23,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	if (!found) error(404, 'No vehicle page at this address.');
 	if ('redirectTo' in found) redirect(301, `/vehicles/${found.redirectTo}/photos`);
 	const { vehicle } = found;
-	const revision = await currentRevision(vehicle);
+	const { revision } = await pageRevision(vehicle, user);
 	if (!revision) error(404, 'This vehicle page has no saved revision yet.');
 	const limits = config.photos;
 	return {

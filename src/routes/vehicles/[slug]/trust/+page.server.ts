@@ -4,7 +4,8 @@ import { requireRole } from '$lib/server/auth/guard';
 import { safeNext } from '$lib/server/auth/redirects';
 import { asHttpError } from '$lib/server/http';
 import { formAction } from '$lib/server/forms';
-import { currentRevision, requireVehicle } from '$lib/server/services/vehicles';
+import { requireVehicle } from '$lib/server/services/vehicles';
+import { pageRevision } from '$lib/server/services/visibility';
 import { confirmPage, flaggableFields, flagField, trustSummary } from '$lib/server/services/trust';
 
 /** Back to the page the form was on, never off the site. */
@@ -16,13 +17,10 @@ function backTo(form: FormData, slug: string, mark: string): string {
 }
 
 export const load: PageServerLoad = async ({ locals, params }) => {
-	requireRole(locals, 'viewer');
+	const user = requireRole(locals, 'viewer');
 	try {
 		const vehicle = await requireVehicle(params.slug);
-		const [trust, current] = await Promise.all([
-			trustSummary(vehicle, locals.units),
-			currentRevision(vehicle)
-		]);
+		const [trust, { revision: current }] = await Promise.all([trustSummary(vehicle, locals.units), pageRevision(vehicle, user)]);
 		return { vehicle: { slug: vehicle.slug, title: vehicle.title }, trust, fields: current ? flaggableFields(current.content) : [] };
 	} catch (err) {
 		asHttpError(err);

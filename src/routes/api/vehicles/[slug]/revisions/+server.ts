@@ -8,9 +8,9 @@ import { withTallies } from '$lib/server/services/revisionTally';
 
 export const GET: RequestHandler = ({ locals, params, url }) =>
 	apiCall(async () => {
-		requireRole(locals, 'viewer');
+		const user = requireRole(locals, 'viewer');
 		const vehicle = await requireVehicle(params.slug);
-		const result = await listRevisions({
+		const result = await listRevisions(user, {
 			vehicleId: vehicle.id,
 			page: queryInt(url, 'page', { min: 1, max: 100_000 }),
 			pageSize: queryInt(url, 'pageSize', { min: 1, max: 500 })
