@@ -26,6 +26,8 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 					slug: v.slug,
 					title: v.title,
 					make: v.make,
+					yearFrom: v.yearFrom,
+					yearTo: v.yearTo,
 					body: BODY_STYLE_NAMES[v.body as BodyStyle] ?? v.body,
 					...facts.places,
 					evidence: facts.evidence,
