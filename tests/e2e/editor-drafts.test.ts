@@ -49,6 +49,9 @@ describe('typed work in the editor is never lost', () => {
 
 	it('keeps a draft on the device and offers it back when the editor opens again', async () => {
 		const page = await editorAs('editor', DRAFTED);
+		// Start with nothing kept from the tests before.
+		await page.evaluate(() => localStorage.clear());
+		await page.reload({ waitUntil: 'networkidle' });
 		await page.fill(HEIGHT, '77');
 		await page.fill('#summary', 'Driver seat re-measured with the mat out');
 		page.on('dialog', (dialog) => void dialog.accept());
