@@ -66,4 +66,32 @@ describe('the fit screen with a typed box', () => {
 		await screenshot(page, 'fit-model-year-desktop');
 		await page.close();
 	});
+
+	it('answers "which of our vehicles take it" for a typed box, for a viewer on a phone', async () => {
+		const page = await fitScreen(PHONE);
+		await page.fill('#fit-l', '300');
+		await page.fill('#fit-w', '200');
+		await page.fill('#fit-h', '60');
+		const reverse = page.getByTestId('reverse-fit');
+		await reverse.getByRole('button', { name: 'Find the vehicles that take it' }).click();
+		const rows = reverse.getByTestId('reverse-rows');
+		await rows.waitFor();
+		const listed = await rows.textContent();
+		// By hand, with the 10 mm clearance: the Kestle's passenger space 450 × 350 × 90 leaves 140, 140 and 20 mm;
+		// the Corrin's tallest space is 62 mm, under 60 + 10 mm, so it is left out.
+		expect(listed).toContain('Sundrake Kestle 2015–2021');
+		expect(listed).not.toContain('Halvik Corrin');
+		await screenshot(page, 'fit-reverse-box-phone');
+		await reverse.getByRole('link', { name: /^Passenger seat: fits/ }).first().click();
+		await page.getByTestId('fit-answer').locator('[data-verdict]').first().waitFor();
+		expect(new URL(page.url()).searchParams.get('l')).toBe('300');
+		// Changing the box asks again rather than showing the old list.
+		await page.goto(`${BASE}/fit?l=300&w=200&h=60&unit=mm`);
+		await page.locator('button:has-text("Check fit")').waitFor({ state: 'detached' });
+		await page.getByTestId('reverse-rows').waitFor();
+		await page.fill('#fit-h', '61');
+		await page.getByRole('button', { name: 'Find the vehicles that take it' }).waitFor();
+		expect(await page.getByTestId('reverse-rows').count()).toBe(0);
+		await page.close();
+	});
 });
