@@ -46,18 +46,21 @@ export async function screenshot(page: Page, name: string): Promise<void> {
 
 /**
  * One browser for a test file, opened before its tests and closed after; each test takes a fresh
- * signed-out page. Anything the Content-Security-Policy blocked on any page fails the file.
+ * signed-out page. Anything the Content-Security-Policy blocked, and any uncaught error in a page's
+ * scripts, fails the file.
  */
 export function browserSession(defaultViewport = DESKTOP) {
 	let context: BrowserContext;
 	let close: (() => Promise<void>) | undefined;
 	const blocked: string[] = [];
+	const pageErrors: string[] = [];
 	beforeAll(async () => {
 		({ context, close } = await openBrowser(defaultViewport));
 	});
 	afterAll(async () => {
 		await close?.();
 		expect(blocked, 'blocked by the Content-Security-Policy').toEqual([]);
+		expect(pageErrors, 'uncaught errors in the page').toEqual([]);
 	});
 	return {
 		async freshPage(viewport = defaultViewport): Promise<Page> {
@@ -66,6 +69,7 @@ export function browserSession(defaultViewport = DESKTOP) {
 			page.on('console', (message) => {
 				if (message.type() === 'error' && /Content Security Policy/i.test(message.text())) blocked.push(`${page.url()}: ${message.text()}`);
 			});
+			page.on('pageerror', (error) => pageErrors.push(`${page.url()}: ${error.message}`));
 			await page.setViewportSize(viewport);
 			return page;
 		}

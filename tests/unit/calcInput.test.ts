@@ -11,6 +11,11 @@ describe('calculator forms', () => {
 		expect(readNumber('', { label: 'Current', unit: 'A' })).toBe('Enter current in A.');
 		expect(readNumber('2.5', { label: 'Channels', whole: true })).toBe('Channels must be a whole number.');
 		expect(readNumber('0', { label: 'Current', unit: 'A', above: 0 })).toBe('Current must be more than 0 A.');
+		// A trailing letter is a unit only after a figure: the message repeats what was typed.
+		expect(readNumber('abc', { label: 'Current', unit: 'A' })).toBe('Current: "abc" is not a number.');
+		expect(readNumber('va', { label: 'Supply voltage' })).toBe('Supply voltage: "va" is not a number.');
+		expect(readNumber('12 v', { label: 'Supply voltage' })).toBe(12);
+		expect(readNumber('60A', { label: 'Current' })).toBe(60);
 	});
 
 	it('takes the class efficiency, or the maker’s own figure in %', () => {

@@ -18,11 +18,13 @@ type NumberRule = { label: string; unit?: string; min?: number; above?: number; 
 
 /** A typed number, or a message that says what is wrong with it. */
 export function readNumber(text: string | undefined, rule: NumberRule): number | string {
-	const t = (text ?? '').trim().replace(/\s*(%|a|v|w|°c|c|ω|ohms?)$/i, '');
+	const typed = (text ?? '').trim();
+	// A unit is only read after a figure: "abc" stays "abc", never "ab" and a unit.
+	const t = typed.replace(/(?<=[\d.])\s*(%|a|v|w|°c|c|ω|ohms?)$/i, '');
 	const unit = rule.unit ? ` ${rule.unit}` : '';
 	if (t === '') return `Enter ${rule.label.toLowerCase()}${unit ? ` in${unit}` : ''}.`;
 	if (/^\d+,\d+$/.test(t)) return `Use a point for decimals: ${t.replace(',', '.')}.`;
-	if (!NUMBER.test(t)) return `${rule.label}: "${t}" is not a number.`;
+	if (!NUMBER.test(t)) return `${rule.label}: "${typed}" is not a number.`;
 	const n = Number(t);
 	if (rule.whole && !Number.isInteger(n)) return `${rule.label} must be a whole number.`;
 	if (rule.above !== undefined && !(n > rule.above)) return `${rule.label} must be more than ${rule.above}${unit}.`;

@@ -21,3 +21,18 @@ export function vehicleSlug(v: { make: string; model: string; yearFrom: number; 
 export function vehicleTitle(v: { make: string; model: string; yearFrom: number; yearTo: number }): string {
 	return `${v.make} ${v.model} ${modelYears(v)}`;
 }
+
+/**
+ * A model year typed beside a page: nothing when blank, a message when it is not a year or falls outside
+ * the years the page covers (its figures may not apply to that car).
+ */
+export function modelYearProblem(text: string, v: { yearFrom: number; yearTo: number }): string | null {
+	const typed = text.trim();
+	if (!typed) return null;
+	if (!/^\d{4}$/.test(typed)) return `Model year: type four digits, e.g. ${v.yearFrom}.`;
+	const year = Number(typed);
+	if (year < v.yearFrom || year > v.yearTo) {
+		return `Model year ${year} is outside the years this page covers (${modelYears(v)}): its figures may not apply. Check the car or pick the page for its years.`;
+	}
+	return null;
+}

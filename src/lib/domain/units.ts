@@ -43,6 +43,10 @@ const FRACTION = new RegExp(`^(\\d+)\\s*/\\s*(\\d+)\\s*${UNIT}$`);
 const MIXED = new RegExp(`^(\\d+)(?:\\s+|\\s*-\\s*)(\\d+)\\s*/\\s*(\\d+)\\s*${UNIT}$`);
 
 const EXAMPLES = 'for example 89, 89 mm, 3.5 in, 3.5" or 3 1/2 in';
+const RUN_EXAMPLES: Record<LengthUnit, string> = {
+	mm: 'for example 4.5 (metres), 4.5 m, 450 cm or 15 ft',
+	in: 'for example 15 (feet), 15 ft, 4.5 m or 450 cm'
+};
 
 /** Reads a typed length and returns millimetres; throws LengthInputError with a message for a person. */
 export function parseLength(input: string, defaultUnit: LengthUnit): number {
@@ -157,7 +161,14 @@ export function readLength(kind: 'mm' | 'm', text: string, unit: LengthUnit): nu
 	// To the micrometre: drops float noise such as 3.5 in = 88.89999999999999 mm.
 	if (kind === 'mm') return Math.round(parseLength(text, unit) * 1000) / 1000;
 	const withUnit = HAS_UNIT.test(text) ? text : `${text.trim()} ${inputUnit('m', unit)}`;
-	return Math.round(parseLength(withUnit, 'mm') * 1000) / 1_000_000;
+	try {
+		return Math.round(parseLength(withUnit, 'mm') * 1000) / 1_000_000;
+	} catch (e) {
+		// A run is metres or feet: its examples say so, not the millimetres of a seat space.
+		if (!(e instanceof LengthInputError) || !/^(Enter|Could not read)/.test(e.message)) throw e;
+		const typed = text.trim();
+		throw new LengthInputError(`${typed ? `Could not read "${typed}" as a run length` : 'Enter a run length'}; ${RUN_EXAMPLES[unit]}.`);
+	}
 }
 
 const OHMS = /^(\d+(?:\.\d+)?|\.\d+)\s*([kKmM])?\s*(?:Ω|ohms?|r)?$/i;

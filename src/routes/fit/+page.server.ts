@@ -3,7 +3,10 @@ import { requireRole } from '$lib/server/auth/guard';
 import { ServiceError } from '$lib/server/errors';
 import { catalogue, listVehicles, requireVehicle } from '$lib/server/services/vehicles';
 import { listParts } from '$lib/server/services/parts';
-import { vehicleFitFacts } from '$lib/server/services/fit';
+import { vehicleFitFacts, vehiclesForBox } from '$lib/server/services/fit';
+import { readTypedBox } from '$lib/domain/typedBox';
+import { readNumber } from '$lib/domain/calcInput';
+import { CLEARANCE_MM, DEFAULT_CLEARANCE_MM } from '$lib/domain/sizeRules';
 import { trustSummary } from '$lib/server/services/trust';
 import { BODY_STYLE_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 
@@ -26,6 +29,8 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 					slug: v.slug,
 					title: v.title,
 					make: v.make,
+					yearFrom: v.yearFrom,
+					yearTo: v.yearTo,
 					body: BODY_STYLE_NAMES[v.body as BodyStyle] ?? v.body,
 					...facts.places,
 					evidence: facts.evidence,
@@ -37,6 +42,15 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 			missing = err.message;
 		}
 	}
+
+	// A typed box and no vehicle asks the other way round: which of our vehicles take it.
+	const unit = q.get('unit') === 'in' ? 'in' : 'mm';
+	const typed = q.get('part') ? null : readTypedBox({ l: q.get('l') ?? '', w: q.get('w') ?? '', h: q.get('h') ?? '' }, unit);
+	const clearance = readNumber(q.get('clearance') ?? String(DEFAULT_CLEARANCE_MM), { label: 'Clearance', unit: 'mm', ...CLEARANCE_MM });
+	const reverse =
+		!slug && typed?.box && typeof clearance === 'number'
+			? { for: [q.get('l'), q.get('w'), q.get('h'), unit, clearance].join('|'), fits: await vehiclesForBox(typed.box, { clearanceMm: clearance }) }
+			: null;
 
 	const makes = (await catalogue(user)).map((m) => ({ name: m.name, slug: m.slug }));
 	const makeSlug = q.get('make') || (vehicle ? (makes.find((m) => m.name === vehicle.make)?.slug ?? '') : '');
@@ -52,6 +66,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		parts: await listParts(),
 		vehicle,
 		missing,
+		reverse,
 		units: locals.units,
 		canMark: true
 	};

@@ -14,13 +14,15 @@ import { canEditVehicle, revisionById, saveRevision } from './revisions';
 import { mayRead } from './visibility';
 
 const PROTECTED = 'This page is locked for moderators: only moderators can edit it.';
+const PROTECTED_MEANWHILE =
+	'A moderator locked this page while you were editing, so only moderators can save it now. Nothing was saved; everything you typed is still below: copy it, or ask a moderator to make the change.';
 
 /** The page this person may edit at this address; an address renamed while they were editing still finds it. */
-export async function editableVehicle(slug: string, user: SessionUser): Promise<VehicleSummary> {
+export async function editableVehicle(slug: string, user: SessionUser, saving = false): Promise<VehicleSummary> {
 	let found = await vehicleBySlug(slug);
 	if (found && 'redirectTo' in found) found = await vehicleBySlug(found.redirectTo);
 	if (!found || !('vehicle' in found)) throw new ServiceError('No vehicle page at this address.', 404);
-	if (!canEditVehicle(user, found.vehicle)) throw new ServiceError(PROTECTED, 403);
+	if (!canEditVehicle(user, found.vehicle)) throw new ServiceError(saving ? PROTECTED_MEANWHILE : PROTECTED, 403);
 	return found.vehicle;
 }
 

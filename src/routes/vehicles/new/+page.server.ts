@@ -64,7 +64,14 @@ export const actions: Actions = {
 		return formAction(
 			request,
 			async (posted) => {
-				const identity = identityFrom(textFields(posted, FIELDS) as Values);
+				const typed = textFields(posted, FIELDS) as Values;
+				// The last year defaults to the first, so with neither typed only the first is asked for.
+				if (!typed.yearFrom.trim() && !typed.yearTo.trim()) {
+					throw new ServiceError('Type the first model year; nothing was saved yet.', 400, {
+						yearFrom: 'Type the first model year, for example 2012. Leave the last one empty when the page covers one year.'
+					});
+				}
+				const identity = identityFrom(typed);
 				const { slug } = await createVehicle({ schemaVersion: CONTENT_SCHEMA_VERSION, identity }, user, 'New page');
 				redirect(303, `/vehicles/${slug}/edit?created=1`);
 			},

@@ -20,10 +20,11 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 export const actions: Actions = {
 	save: async ({ locals, request, params }) => {
 		const user = requireRole(locals, 'editor');
-		const vehicle = await editableVehicle(params.slug, user).catch(asHttpError);
+		// Inside the form action: a page protected or gone meanwhile hands the form back with what was typed.
 		return formAction(
 			request,
 			async (posted) => {
+				const vehicle = await editableVehicle(params.slug, user, true);
 				const outcome = await submitEditor(vehicle, posted, user);
 				if (!outcome.saved) return { values: outcome.values, errors: outcome.errors, message: outcome.message };
 				redirect(303, `/vehicles/${outcome.saved.slug}?saved=${outcome.saved.revisionId}${outcome.saved.merged ? '&merged=1' : ''}`);
