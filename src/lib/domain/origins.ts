@@ -10,7 +10,10 @@ export const sectionPart = (section: SectionKey): string => `section:${section}`
  * its wording (obstacles, grille notes, things to avoid) belongs to its section instead.
  */
 export function placeFigures(content: VehicleContent): Record<string, readonly unknown[]> {
-	const out: Record<string, readonly unknown[]> = { dash: [content.dash.opening, content.dash.depthMm] };
+	const d = content.dash;
+	// The measured opening joins the dash's figures only once recorded, so earlier revisions keep their digests.
+	const opened = d.openingWidthMm !== null || d.openingHeightMm !== null ? [d.openingWidthMm, d.openingHeightMm] : [];
+	const out: Record<string, readonly unknown[]> = { dash: [d.opening, d.depthMm, ...opened] };
 	for (const s of content.seats.spaces) out[`seat:${s.id}`] = [s.seat, s.lengthMm, s.widthMm, s.heightMm];
 	for (const l of content.speakers.locations) out[`speaker:${l.id}`] = [l.cutoutMm, l.depthMm];
 	for (const p of content.firewall.passages) out[`passage:${p.id}`] = [p.location, p.kind, p.pushFrom, p.holeMm];

@@ -79,12 +79,14 @@ export const SEAT_NAMES: Readonly<Record<Seat, string>> = {
 	rear: 'Rear'
 };
 
-export const DASH_OPENINGS = ['single-din', 'double-din', 'oversize', 'integrated'] as const;
+export const DASH_OPENINGS = ['single-din', '1.5-din', 'double-din', 'oversize', 'kit', 'integrated'] as const;
 export type DashOpening = (typeof DASH_OPENINGS)[number];
 export const DASH_OPENING_NAMES: Readonly<Record<DashOpening, string>> = {
 	'single-din': 'Single DIN',
+	'1.5-din': '1.5 DIN',
 	'double-din': 'Double DIN',
 	oversize: 'Oversize',
+	kit: 'Kit opening (the dash kit sets the size)',
 	integrated: 'Integrated (no DIN opening)'
 };
 
@@ -381,6 +383,8 @@ const dashSchema = pageSection('dash', {
 	opening: choice('dash opening', DASH_OPENINGS, DASH_OPENING_NAMES, { edit: { label: 'Opening' }, search: { label: 'Opening' } })
 		.nullable()
 		.default(null),
+	openingWidthMm: mm('measured opening width', { edit: { label: 'Opening width (measured)' } }, 400),
+	openingHeightMm: mm('measured opening height', { edit: { label: 'Opening height (measured)' } }, 400),
 	depthMm: mm('usable chassis depth'),
 	kit: text('dash kit and trim', 300, { edit: { label: 'Dash kit and trim needed', row: 'grid gap-4' }, search: { label: 'Kit' } }),
 	trimSteps: textList('trim removal steps', 'a trim removal step', { edit: { label: 'Trim removal steps, in order', noun: 'step', ordered: true } }),

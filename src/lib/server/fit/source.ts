@@ -12,7 +12,7 @@ export type VehicleFacts = {
 	title: string;
 	revisionId: number;
 	seats: { id: string; seat: Seat; l: number | null; w: number | null; h: number | null }[];
-	dash: { opening: DashSection['opening']; depthMm: number | null };
+	dash: { opening: DashSection['opening']; depthMm: number | null; openingWidthMm: number | null; openingHeightMm: number | null };
 	speakers: { id: string; location: string; cutoutMm: number | null; depthMm: number | null }[];
 };
 
@@ -67,7 +67,7 @@ function toFacts(row: FactRow): VehicleFacts {
 		seats: seats
 			.filter((s) => typeof s.id === 'string' && (SEATS as readonly string[]).includes(s.seat as string))
 			.map((s) => ({ id: s.id!, seat: s.seat!, l: mmOrNull(s.lengthMm), w: mmOrNull(s.widthMm), h: mmOrNull(s.heightMm) })),
-		dash: { opening: dash.opening ?? null, depthMm: mmOrNull(dash.depthMm) },
+		dash: { opening: dash.opening ?? null, depthMm: mmOrNull(dash.depthMm), openingWidthMm: mmOrNull(dash.openingWidthMm), openingHeightMm: mmOrNull(dash.openingHeightMm) },
 		speakers: speakers
 			.filter((s) => typeof s.id === 'string')
 			.map((s) => ({ id: s.id!, location: s.location || 'Unnamed location', cutoutMm: mmOrNull(s.cutoutMm), depthMm: mmOrNull(s.depthMm) }))

@@ -31,7 +31,7 @@ export async function vehicleFitFacts(vehicle: VehicleSummary): Promise<VehicleF
 	return {
 		vehicle,
 		revisionId: rev.id,
-		places: { seats: c.seats.spaces, dash: { opening: c.dash.opening, depthMm: c.dash.depthMm, kit: c.dash.kit }, speakers: c.speakers.locations },
+		places: { seats: c.seats.spaces, dash: { opening: c.dash.opening, depthMm: c.dash.depthMm, openingWidthMm: c.dash.openingWidthMm, openingHeightMm: c.dash.openingHeightMm, kit: c.dash.kit }, speakers: c.speakers.locations },
 		evidence: await measurementOrigins(vehicle, placeReaders(c))
 	};
 }
