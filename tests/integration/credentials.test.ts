@@ -73,3 +73,12 @@ describe('reset and invitation links', () => {
 		await expect(countLinkPost('10.6.0.2')).resolves.toBeUndefined();
 	});
 });
+
+describe('a shop signing in all day', () => {
+	it('never locks an address or an account for tries that succeeded', async () => {
+		await createUser({ email: 'busy@kickpanel.test', name: 'Busy Counter', password: 'busy-pass-123', role: 'viewer' }, null);
+		// More successful sign-ins from one address than the per-address and per-account limits allow failures.
+		for (let i = 0; i < 30; i++) expect((await authenticate('busy@kickpanel.test', 'busy-pass-123', '10.5.0.1')).ok).toBe(true);
+		for (let i = 0; i < 25; i++) expect((await authenticate('busy@kickpanel.test', 'busy-pass-123', `10.5.1.${i}`)).ok).toBe(true);
+	});
+});

@@ -49,6 +49,13 @@ export class SharedLimiter {
 		return (await this.read(key, now)) ?? new RateLimiterRes(this.opts.points - points, durationSeconds * 1000, points);
 	}
 
+	/** Gives back points counted in the current window (never below zero). */
+	async reward(k: string, points = 1): Promise<void> {
+		await db().query('UPDATE rate_limits SET points = GREATEST(points - ?, 0) WHERE k = ? AND expire_ms > ?', {
+			replacements: [points, this.key(k), Date.now()]
+		});
+	}
+
 	/** Counts one use; rejects with the RateLimiterRes once the window's points are used up. */
 	async consume(k: string): Promise<RateLimiterRes> {
 		const res = await this.penalty(k, 1);

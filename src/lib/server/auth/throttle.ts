@@ -66,12 +66,13 @@ export async function beginSignInAttempt(email: string, address: string): Promis
 }
 
 /**
- * The right password: tries from this address start again and the address becomes known. The count
- * from anywhere stays, so an attack in progress is not given fresh tries by its victim signing in.
+ * The right password: this try is given back, tries from this address on this account start again
+ * and the address becomes known. Failures counted from anywhere else stay, so an attack in progress
+ * is not given fresh tries by its victim signing in.
  */
 export async function forgiveSignInTries(email: string, address: string): Promise<void> {
 	const pair = `${email}|${address}`;
-	await Promise.all([perPair.delete(pair), knownDevice.delete(pair)]);
+	await Promise.all([perPair.delete(pair), perAddress.reward(address), perAccount.reward(email), knownDevice.delete(pair)]);
 	await knownDevice.penalty(pair);
 }
 
