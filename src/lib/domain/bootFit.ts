@@ -85,6 +85,43 @@ const bootSpaceSchema = z.object({
 const openingSchema = z.object({ w: measured('Load opening width'), h: measured('Load opening height') });
 const optionsSchema = z.object({ clearanceMm: allowanceMm('Clearance').optional(), tightMm: allowanceMm('Tight threshold').optional() });
 
+/** POST /api/fit/enclosure with the figures typed: a box, a load opening and a boot space. */
+export const enclosureAgainstSpaceSchema = z.object({
+	box: enclosureBoxSchema,
+	opening: openingSchema,
+	space: z.object({
+		l: measured('Boot floor length'),
+		w: measured('Boot floor width'),
+		h: measured('Boot height'),
+		lTop: measured('Boot depth at the top').optional(),
+		archW: measured('Width between the wheel arches').optional()
+	}),
+	marginMm: allowanceMm('Clearance').optional(),
+	tightMm: allowanceMm('Tight threshold').optional()
+});
+export type EnclosureAgainstSpace = z.output<typeof enclosureAgainstSpaceSchema>;
+
+/** A catalogue enclosure or a typed box against one vehicle page's boot. */
+export const enclosureAgainstPageSchema = z
+	.object({
+		vehicle: z.string({ error: 'Say which vehicle page (its slug).' }).trim().min(1, 'Say which vehicle page (its slug).').max(160),
+		partId: z.number({ error: 'partId must be the number of a catalogue part.' }).int('partId must be a whole number.').positive('partId must be the number of a catalogue part.').optional(),
+		box: enclosureBoxSchema.optional(),
+		marginMm: allowanceMm('Clearance').optional(),
+		tightMm: allowanceMm('Tight threshold').optional()
+	})
+	.refine((v) => (v.partId === undefined) !== (v.box === undefined), { error: 'Give either partId or box { l, w, h, lTop? }, not both.', path: ['box'] });
+export type EnclosureAgainstPage = z.input<typeof enclosureAgainstPageSchema>;
+
+/** The reverse question: a catalogue part or a typed box, with the clearance. */
+export const bootReverseSchema = z.union(
+	[
+		z.object({ partId: z.coerce.number().int().positive() }),
+		z.object({ l: z.coerce.number().pipe(size('Box depth')), w: z.coerce.number().pipe(size('Box width')), h: z.coerce.number().pipe(size('Box height')), lTop: z.coerce.number().pipe(size('Box depth at the top')).optional() })
+	],
+	{ error: 'Give partId, or l, w and h (and lTop for a wedge) in millimetres.' }
+);
+
 /** The boot a page records, as the check reads it. */
 export const bootSpaceOf = (b: Pick<BootSection, 'floorLengthMm' | 'depthTopMm' | 'floorWidthMm' | 'archWidthMm' | 'heightMm'>): BootSpace => ({
 	l: b.floorLengthMm,
@@ -151,13 +188,18 @@ export function enclosureFit(
 	opening: LoadOpening,
 	opts: { clearanceMm?: number; tightMm?: number } = {}
 ): EnclosureFit {
-	const b = parseInput(enclosureBoxSchema, box);
-	const s = parseInput(bootSpaceSchema, space);
-	const o = parseInput(openingSchema, opening);
 	const options = parseInput(optionsSchema, opts);
-	const c = options.clearanceMm ?? DEFAULT_CLEARANCE_MM;
-	const tightMm = options.tightMm ?? DEFAULT_TIGHT_MM;
+	return checkedEnclosureFit(
+		parseInput(enclosureBoxSchema, box),
+		parseInput(bootSpaceSchema, space),
+		parseInput(openingSchema, opening),
+		options.clearanceMm ?? DEFAULT_CLEARANCE_MM,
+		options.tightMm ?? DEFAULT_TIGHT_MM
+	);
+}
 
+/** The same check on figures already read (the reverse scan reads each boot once, not per query). */
+export function checkedEnclosureFit(b: EnclosureBox, s: BootSpace, o: LoadOpening, c: number, tightMm: number): EnclosureFit {
 	const pass = o.w !== null && o.h !== null ? throughOpening(b, { w: o.w, h: o.h }) : null;
 	const straight = seated(b, s, c, false);
 	const turned = seated(b, s, c, true);
