@@ -228,7 +228,7 @@ export function enclosureFitReason(fit: EnclosureFit, units: UnitSystem = 'metri
 	const len = (mm: number) => formatLength(mm, units);
 	const after = fit.clearanceMm > 0 ? ` after ${len(fit.clearanceMm)} clearance` : '';
 	const turned = fit.rotated ? ' Turned a quarter, so its width runs front to back.' : '';
-	const way = fit.opening ? ` It goes through the opening ${SIDE_WORDS[fit.opening.across]} across and ${SIDE_WORDS[fit.opening.up]} up.` : '';
+	const way = fit.opening ? ` Carry it through the opening with its ${SIDE_WORDS[fit.opening.across]} across and its ${SIDE_WORDS[fit.opening.up]} upright.` : '';
 	if (fit.limiting === 'opening' && fit.opening && !fit.opening.through) {
 		const short = Math.min(fit.opening.margins.w, fit.opening.margins.h);
 		return `Does not go through the load opening: ${len(-short)} too big whichever way it is carried square.`;
