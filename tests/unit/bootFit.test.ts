@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { unit } from 'mathjs';
-import { enclosureFit, enclosureFitReason, throughOpening, type BootSpace } from '../../src/lib/domain/bootFit';
+import { BootSpaceIndex, enclosureFit, enclosureFitReason, throughOpening, type BootSpace } from '../../src/lib/domain/bootFit';
 import { fitVerdict, type FitVerdict } from '../../src/lib/domain/fit';
 
 // Boots and boxes are invented (sample figures); every expected margin is worked by hand beside it.
@@ -129,5 +129,35 @@ describe('properties', () => {
 				expect(r.verdict).toBe(fitVerdict(b, s).verdict);
 			})
 		);
+	});
+});
+
+describe('the boot index for the reverse question', () => {
+	const figure = fc.option(fc.integer({ min: 50_000, max: 1_500_000 }).map((um) => um / 1000), { freq: 6 });
+	const bootRow = fc.record({
+		space: fc.record({ l: figure, lTop: figure, w: figure, archW: figure, h: figure }),
+		opening: fc.record({ w: figure, h: figure })
+	});
+	const side = fc.integer({ min: 50_000, max: 1_200_000 }).map((um) => um / 1000);
+
+	it('takes exactly the boots enclosureFit calls fits or tight, with the same tight flags', () => {
+		// two routes to one rule: the column scan against the per-boot check, on random decimal figures with gaps
+		fc.assert(
+			fc.property(fc.array(bootRow, { maxLength: 40 }), side, side, side, fc.option(side), fc.integer({ min: 0, max: 30 }), (boots, l, w, h, lTop, c) => {
+				const box = { l, w, h, lTop };
+				const index = new BootSpaceIndex(boots);
+				const got = index.query(box, c);
+				const want = boots.map((b) => enclosureFit(box, b.space, b.opening, { clearanceMm: c }).verdict);
+				const rows = want.flatMap((v, i) => (v === 'fits' || v === 'tight' ? [i] : []));
+				expect(Array.from(got.rows)).toEqual(rows);
+				expect(Array.from(got.tight)).toEqual(rows.map((i) => (want[i] === 'tight' ? 1 : 0)));
+			})
+		);
+	});
+
+	it('decides an exact fit at the micrometre like the single check', () => {
+		// 304.8 mm box under a 314.8 mm shelf with 10 mm clearance: margin 0, tight (hand-worked)
+		const index = new BootSpaceIndex([{ space: { l: 900, lTop: null, w: 1000, archW: null, h: 314.8 }, opening: { w: 1000, h: 600 } }]);
+		expect(Array.from(index.query({ l: 400, w: 400, h: 304.8 }).tight)).toEqual([1]);
 	});
 });

@@ -246,3 +246,124 @@ export function enclosureFitReason(fit: EnclosureFit, units: UnitSystem = 'metri
 	if (fit.verdict === 'tight') return `Goes in, but only ${len(m)} to spare ${where}: check on the car.${way}${turned}`;
 	return `Fits in the boot with ${len(m)} to spare ${where}, the closest side.${way}${turned}`;
 }
+
+export interface BootMatches {
+	/** Row numbers whose boot takes the box (fits or tight). */
+	rows: Int32Array;
+	/** 1 where that row's fit is tight. */
+	tight: Uint8Array;
+}
+
+/**
+ * Every recorded boot in typed columns, for "which vehicles take this box in the boot". The same
+ * rule as enclosureFit on complete figures, worked without allocating per row: the best way through
+ * an opening pairs the box's two shortest sides with the opening's shorter and longer side (a
+ * larger side or the crossed pairing only leaves less room).
+ */
+export class BootSpaceIndex {
+	readonly size: number;
+	readonly l: Float64Array;
+	readonly lTop: Float64Array;
+	readonly w: Float64Array;
+	readonly archW: Float64Array;
+	readonly h: Float64Array;
+	readonly ow: Float64Array;
+	readonly oh: Float64Array;
+
+	constructor(boots: readonly { space: BootSpace; opening: LoadOpening }[]) {
+		const n = boots.length;
+		this.size = n;
+		this.l = new Float64Array(n);
+		this.lTop = new Float64Array(n);
+		this.w = new Float64Array(n);
+		this.archW = new Float64Array(n);
+		this.h = new Float64Array(n);
+		this.ow = new Float64Array(n);
+		this.oh = new Float64Array(n);
+		boots.forEach((b, i) => this.set(i, b));
+	}
+
+	/** Overwrites one row (a page saved again). */
+	set(row: number, b: { space: BootSpace; opening: LoadOpening }): void {
+		const v = (x: number | null) => (x === null ? NaN : x);
+		this.l[row] = v(b.space.l);
+		this.lTop[row] = v(b.space.lTop);
+		this.w[row] = v(b.space.w);
+		this.archW[row] = v(b.space.archW);
+		this.h[row] = v(b.space.h);
+		this.ow[row] = v(b.opening.w);
+		this.oh[row] = v(b.opening.h);
+	}
+
+	query(box: EnclosureBox, clearanceMm = DEFAULT_CLEARANCE_MM, tightMm = DEFAULT_TIGHT_MM): BootMatches {
+		const b = parseInput(enclosureBoxSchema, box);
+		parseInput(optionsSchema, { clearanceMm, tightMm });
+		const c = clearanceMm;
+		const deep = Math.max(b.l, b.lTop ?? b.l);
+		const top = b.lTop ?? b.l;
+		const sides = [deep, b.w, b.h].sort((x, y) => x - y);
+		const s1 = sides[0];
+		const s2 = sides[1];
+		const rows = new Int32Array(this.size);
+		const tight = new Uint8Array(this.size);
+		let k = 0;
+		for (let i = 0; i < this.size; i++) {
+			const ow = this.ow[i];
+			const oh = this.oh[i];
+			const o1 = ow < oh ? ow : oh;
+			const o2 = ow < oh ? oh : ow;
+			const opening = Math.min(o1 - s1, o2 - s2);
+			const H = this.h[i];
+			const wide = this.w[i];
+			const arch = this.archW[i];
+			const across = wide === wide ? (arch === arch && arch < wide ? arch : wide) : arch;
+			const straight = Math.min(depthRoom(this.l[i], this.lTop[i], H, b.h, b.l, top, c), across - b.w - c);
+			const turned = Math.min(depthRoom(this.l[i], this.lTop[i], H, b.h, b.w, b.w, c), across - deep - c);
+			const m = Math.min(opening, straight > turned ? straight : turned, H - b.h - c);
+			// NaN (a figure not measured) fails every comparison, so such a row never matches.
+			if (m >= -FIT_SLACK_MM) {
+				const exact = Math.abs(m) < FIT_SLACK_MM * 2 || Math.abs(m - tightMm) < FIT_SLACK_MM * 2;
+				const verdict = exact ? this.verdictAt(i, b, c, tightMm) : m < tightMm ? 'tight' : 'fits';
+				if (verdict === 'fits' || verdict === 'tight') {
+					rows[k] = i;
+					tight[k++] = verdict === 'tight' ? 1 : 0;
+				}
+			}
+		}
+		return { rows: rows.slice(0, k), tight: tight.slice(0, k) };
+	}
+
+	/** One row's boot and opening, null where not measured. */
+	boot(row: number): { space: BootSpace; opening: LoadOpening } {
+		const v = (x: number) => (Number.isNaN(x) ? null : x);
+		return {
+			space: { l: v(this.l[row]), lTop: v(this.lTop[row]), w: v(this.w[row]), archW: v(this.archW[row]), h: v(this.h[row]) },
+			opening: { w: v(this.ow[row]), h: v(this.oh[row]) }
+		};
+	}
+
+	// On a margin within a micrometre or two of a boundary the full check (whole micrometres) decides.
+	private verdictAt(row: number, b: EnclosureBox, c: number, tightMm: number): FitVerdict {
+		const { space, opening } = this.boot(row);
+		return checkedEnclosureFit(b, space, opening, c, tightMm).verdict;
+	}
+}
+
+const FIT_SLACK_MM = 0.001;
+
+/** Depth room for a box side `bottom` deep at the floor and `top` deep at its top edge; NaN when no depth is measured. */
+function depthRoom(l: number, lTop: number, H: number, boxH: number, bottom: number, top: number, c: number): number {
+	let atTop = l;
+	if (lTop === lTop) {
+		if (l !== l) atTop = lTop;
+		else if (H !== H) atTop = l < lTop ? l : lTop;
+		else {
+			const t = l - ((l - lTop) * (boxH < H ? boxH : H)) / H;
+			atTop = l < t ? l : t;
+		}
+	}
+	const floor = l === l ? l - bottom - c : Infinity;
+	const up = atTop === atTop ? atTop - top - c : Infinity;
+	const m = floor < up ? floor : up;
+	return m === Infinity ? NaN : m;
+}

@@ -82,14 +82,23 @@ export async function vehiclesForBootBox(box: EnclosureBox, options: ReverseOpti
 	if (!b.success) refuse(b.error!.issues[0].message, 'box');
 	const clearanceMm = opts.data?.clearanceMm ?? DEFAULT_CLEARANCE_MM;
 	const tightMm = opts.data?.tightMm ?? DEFAULT_TIGHT_MM;
-	const { vehicles } = await seatSpaceIndex();
+	const { vehicles, boots } = await seatSpaceIndex();
+	const found = boots.query(b.data!, clearanceMm, tightMm);
 	const matches: BootReverseRow[] = [];
-	const notMeasured: BootReverseAnswer['notMeasured'] = [];
-	for (const v of vehicles) {
+	found.rows.forEach((row) => {
+		const v = vehicles[row];
+		// The index found it; the page's own figures give the margins.
 		const r = checkedEnclosureFit(b.data!, v.boot.space, v.boot.opening, clearanceMm, tightMm);
-		if (r.verdict === 'fits' || r.verdict === 'tight') {
-			matches.push({ vehicleSlug: v.slug, vehicleTitle: v.title, revisionId: v.revisionId, verdict: r.verdict, rotated: r.rotated, margins: r.margins, opening: r.opening, limiting: r.limiting });
-		} else if (r.verdict === 'not-measured') notMeasured.push({ vehicleSlug: v.slug, vehicleTitle: v.title });
+		matches.push({ vehicleSlug: v.slug, vehicleTitle: v.title, revisionId: v.revisionId, verdict: r.verdict, rotated: r.rotated, margins: r.margins, opening: r.opening, limiting: r.limiting });
+	});
+	const notMeasured: BootReverseAnswer['notMeasured'] = [];
+	for (let row = 0; row < boots.size; row++) {
+		const { space, opening } = vehicles[row].boot;
+		// Only a boot with a gap can be unanswered; the full check says whether a measured side already rules it out.
+		const gap = [space.l ?? space.lTop, space.w ?? space.archW, space.h, opening.w, opening.h].includes(null);
+		if (gap && checkedEnclosureFit(b.data!, space, opening, clearanceMm, tightMm).verdict === 'not-measured') {
+			notMeasured.push({ vehicleSlug: vehicles[row].slug, vehicleTitle: vehicles[row].title });
+		}
 	}
 	// The index keeps its vehicles in title order already.
 	return { check: 'boot', clearanceMm, matches, notMeasured, searched: { vehicles: vehicles.length } };

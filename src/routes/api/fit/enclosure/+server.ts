@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
-import { apiCall, readJson } from '$lib/server/http';
+import { apiCall, peekJson, readJson } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
 import { checkBootFit, vehiclesForBootBox, vehiclesForBootPart } from '$lib/server/services/bootFit';
 import { BOOT_CAUTION, bootReverseSchema, enclosureAgainstPageSchema, enclosureAgainstSpaceSchema, enclosureFit, enclosureFitReason } from '$lib/domain/bootFit';
@@ -10,11 +10,7 @@ import { BOOT_CAUTION, bootReverseSchema, enclosureAgainstPageSchema, enclosureA
 export const POST: RequestHandler = ({ locals, request }) =>
 	apiCall(async () => {
 		requireRole(locals, 'viewer');
-		const raw = await request
-			.clone()
-			.json()
-			.catch(() => null);
-		if (raw && typeof raw === 'object' && 'space' in raw) {
+		if ('space' in ((await peekJson(request)) ?? {})) {
 			const body = await readJson(request, enclosureAgainstSpaceSchema);
 			const space = { ...body.space, lTop: body.space.lTop ?? null, archW: body.space.archW ?? null };
 			const fit = enclosureFit(body.box, space, body.opening, { clearanceMm: body.marginMm, tightMm: body.tightMm });
