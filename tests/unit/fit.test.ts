@@ -297,6 +297,33 @@ describe('headUnitFit', () => {
 		expect(r.reason).toMatch(/5 mm too deep/);
 	});
 
+	it.each([
+		// 1.5-DIN opening with no measured size: by hand, depth − chassis − 50 for plugs
+		[1, 150, 230, 'fits', true, 30], // a single-DIN unit goes in with a pocket filling the rest
+		[1, 150, 195, 'no-fit', true, -5]
+	] as const)('%s-DIN unit %s mm deep in a 1.5-DIN opening %s mm deep → %s', (dinSize, chassisDepthMm, depthMm, verdict, needsKit, margin) => {
+		expect(headUnitFit({ dinSize, chassisDepthMm }, { opening: '1.5-din', depthMm })).toMatchObject({ verdict, needsKit, depthMarginMm: margin });
+	});
+
+	it('refuses a double-DIN unit in a 1.5-DIN opening unless a measured opening takes its face', () => {
+		// double-DIN face 100 mm high (ISO 7736) against 1.5-DIN units about 75 mm high (from memory)
+		const r = headUnitFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: '1.5-din', depthMm: 300 });
+		expect(r.verdict).toBe('no-fit');
+		expect(r.reason).toMatch(/taller than a 1\.5-DIN opening/);
+		// a measured 182 × 101 mm opening holds the 180 × 100 mm face (by hand: 2 mm and 1 mm to spare)
+		expect(headUnitFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: '1.5-din', depthMm: 300, openingMm: { w: 182, h: 101 } }).verdict).toBe('fits');
+	});
+
+	it('a kit opening needs the kit and its recorded size before the face can be judged', () => {
+		// no size: the face cannot be judged; 260 − 150 − 50 = 60 mm of depth to spare (by hand)
+		expect(headUnitFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'kit', depthMm: 260 })).toMatchObject({ verdict: 'not-measured', needsKit: true, depthMarginMm: 60 });
+		expect(headUnitFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'kit', depthMm: null })).toMatchObject({ verdict: 'not-measured', needsKit: true, depthMarginMm: null });
+		// too deep rules it out whatever the kit: 190 − 150 − 50 = −10 (by hand)
+		expect(headUnitFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'kit', depthMm: 190 })).toMatchObject({ verdict: 'no-fit', depthMarginMm: -10 });
+		// the opening the kit leaves, measured at the double-DIN aperture 182 × 103 (ISO 7736): fits, kit still needed
+		expect(headUnitFit({ dinSize: 2, chassisDepthMm: 150 }, { opening: 'kit', depthMm: 260, openingMm: { w: 182, h: 103 } })).toMatchObject({ verdict: 'fits', needsKit: true });
+	});
+
 	it('rejects absurd sizes', () => {
 		expect(() => headUnitFit({ dinSize: 1, chassisDepthMm: -1 }, { opening: 'single-din', depthMm: 100 })).toThrow(/Chassis depth must be more than 0 mm/);
 		expect(() => headUnitFit({ dinSize: 3 as 1, chassisDepthMm: 150 }, { opening: 'single-din', depthMm: 100 })).toThrow(/single DIN \(1\) or double DIN \(2\)/);

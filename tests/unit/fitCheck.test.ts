@@ -77,6 +77,14 @@ describe('speakers and head units', () => {
 		expect(pickLocation(fits)?.locationId).toBe('d');
 	});
 
+	it('compares a recorded opening, with both sides measured, with the unit face', () => {
+		// a measured 178 × 100 mm opening is narrower than the 180 mm face (ISO 7736)
+		const dash = { opening: 'double-din' as const, depthMm: 260, openingWidthMm: 178, openingHeightMm: 100 };
+		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, dash).verdict).toBe('no-fit');
+		// with only one side measured the opening type's aperture decides: 260 − 150 − 50 = 60 (by hand)
+		expect(dashFit({ dinSize: 2, chassisDepthMm: 150 }, { ...dash, openingHeightMm: null })).toMatchObject({ verdict: 'fits', depthMarginMm: 60 });
+	});
+
 	it('says not measured when the dash opening is not recorded', () => {
 		expect(dashFit({ dinSize: 1, chassisDepthMm: 150 }, { opening: null, depthMm: 200 }).verdict).toBe('not-measured');
 		// 225 − 150 − 50 for plugs = 25 mm (by hand); a seat clearance passed along does not change the depth check

@@ -135,7 +135,10 @@ export const DEFAULT_PLUG_ALLOWANCE_MM = 50;
 export const TRIM_KIT_OVER_MM = 3;
 
 export type DinSize = 1 | 2;
-export type DashOpening = 'single-din' | 'double-din' | 'oversize' | 'integrated';
+// A 1.5-DIN opening has no ISO 7736 size; its units are commonly 180 × 75 mm at the face (from memory).
+export const ONE_AND_HALF_DIN_FACE_MM = { w: 180, h: 75 } as const;
+
+export type DashOpening = 'single-din' | '1.5-din' | 'double-din' | 'oversize' | 'kit' | 'integrated';
 
 export interface DepthFit {
 	verdict: FitVerdict;
@@ -185,20 +188,37 @@ export function headUnitFit(
 		};
 	}
 	let needsKit: boolean;
+	if (dash.opening === 'kit' && !opened) {
+		// The kit's own aperture decides the face; only the depth can be judged without it.
+		const what = `A kit opening: the dash kit sets the size, so record the opening it leaves to check the face of a ${face}.`;
+		if (depth !== null) {
+			const depthMarginMm = margin(depth, chassisDepth, plugAllowanceMm);
+			if (depthMarginMm < 0) {
+				const reason = `The chassis is ${Math.round(-depthMarginMm)} mm too deep for the dash (${plugAllowanceMm} mm for plugs and adapters behind it included).`;
+				return { ...base, verdict: 'no-fit', depthMarginMm, needsKit: true, reason };
+			}
+			return { ...base, verdict: 'not-measured', depthMarginMm, needsKit: true, reason: `${what} The depth takes it.` };
+		}
+		return { ...base, verdict: 'not-measured', depthMarginMm: null, needsKit: true, reason: what };
+	}
 	if (opened) {
 		// A recorded opening (1.5 DIN, oversize, or what a kit leaves) decides the face.
 		if (margin(opened.w, size.w, 0) < 0 || margin(opened.h, size.h, 0) < 0) {
 			const reason = `The recorded opening (${opened.w} × ${opened.h} mm) is smaller than the face of a ${face}.`;
 			return { ...base, verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
 		}
-		needsKit = margin(opened.w, aperture.w, TRIM_KIT_OVER_MM) > 0 || margin(opened.h, aperture.h, TRIM_KIT_OVER_MM) > 0;
+		needsKit = dash.opening === 'kit' || margin(opened.w, aperture.w, TRIM_KIT_OVER_MM) > 0 || margin(opened.h, aperture.h, TRIM_KIT_OVER_MM) > 0;
 	} else {
 		if (dash.opening === 'single-din' && unit.dinSize === 2) {
 			const reason = `A ${face} does not go into a single-DIN opening (${DIN_APERTURE_MM[1].w} × ${DIN_APERTURE_MM[1].h} mm).`;
 			return { ...base, verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
 		}
+		if (dash.opening === '1.5-din' && unit.dinSize === 2) {
+			const reason = `A ${face} is taller than a 1.5-DIN opening (units about ${ONE_AND_HALF_DIN_FACE_MM.h} mm high); record the measured opening to be sure.`;
+			return { ...base, verdict: 'no-fit', depthMarginMm: null, needsKit: false, reason };
+		}
 		// A smaller unit in a larger opening takes a pocket or trim kit (common practice).
-		needsKit = dash.opening === 'oversize' || (dash.opening === 'double-din' && unit.dinSize === 1);
+		needsKit = dash.opening === 'oversize' || dash.opening === '1.5-din' || (dash.opening === 'double-din' && unit.dinSize === 1);
 	}
 	const kit = needsKit ? ' with a dash kit' : '';
 	if (depth === null) {

@@ -1,6 +1,6 @@
-import type { DashSection, SeatSpace, SpeakerLocation } from './content/schema';
+import type { SeatSpace, SpeakerLocation } from './content/schema';
 import type { Box, DepthFit } from './fit';
-import { dashFit, pickLocation, pickSpace, seatFitReason, seatSpaceFits, speakerFitReason, speakerLocationFits, type LocationFit, type SpaceFit } from './fitCheck';
+import { dashFit, type DashPlace, pickLocation, pickSpace, seatFitReason, seatSpaceFits, speakerFitReason, speakerLocationFits, type LocationFit, type SpaceFit } from './fitCheck';
 import { partBox, partCheck, type Part } from './part';
 import { DEFAULT_CLEARANCE_MM } from './sizeRules';
 import type { UnitSystem } from './units';
@@ -11,7 +11,7 @@ import type { UnitSystem } from './units';
 /** What a fit check reads from a vehicle page. */
 export type FitPlaces = {
 	seats: readonly SeatSpace[];
-	dash: Pick<DashSection, 'opening' | 'depthMm'>;
+	dash: DashPlace;
 	speakers: readonly Pick<SpeakerLocation, 'id' | 'location' | 'cutoutMm' | 'depthMm'>[];
 };
 
@@ -29,7 +29,7 @@ export type FitPlace = { evidenceKey: string; fieldPath: string };
 
 type Checked =
 	| { check: 'seat'; box: Box; clearanceMm: number; chosen: SpaceFit | null; spaces: SpaceFit[] }
-	| { check: 'dash'; clearanceMm: number; dash: Pick<DashSection, 'opening' | 'depthMm'>; result: DepthFit }
+	| { check: 'dash'; clearanceMm: number; dash: DashPlace; result: DepthFit }
 	| { check: 'speaker'; chosen: LocationFit | null; locations: LocationFit[] };
 
 export type FitAnswer<E = unknown> = Checked & {
@@ -65,7 +65,7 @@ export function fitAnswer<E>(places: FitPlaces, question: FitQuestion, evidence:
 	}
 	if (check === 'dash') {
 		const unit = part as Extract<Part, { kind: 'head-unit' }>;
-		const dash = { opening: places.dash.opening, depthMm: places.dash.depthMm };
+		const dash: DashPlace = { opening: places.dash.opening, depthMm: places.dash.depthMm, openingWidthMm: places.dash.openingWidthMm ?? null, openingHeightMm: places.dash.openingHeightMm ?? null };
 		return withPlace({ check, clearanceMm, dash, result: dashFit(unit, dash, { clearanceMm }) }, DASH_PLACE, true);
 	}
 	const speaker = part as Extract<Part, { kind: 'speaker' }>;

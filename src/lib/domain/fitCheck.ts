@@ -1,6 +1,9 @@
 import {
 	DEFAULT_CLEARANCE_MM,
 	DEFAULT_PLUG_ALLOWANCE_MM,
+	DIN_APERTURE_MM,
+	DIN_UNIT_FACE_MM,
+	ONE_AND_HALF_DIN_FACE_MM,
 	type HeadUnitFitOptions,
 	DEFAULT_TIGHT_MM,
 	fitVerdict,
@@ -151,11 +154,30 @@ export function speakerFitReason(fit: LocationFit, units: UnitSystem = 'metric')
 }
 
 /** A head unit against the dash opening and depth. A seat clearance passed along does not apply: depth has its own plug allowance. */
-export function dashFit(unit: Pick<HeadUnit, 'dinSize' | 'chassisDepthMm'>, dash: Pick<DashSection, 'opening' | 'depthMm'>, opts: HeadUnitFitOptions & { clearanceMm?: number } = {}): DepthFit {
+export type DashPlace = Pick<DashSection, 'opening' | 'depthMm'> & Partial<Pick<DashSection, 'openingWidthMm' | 'openingHeightMm'>>;
+
+/** The opening's measured size, when both sides are recorded. */
+export const recordedOpening = (dash: DashPlace): { w: number; h: number } | null =>
+	dash.openingWidthMm && dash.openingHeightMm ? { w: dash.openingWidthMm, h: dash.openingHeightMm } : null;
+
+/**
+ * The opening a drawing shows when none was measured: the ISO 7736 aperture for single and double
+ * DIN, a 1.5-DIN face plus the same 3 mm the aperture allows, and a size a little over double DIN
+ * for an oversize opening (it has no standard size). Null where there is no DIN-like opening.
+ */
+export function nominalOpening(opening: NonNullable<DashSection['opening']>): { w: number; h: number } | null {
+	if (opening === 'single-din') return DIN_APERTURE_MM[1];
+	if (opening === 'double-din') return DIN_APERTURE_MM[2];
+	if (opening === '1.5-din') return { w: DIN_APERTURE_MM[1].w, h: ONE_AND_HALF_DIN_FACE_MM.h + (DIN_APERTURE_MM[1].h - DIN_UNIT_FACE_MM[1].h) };
+	if (opening === 'oversize') return { w: 200, h: 120 };
+	return null;
+}
+
+export function dashFit(unit: Pick<HeadUnit, 'dinSize' | 'chassisDepthMm'>, dash: DashPlace, opts: HeadUnitFitOptions & { clearanceMm?: number } = {}): DepthFit {
 	if (dash.opening === null) {
 		return { verdict: 'not-measured', depthMarginMm: null, needsKit: false, plugAllowanceMm: opts.plugAllowanceMm ?? DEFAULT_PLUG_ALLOWANCE_MM, reason: 'The dash opening is not recorded yet, so nobody can say.' };
 	}
-	return headUnitFit(unit, { opening: dash.opening, depthMm: dash.depthMm }, { plugAllowanceMm: opts.plugAllowanceMm, tightMm: opts.tightMm });
+	return headUnitFit(unit, { opening: dash.opening, depthMm: dash.depthMm, openingMm: recordedOpening(dash) }, { plugAllowanceMm: opts.plugAllowanceMm, tightMm: opts.tightMm });
 }
 
 export { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM };

@@ -1,7 +1,7 @@
 import { SECTION_KEYS, type SectionKey, type VehicleContent } from './content/schema';
 
 // Which revision last changed each part of a page. A part is a section ("section:seats") or a place
-// the trade measures: "dash", "seat:<id>", "speaker:<id>", "passage:<id>", "run:<id>", "ground:<id>".
+// the trade measures: "dash", "boot", "seat:<id>", "speaker:<id>", "passage:<id>", "run:<id>", "ground:<id>".
 
 export const sectionPart = (section: SectionKey): string => `section:${section}`;
 
@@ -10,7 +10,14 @@ export const sectionPart = (section: SectionKey): string => `section:${section}`
  * its wording (obstacles, grille notes, things to avoid) belongs to its section instead.
  */
 export function placeFigures(content: VehicleContent): Record<string, readonly unknown[]> {
-	const out: Record<string, readonly unknown[]> = { dash: [content.dash.opening, content.dash.depthMm] };
+	const d = content.dash;
+	// The measured opening joins the dash's figures only once recorded, so earlier revisions keep their digests.
+	const opened = d.openingWidthMm !== null || d.openingHeightMm !== null ? [d.openingWidthMm, d.openingHeightMm] : [];
+	const out: Record<string, readonly unknown[]> = { dash: [d.opening, d.depthMm, ...opened] };
+	const b = content.boot;
+	const boot = [b.floorLengthMm, b.depthTopMm, b.floorWidthMm, b.archWidthMm, b.heightMm, b.openingWidthMm, b.openingHeightMm, b.lipHeightMm];
+	// The boot is a place once something of it is measured, so pages without one keep their digests.
+	if (boot.some((v) => v !== null)) out.boot = boot;
 	for (const s of content.seats.spaces) out[`seat:${s.id}`] = [s.seat, s.lengthMm, s.widthMm, s.heightMm];
 	for (const l of content.speakers.locations) out[`speaker:${l.id}`] = [l.cutoutMm, l.depthMm];
 	for (const p of content.firewall.passages) out[`passage:${p.id}`] = [p.location, p.kind, p.pushFrom, p.holeMm];

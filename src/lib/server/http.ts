@@ -42,6 +42,15 @@ export async function readJson<T>(request: Request, schema: ZodType<T>): Promise
 	return parsed.data;
 }
 
+/** The body read ahead without using it up, to see which form of a request was sent; null if not JSON. */
+export async function peekJson(request: Request): Promise<Record<string, unknown> | null> {
+	const raw: unknown = await request
+		.clone()
+		.json()
+		.catch(() => null);
+	return raw && typeof raw === 'object' ? (raw as Record<string, unknown>) : null;
+}
+
 export function queryInt(url: URL, name: string, range: { min: number; max: number }): number | undefined {
 	const raw = url.searchParams.get(name);
 	if (raw === null || raw === '') return undefined;

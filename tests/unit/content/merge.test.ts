@@ -73,7 +73,7 @@ describe('mergeContent, fields', () => {
 
 	it('asks about a null set against a number', () => {
 		const r = sides({ theirs: (c) => (c.dash.depthMm = null), yours: (c) => (c.dash.depthMm = 170) });
-		expect(r.conflicts).toMatchObject([{ path: 'dash.depthMm', base: 165, theirs: null, yours: 170 }]);
+		expect(r.conflicts).toMatchObject([{ path: 'dash.depthMm', base: 225, theirs: null, yours: 170 }]);
 	});
 
 	it('keeps a year range whole when the two ends would cross', () => {

@@ -41,7 +41,7 @@ const seat = (id: string, over: Record<string, unknown> = {}) => ({
 
 describe('sections', () => {
 	it('names every section as a person reads it', () => {
-		expect(SECTION_KEYS).toEqual(['identity', 'power', 'firewall', 'seats', 'dash', 'harness', 'speakers', 'camera', 'removal']);
+		expect(SECTION_KEYS).toEqual(['identity', 'power', 'firewall', 'seats', 'dash', 'harness', 'boot', 'speakers', 'camera', 'removal']);
 		expect(SECTION_KEYS.map((k) => SECTION_NAMES[k])).toEqual([
 			'Identity',
 			'Power & ground',
@@ -49,6 +49,7 @@ describe('sections', () => {
 			'Seat space',
 			'Dash & head unit',
 			'Harness & integration',
+			'Boot & cargo',
 			'Speakers',
 			'Camera & accessories',
 			'Removal & surprises'
@@ -200,7 +201,7 @@ describe('list entries', () => {
 		const sha = 'ab'.repeat(32);
 		const r = parseContent(page((c) => (c.photos = [{ id: sha, section: 'firewall', caption: 'Grommet', alt: 'Grommet' }])));
 		expect(r.success && r.data.photos[0]).toEqual({ id: sha, section: 'firewall', itemId: null, caption: 'Grommet', alt: 'Grommet' });
-		expect(issues(page((c) => (c.photos = [{ id: sha, section: 'boot' }])))['photos.0.section']).toMatch(/^A photo belongs to one of: Identity, Power & ground/);
+		expect(issues(page((c) => (c.photos = [{ id: sha, section: 'trunk' }])))['photos.0.section']).toMatch(/^A photo belongs to one of: Identity, Power & ground/);
 	});
 });
 

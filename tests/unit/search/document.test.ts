@@ -80,7 +80,7 @@ describe('measurement filters', () => {
 		expect(toMicrometres(115.316)).toBe(115_316);
 	});
 
-	it('offers length, width and height for each seat, dash depth and firewall hole size', () => {
+	it('offers length, width and height for each seat, dash depth, firewall hole size and the boot', () => {
 		expect(MEASUREMENTS.map((m) => m.key)).toEqual([
 			'driver-seat-length',
 			'driver-seat-width',
@@ -92,7 +92,13 @@ describe('measurement filters', () => {
 			'rear-seat-width',
 			'rear-seat-height',
 			'dash-depth',
-			'firewall-hole'
+			'firewall-hole',
+			'boot-length',
+			'boot-width',
+			'boot-height',
+			'boot-arch-width',
+			'boot-opening-width',
+			'boot-opening-height'
 		]);
 	});
 });

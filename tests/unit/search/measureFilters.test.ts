@@ -110,3 +110,20 @@ describe('several conditions hold on one and the same seat space', () => {
 		expect(models(withGap, 'measure=passenger-seat-length&op=gte&value=400&measure=passenger-seat-height&op=gte&value=120')).toEqual(['Hazel']);
 	});
 });
+
+describe('boot measurements', () => {
+	// invented boots: a 36 in opening is 914.4 mm (international inch, exact)
+	const engine = engineWith([
+		page('Elm', (c) => Object.assign(c.boot, { floorLengthMm: 950, floorWidthMm: 1050, heightMm: 480, openingWidthMm: inchesToMm('36'), openingHeightMm: 520 })),
+		page('Fir', (c) => Object.assign(c.boot, { floorLengthMm: 700, floorWidthMm: 980, heightMm: 420, archWidthMm: 900 })),
+		page('Gum', () => {})
+	]);
+
+	it('filters on the floor, the arches and the load opening, in mm and inches', () => {
+		expect(models(engine, 'measure=boot-length&op=gte&value=800')).toEqual(['Elm']);
+		expect(models(engine, 'measure=boot-arch-width&op=gte&value=900')).toEqual(['Fir']);
+		expect(models(engine, 'unit=in&measure=boot-opening-width&op=gte&value=36&measure=boot-opening-width&op=lte&value=36')).toEqual(['Elm']);
+		// a boot that records no height is not taken for one that meets the condition
+		expect(models(engine, 'measure=boot-height&op=lte&value=500')).toEqual(['Elm', 'Fir']);
+	});
+});

@@ -14,6 +14,7 @@ export const SECTION_KEYS = [
 	'seats',
 	'dash',
 	'harness',
+	'boot',
 	'speakers',
 	'camera',
 	'removal'
@@ -27,6 +28,7 @@ export const SECTION_NAMES: Readonly<Record<SectionKey, string>> = {
 	seats: 'Seat space',
 	dash: 'Dash & head unit',
 	harness: 'Harness & integration',
+	boot: 'Boot & cargo',
 	speakers: 'Speakers',
 	camera: 'Camera & accessories',
 	removal: 'Removal & surprises'
@@ -79,12 +81,14 @@ export const SEAT_NAMES: Readonly<Record<Seat, string>> = {
 	rear: 'Rear'
 };
 
-export const DASH_OPENINGS = ['single-din', 'double-din', 'oversize', 'integrated'] as const;
+export const DASH_OPENINGS = ['single-din', '1.5-din', 'double-din', 'oversize', 'kit', 'integrated'] as const;
 export type DashOpening = (typeof DASH_OPENINGS)[number];
 export const DASH_OPENING_NAMES: Readonly<Record<DashOpening, string>> = {
 	'single-din': 'Single DIN',
+	'1.5-din': '1.5 DIN',
 	'double-din': 'Double DIN',
 	oversize: 'Oversize',
+	kit: 'Kit opening (the dash kit sets the size)',
 	integrated: 'Integrated (no DIN opening)'
 };
 
@@ -381,6 +385,8 @@ const dashSchema = pageSection('dash', {
 	opening: choice('dash opening', DASH_OPENINGS, DASH_OPENING_NAMES, { edit: { label: 'Opening' }, search: { label: 'Opening' } })
 		.nullable()
 		.default(null),
+	openingWidthMm: mm('measured opening width', { edit: { label: 'Opening width (measured)' } }, 400),
+	openingHeightMm: mm('measured opening height', { edit: { label: 'Opening height (measured)' } }, 400),
 	depthMm: mm('usable chassis depth'),
 	kit: text('dash kit and trim', 300, { edit: { label: 'Dash kit and trim needed', row: 'grid gap-4' }, search: { label: 'Kit' } }),
 	trimSteps: textList('trim removal steps', 'a trim removal step', { edit: { label: 'Trim removal steps, in order', noun: 'step', ordered: true } }),
@@ -422,6 +428,29 @@ const harnessSchema = pageSection('harness', {
 	}).prefault({}),
 	notes: notes('harness notes')
 });
+
+const amps = (label: string, show: Show = {}) =>
+	measure(label, 'amp', { unit: 'A', min: 0, inclusive: false, max: 500, missing: 'leave it empty if not known' }, show);
+
+const bootSchema = pageSection(
+	'boot',
+	{
+		floorLengthMm: mm('floor length', { edit: { label: 'Floor length (lip to seat back, at the floor)' } }),
+		depthTopMm: mm('depth at the top', { edit: { label: 'Depth at the top (where the seat back leans in)' } }),
+		floorWidthMm: mm('floor width'),
+		archWidthMm: mm('width between the wheel arches', { edit: { label: 'Between the wheel arches' } }),
+		heightMm: mm('height to the shelf or cover', { edit: { label: 'Height to the shelf or cover' } }),
+		openingWidthMm: mm('load opening width', { edit: { row: 'grid grid-cols-2 gap-3 sm:grid-cols-3' } }),
+		openingHeightMm: mm('load opening height'),
+		lipHeightMm: mm('lip height', { edit: { label: 'Lip height above the floor' } }, 1000),
+		passThroughWidthMm: mm('rear-seat pass-through width', { edit: { label: 'Pass-through width', row: 'grid grid-cols-2 gap-3 sm:grid-cols-4' } }),
+		passThroughHeightMm: mm('rear-seat pass-through height', { edit: { label: 'Pass-through height' } }),
+		alternatorIdleA: amps('alternator output at idle', { edit: { label: 'Alternator at idle', placeholder: 'e.g. 60' } }),
+		alternatorCruiseA: amps('alternator output at cruise', { edit: { label: 'Alternator at cruise', placeholder: 'e.g. 110' } }),
+		notes: notes('boot & cargo notes')
+	},
+	'The cargo floor up to the shelf or cover, the opening a box goes through, and the alternator figures for the charging budget. Leave a size empty if it was not measured.'
+);
 
 const speakerLocation = section('A speaker location', {
 	id: itemId,
@@ -518,6 +547,7 @@ export const vehicleContentSchema = pageSchema({
 	seats: seatsSchema.prefault({}),
 	dash: dashSchema.prefault({}),
 	harness: harnessSchema.prefault({}),
+	boot: bootSchema.prefault({}),
 	speakers: speakersSchema.prefault({}),
 	camera: cameraSchema.prefault({}),
 	removal: removalSchema.prefault({})
@@ -545,6 +575,7 @@ export type HarnessSection = VehicleContent['harness'];
 export type HarnessWire = HarnessSection['wires'][number];
 export type LadderLine = HarnessSection['ladder']['lines'][number];
 export type LadderButton = LadderLine['buttons'][number];
+export type BootSection = VehicleContent['boot'];
 export type SpeakersSection = VehicleContent['speakers'];
 export type SpeakerLocation = SpeakersSection['locations'][number];
 export type CameraSection = VehicleContent['camera'];

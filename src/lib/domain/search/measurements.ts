@@ -10,6 +10,16 @@ const DIMENSIONS: { key: Dimension; word: string; label: string }[] = [
 	{ key: 'heightMm', word: 'height', label: 'clearance height' }
 ];
 
+// The boot's figures search may filter on, all on its one space.
+const BOOT_FIGURES = [
+	{ key: 'floorLengthMm', word: 'length', label: 'Boot floor length' },
+	{ key: 'floorWidthMm', word: 'width', label: 'Boot floor width' },
+	{ key: 'heightMm', word: 'height', label: 'Boot height to the shelf or cover' },
+	{ key: 'archWidthMm', word: 'arch-width', label: 'Boot width between the wheel arches' },
+	{ key: 'openingWidthMm', word: 'opening-width', label: 'Boot load opening width' },
+	{ key: 'openingHeightMm', word: 'opening-height', label: 'Boot load opening height' }
+] as const;
+
 /** A kind of place measured on a page: each recorded entry's figures, one per measurement of the place. */
 export type MeasurePlace = { key: string; entries(content: VehicleContent): (number | null)[][] };
 
@@ -30,7 +40,11 @@ const seatPlace = (seat: Seat): MeasurePlace => ({
 export const MEASURE_PLACES: readonly MeasurePlace[] = [
 	...SEATS.map(seatPlace),
 	{ key: 'dash', entries: (c) => [[c.dash.depthMm]] },
-	{ key: 'firewall', entries: (c) => c.firewall.passages.map((p) => [p.holeMm]) }
+	{ key: 'firewall', entries: (c) => c.firewall.passages.map((p) => [p.holeMm]) },
+	{
+		key: 'boot',
+		entries: (c) => [BOOT_FIGURES.map((f) => c.boot[f.key])]
+	}
 ];
 
 export const MEASUREMENTS: readonly MeasurementDefinition[] = [
@@ -38,7 +52,8 @@ export const MEASUREMENTS: readonly MeasurementDefinition[] = [
 		DIMENSIONS.map((dim, column) => ({ key: `${seat}-seat-${dim.word}`, label: `${SEAT_NAMES[seat]} seat space ${dim.label}`, section: 'seats' as const, place, column }))
 	),
 	{ key: 'dash-depth', label: 'Dash usable chassis depth', section: 'dash', place: SEATS.length, column: 0 },
-	{ key: 'firewall-hole', label: 'Firewall pass-through hole size', section: 'firewall', place: SEATS.length + 1, column: 0 }
+	{ key: 'firewall-hole', label: 'Firewall pass-through hole size', section: 'firewall', place: SEATS.length + 1, column: 0 },
+	...BOOT_FIGURES.map((f, column) => ({ key: `boot-${f.word}`, label: f.label, section: 'boot' as const, place: SEATS.length + 2, column }))
 ];
 
 export const MEASUREMENT_KEYS = MEASUREMENTS.map((m) => m.key);

@@ -3,6 +3,7 @@
 // truth; this copy is loaded once, patched on every revision this process saves, and caught up with
 // other instances' saves by a cheap look for changed pages.
 import { SeatSpaceIndex, type SeatSpaceRow } from '../../domain/fit';
+import { BootSpaceIndex } from '../../domain/bootFit';
 import { onRevisionWritten } from '../events';
 import { readingRules, rulesKey } from '../services/readingRules';
 import { factsAfter, factsOf, pagesTouchedSince, type SeatFact, type VehicleFacts } from './source';
@@ -17,6 +18,8 @@ export type Built = {
 	seats: SeatFact[];
 	/** Row range of each vehicle in the index, so an edit that keeps the seats' shape is patched in place. */
 	ranges: Map<number, { start: number; count: number; vehicle: number }>;
+	/** Each vehicle's boot, one row per entry of `vehicles`. */
+	boots: BootSpaceIndex;
 };
 
 const facts = new Map<number, VehicleFacts>();
@@ -56,6 +59,7 @@ function remember(f: VehicleFacts, replace = false): void {
 	}
 	// Same seats in the same order: overwrite the columns in place (the typed arrays are the index's storage).
 	built.vehicles[range.vehicle] = f;
+	built.boots.set(range.vehicle, f.boot);
 	f.seats.forEach((s, i) => {
 		const row = range.start + i;
 		built!.index.l[row] = s.l ?? NaN;
@@ -126,7 +130,7 @@ function build(): Built {
 			seats.push(s);
 		}
 	});
-	return { index: new SeatSpaceIndex(rows), vehicles, spaceIds, seats, ranges };
+	return { index: new SeatSpaceIndex(rows), vehicles, spaceIds, seats, ranges, boots: new BootSpaceIndex(vehicles.map((v) => v.boot)) };
 }
 
 /** The index as of now: loaded once, patched on every saved revision, caught up with other instances. */

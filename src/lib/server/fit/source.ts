@@ -3,7 +3,8 @@
 import { Op, QueryTypes } from 'sequelize';
 import { db } from '../db';
 import { Vehicle } from '../db/models';
-import { SEATS, type DashSection, type Seat, type SeatSpace, type SpeakerLocation } from '../../domain/content/schema';
+import type { BootSpace, LoadOpening } from '../../domain/bootFit';
+import { SEATS, type BootSection, type DashSection, type Seat, type SeatSpace, type SpeakerLocation } from '../../domain/content/schema';
 import { vehicleTitle } from '../../domain/slug';
 import type { ReadingRules } from '../../domain/visibility';
 import { INDEX_READER, pageRevisionSql } from '../services/readingRules';
@@ -15,8 +16,9 @@ export type VehicleFacts = {
 	title: string;
 	revisionId: number;
 	seats: { id: string; seat: Seat; l: number | null; w: number | null; h: number | null }[];
-	dash: { opening: DashSection['opening']; depthMm: number | null };
+	dash: { opening: DashSection['opening']; depthMm: number | null; openingWidthMm: number | null; openingHeightMm: number | null };
 	speakers: { id: string; location: string; cutoutMm: number | null; depthMm: number | null }[];
+	boot: { space: BootSpace; opening: LoadOpening };
 };
 
 export type SeatFact = VehicleFacts['seats'][number];
@@ -32,13 +34,15 @@ type FactRow = {
 	seats: unknown;
 	dash: unknown;
 	speakers: unknown;
+	boot: unknown;
 };
 
 const factsSql = (rules: ReadingRules) => `SELECT v.id AS vehicleId, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, mk.name AS make, md.name AS model,
 	r.id AS revisionId,
 	JSON_EXTRACT(r.content, '$.seats.spaces') AS seats,
 	JSON_EXTRACT(r.content, '$.dash') AS dash,
-	JSON_EXTRACT(r.content, '$.speakers.locations') AS speakers
+	JSON_EXTRACT(r.content, '$.speakers.locations') AS speakers,
+	JSON_EXTRACT(r.content, '$.boot') AS boot
 FROM vehicles v
 JOIN makes mk ON mk.id = v.make_id
 JOIN models md ON md.id = v.model_id
@@ -62,6 +66,7 @@ function toFacts(row: FactRow): VehicleFacts {
 	const seats = json<Partial<SeatSpace>[]>(row.seats, []);
 	const dash = json<Partial<DashSection>>(row.dash, {});
 	const speakers = json<Partial<SpeakerLocation>[]>(row.speakers, []);
+	const boot = json<Partial<BootSection>>(row.boot, {});
 	return {
 		vehicleId: Number(row.vehicleId),
 		slug: row.slug,
@@ -70,10 +75,14 @@ function toFacts(row: FactRow): VehicleFacts {
 		seats: seats
 			.filter((s) => typeof s.id === 'string' && (SEATS as readonly string[]).includes(s.seat as string))
 			.map((s) => ({ id: s.id!, seat: s.seat!, l: mmOrNull(s.lengthMm), w: mmOrNull(s.widthMm), h: mmOrNull(s.heightMm) })),
-		dash: { opening: dash.opening ?? null, depthMm: mmOrNull(dash.depthMm) },
+		dash: { opening: dash.opening ?? null, depthMm: mmOrNull(dash.depthMm), openingWidthMm: mmOrNull(dash.openingWidthMm), openingHeightMm: mmOrNull(dash.openingHeightMm) },
 		speakers: speakers
 			.filter((s) => typeof s.id === 'string')
-			.map((s) => ({ id: s.id!, location: s.location || 'Unnamed location', cutoutMm: mmOrNull(s.cutoutMm), depthMm: mmOrNull(s.depthMm) }))
+			.map((s) => ({ id: s.id!, location: s.location || 'Unnamed location', cutoutMm: mmOrNull(s.cutoutMm), depthMm: mmOrNull(s.depthMm) })),
+		boot: {
+			space: { l: mmOrNull(boot.floorLengthMm), lTop: mmOrNull(boot.depthTopMm), w: mmOrNull(boot.floorWidthMm), archW: mmOrNull(boot.archWidthMm), h: mmOrNull(boot.heightMm) },
+			opening: { w: mmOrNull(boot.openingWidthMm), h: mmOrNull(boot.openingHeightMm) }
+		}
 	};
 }
 

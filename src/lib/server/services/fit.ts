@@ -2,7 +2,7 @@ import { fitVerdict, SEAT_INDEX_SLACK_MM, type Axis, type Box, type FitVerdict }
 import { dashFit, speakerLocationFits } from '../../domain/fitCheck';
 import { fitAnswer, type FitAnswer, type FitPlaces } from '../../domain/fitAnswer';
 import { boxSchema, reverseOptionsSchema, vehicleFitSchema, type ReverseOptions, type VehicleFitRequest } from '../../domain/fitRequest';
-import { SEATS } from '../../domain/content/schema';
+import { SEATS, type BootSection } from '../../domain/content/schema';
 import { partBox, type Part } from '../../domain/part';
 import { measurementOrigins, placeReaders, type Evidence } from './evidence';
 import { requireVehicle, type VehicleSummary } from './vehicles';
@@ -21,7 +21,7 @@ export type VehicleFitFacts = {
 	vehicle: VehicleSummary;
 	revisionId: number;
 	/** The dash also carries its kit notes, which the fit screen shows beside a head unit's answer. */
-	places: FitPlaces & { dash: FitPlaces['dash'] & { kit: string } };
+	places: FitPlaces & { dash: FitPlaces['dash'] & { kit: string }; boot: BootSection };
 	evidence: Record<string, Evidence>;
 };
 
@@ -33,7 +33,7 @@ export async function vehicleFitFacts(vehicle: VehicleSummary, reader: Reader): 
 	return {
 		vehicle,
 		revisionId: rev.id,
-		places: { seats: c.seats.spaces, dash: { opening: c.dash.opening, depthMm: c.dash.depthMm, kit: c.dash.kit }, speakers: c.speakers.locations },
+		places: { seats: c.seats.spaces, dash: { opening: c.dash.opening, depthMm: c.dash.depthMm, openingWidthMm: c.dash.openingWidthMm, openingHeightMm: c.dash.openingHeightMm, kit: c.dash.kit }, speakers: c.speakers.locations, boot: c.boot },
 		evidence: await measurementOrigins(rev, placeReaders(c))
 	};
 }

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
-import { apiCall, readJson } from '$lib/server/http';
+import { apiCall, peekJson, readJson } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
 import { checkVehicleFit, vehiclesForBox, vehiclesForPart } from '$lib/server/services/fit';
 import { requirePart } from '$lib/server/services/parts';
@@ -13,11 +13,7 @@ import { againstPageSchema, boxAgainstSpaceSchema, reverseQuerySchema } from '$l
 export const POST: RequestHandler = ({ locals, request }) =>
 	apiCall(async () => {
 		const user = requireRole(locals, 'viewer');
-		const raw = await request
-			.clone()
-			.json()
-			.catch(() => null);
-		if (raw && typeof raw === 'object' && 'space' in raw) {
+		if ('space' in ((await peekJson(request)) ?? {})) {
 			const body = await readJson(request, boxAgainstSpaceSchema);
 			const r = fitVerdict(body.box, body.space, { clearanceMm: body.marginMm, tightMm: body.tightMm });
 			return json({ verdict: r.verdict, rotated: r.rotated, margins: r.margins, limiting: r.limiting });
