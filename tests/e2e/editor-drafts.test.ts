@@ -83,11 +83,11 @@ describe('typed work in the editor is never lost', () => {
 		const other = await openBrowser(DESKTOP);
 		const moderator = await other.context.newPage();
 		await signIn(moderator, 'moderator');
-		const protect = (protection: string) => moderator.request.post(`${BASE}/vehicles/${LOCKED}/history?/protect`, { form: { protection }, headers: { origin: BASE } });
+		const protect = (protection: string) => moderator.request.post(`${BASE}/vehicles/${LOCKED}/history?/lock`, { form: { protection }, headers: { origin: BASE } });
 		expect((await protect('moderators')).status()).toBe(200);
 		try {
 			await page.click('button:has-text("Save revision")');
-			const alert = page.getByRole('alert').filter({ hasText: /protected this page while you were editing/ });
+			const alert = page.getByRole('alert').filter({ hasText: /locked this page while you were editing/ });
 			await alert.waitFor();
 			expect(new URL(page.url()).pathname).toBe(`/vehicles/${LOCKED}/edit`);
 			expect(await page.inputValue(HEIGHT)).toBe('101');
