@@ -37,6 +37,11 @@ async function latest(slug: string) {
 	return { vehicle: v, rev: (await revisionById(v.latestRevisionId!))! };
 }
 
+const trustOf = async (slug: string) => {
+	const { vehicle } = await latest(slug);
+	return trustSummary(vehicle.id, vehicle.latestRevisionId);
+};
+
 let tarrow = '';
 let pimm = '';
 
@@ -246,7 +251,7 @@ describe('trust marks', () => {
 		expect(first.created).toBe(true);
 		expect(again).toEqual({ id: first.id, created: false });
 		await confirmPage(vehicle.id, {}, secondViewer);
-		const summary = await trustSummary((await latest(tarrow)).vehicle);
+		const summary = await trustOf(tarrow);
 		expect(summary.confirmations).toMatchObject({ installers: 2, onCurrentRevision: 2, latest: { by: 'Installer Two' } });
 		const current = await revisionById(vehicle.latestRevisionId!);
 		expect(flaggableFields(current!.content).map((f) => f.path)).toContain('seats.spaces[drv].heightMm');
@@ -255,7 +260,7 @@ describe('trust marks', () => {
 	it('keeps a flag open until the flagged field changes', async () => {
 		const { vehicle, rev } = await latest(tarrow);
 		await flagField(vehicle.id, { fieldPath: 'seats.spaces[drv].heightMm', note: 'Only 55 mm with the seat fully down.' }, viewer);
-		let summary = await trustSummary((await latest(tarrow)).vehicle);
+		let summary = await trustOf(tarrow);
 		expect(summary.openFlags).toEqual([
 			expect.objectContaining({ fieldPath: 'seats.spaces[drv].heightMm', label: 'Driver seat space, height', by: 'Installer One', value: '60 mm' })
 		]);
@@ -265,11 +270,11 @@ describe('trust marks', () => {
 		const other = structuredClone(rev.content);
 		other.dash.depthMm = 186;
 		const saved = await saveRevision(vehicle.id, { baseRevisionId: rev.id, content: other, summary: 'dash depth' }, writer);
-		expect((await trustSummary((await latest(tarrow)).vehicle)).openFlags).toHaveLength(1);
+		expect((await trustOf(tarrow)).openFlags).toHaveLength(1);
 		const fixed = structuredClone(other);
 		fixed.seats.spaces[0].heightMm = 55;
 		await saveRevision(vehicle.id, { baseRevisionId: saved.revisionId, content: fixed, summary: 'driver seat height corrected' }, writer);
-		summary = await trustSummary((await latest(tarrow)).vehicle);
+		summary = await trustOf(tarrow);
 		expect(summary.openFlags).toEqual([]);
 		expect(summary.closedFlags).toBe(1);
 		// the earlier confirmations still count, but not on this revision

@@ -17,7 +17,8 @@ import {
 	setRevisionHidden
 } from '../../src/lib/server/services/revisions';
 import { markReviewed, setReviewBeforeShow } from '../../src/lib/server/services/review';
-import { catalogue, listVehicles, vehicleById } from '../../src/lib/server/services/vehicles';
+import { catalogue, listVehicles, vehicleById, vehicleBySlug } from '../../src/lib/server/services/vehicles';
+import { confirmPage, flagField, trustSummary } from '../../src/lib/server/services/trust';
 import { pageRevision, readableRevision, requirePageRevision } from '../../src/lib/server/services/visibility';
 import { photoVisibleTo } from '../../src/lib/server/services/photos';
 import { checkVehicleFit, vehicleFitFacts, vehiclesForBox } from '../../src/lib/server/services/fit';
@@ -263,5 +264,59 @@ describe('hides and sign-offs made on another app server', () => {
 		forgetAllRevisionFlags();
 		expect((await readableRevision(A.id, revision, viewer))?.content.identity.notes).toBe('wordotherserver');
 		expect((await pageRevision(await page(A.id), viewer)).revision?.id).toBe(revision);
+	});
+});
+
+describe('a page renamed by a change nobody has signed off', () => {
+	let C = { id: 0, slug: '' };
+	beforeAll(async () => {
+		const made = await createVehicle(emptyContent({ make: 'Ostrel', model: 'Corvin', yearFrom: 2010, yearTo: 2014, body: 'sedan' }), moderator);
+		C = { id: (await Vehicle.findOne({ where: { slug: made.slug } }))!.id, slug: made.slug };
+	});
+
+	it('keeps the signed-off name in lists, the catalogue and its address until a moderator signs the rename off', async () => {
+		const rename = await edit(C.id, editor, (c) => (c.identity.model = 'Wordrenamed'), 'Rename');
+		const row = await page(C.id);
+		expect(row.slug).toBe(C.slug);
+		expect(row.title).toBe('Ostrel Corvin 2010–2014');
+		expect((await listVehicles(viewer, {})).items.map((v) => v.title)).not.toContain(expect.stringContaining('Wordrenamed'));
+		expect((await catalogue(viewer)).flatMap((m) => m.models.map((mo) => mo.name))).not.toContain('Wordrenamed');
+		// The writer reads the new name in the page itself.
+		expect((await pageRevision(row, editor)).revision?.content.identity.model).toBe('Wordrenamed');
+
+		await markReviewed(rename, moderator);
+		const signed = await page(C.id);
+		expect(signed.title).toBe('Ostrel Wordrenamed 2010–2014');
+		expect(signed.slug).not.toBe(C.slug);
+		// The old address still leads to the page.
+		expect(await vehicleBySlug(C.slug)).toMatchObject({ redirectTo: signed.slug });
+	});
+
+	it('takes a moderator’s rename at once, and waiting renames when sign-off is switched off', async () => {
+		await edit(C.id, moderator, (c) => (c.identity.model = 'Corvin'), 'Name back');
+		expect((await page(C.id)).title).toBe('Ostrel Corvin 2010–2014');
+		await edit(C.id, editor, (c) => (c.identity.yearTo = 2016), 'Years');
+		expect((await page(C.id)).yearTo).toBe(2014);
+		await setReviewBeforeShow(false, admin);
+		try {
+			expect((await page(C.id)).yearTo).toBe(2016);
+		} finally {
+			await setReviewBeforeShow(true, admin);
+		}
+	});
+
+	it('labels trust marks from the revision the reader reads, and lets a viewer mark that revision', async () => {
+		await edit(C.id, moderator, (c) => (c.seats.spaces = [seatSpace('s1', 'driver', 400, 300, 100)]), 'Seat');
+		const signedId = (await page(C.id)).latestRevisionId!;
+		await edit(C.id, editor, (c) => (c.seats.spaces = [seatSpace('s1', 'driver', 700, 300, 100)]), 'Seat longer');
+		const latestId = (await page(C.id)).latestRevisionId!;
+		expect((await pageRevision(await page(C.id), viewer)).revision?.id).toBe(signedId);
+		// A viewer marks what they read; before, the unsigned newer revision made every viewer's mark a 409.
+		await expect(confirmPage(C.id, { revisionId: signedId }, viewer)).resolves.toMatchObject({ created: true });
+		await expect(confirmPage(C.id, { revisionId: latestId }, viewer)).rejects.toMatchObject({ status: 409 });
+		await flagField(C.id, { revisionId: signedId, fieldPath: 'seats.spaces[s1].lengthMm', note: 'length looks short' }, viewer);
+		const forViewer = await trustSummary(C.id, signedId);
+		expect(forViewer.openFlags[0].value).toContain('400');
+		expect(JSON.stringify(forViewer)).not.toContain('700');
 	});
 });

@@ -23,8 +23,9 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	if (slug) {
 		try {
 			const v = await requireVehicle(slug);
-			const [facts, trust] = await Promise.all([vehicleFitFacts(v, user), trustSummary(v, locals.units)]);
+			const facts = await vehicleFitFacts(v, user);
 			if (facts) {
+				const trust = await trustSummary(v.id, facts.revisionId, locals.units);
 				vehicle = {
 					slug: v.slug,
 					title: v.title,

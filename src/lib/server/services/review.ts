@@ -1,4 +1,6 @@
+import { QueryTypes } from 'sequelize';
 import { db } from '../db';
+import { OPEN_RULES } from '../../domain/visibility';
 import { Revision, Setting } from '../db/models';
 import { roleAtLeast } from '../../domain/roles';
 import type { SessionUser } from '../../domain/sessionUser';
@@ -40,6 +42,15 @@ export async function setReviewBeforeShow(on: boolean, actor: SessionUser, now =
 	await db().transaction(async (transaction) => {
 		await Setting.upsert({ name: 'reviewBeforeShow', value: String(on) }, { transaction });
 		if (on) await Setting.upsert({ name: 'reviewBeforeShowSince', value: now.toISOString() }, { transaction });
+		// Switching sign-off off opens every waiting change at once, renames included.
+		if (!on) {
+			const since = current.reviewBeforeShowSince ? new Date(current.reviewBeforeShowSince) : new Date(0);
+			const waiting = await db().query<{ id: number }>(
+				'SELECT DISTINCT vehicle_id AS id FROM revisions WHERE reviewed_at IS NULL AND created_at >= ? ORDER BY vehicle_id',
+				{ replacements: [since], type: QueryTypes.SELECT, transaction }
+			);
+			for (const { id } of waiting) await touchVehicle(Number(id), transaction, OPEN_RULES);
+		}
 		await recordAudit(
 			{ actorId: actor.id, action: 'setting.change', targetType: 'setting', targetId: 'reviewBeforeShow', details: { from: current.reviewBeforeShow, to: on } },
 			transaction

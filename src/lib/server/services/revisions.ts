@@ -1,12 +1,12 @@
 import { createHash } from 'node:crypto';
 import { literal, Op, type Transaction } from 'sequelize';
 import { db } from '../db';
-import { Make, RenderedNotesRow, Revision, User, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
+import { Make, RenderedNotesRow, Revision, User, Vehicle, VehicleModel } from '../db/models';
 import { canonicalJson, formatZodIssues, parseContent, SECTION_KEYS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
 import { mergeContent } from '../../domain/content/merge';
 import { fieldChanges, notesChanges } from '../../domain/content/fieldDiff';
 import { roleAtLeast, type Role } from '../../domain/roles';
-import { slugify, vehicleSlug, vehicleTitle } from '../../domain/slug';
+import { vehicleSlug, vehicleTitle } from '../../domain/slug';
 import type { SessionUser } from '../../domain/sessionUser';
 import { ensureRenderedNotes, NOTES_RENDERER_VERSION, storeRenderedNotes, type RenderedNotes } from './rendering';
 import { recordOrigins } from '../history/origins';
@@ -16,7 +16,8 @@ import { announceRevision, announceVehicleChange } from '../events';
 import { EditConflictError, NoChangeError, ServiceError } from '../errors';
 import { refuseBlockedAuthor } from './blocks';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
-import { mayReadRevision, readsHidden, type Reader } from '../../domain/visibility';
+import { mayReadRevision, readsHidden, type Reader, type ReadingRules } from '../../domain/visibility';
+import { namingColumns, refuseTakenName, settlePageName } from './pageName';
 import { readingRules, signedOffSql } from './readingRules';
 
 export type StoredRevision = {
@@ -149,18 +150,6 @@ function changedSections(before: VehicleContent | null, after: VehicleContent): 
 	return SECTION_KEYS.filter((k) => keys.has(k));
 }
 
-async function catalogueIds(content: VehicleContent, transaction: Transaction): Promise<{ makeId: number; modelId: number }> {
-	const { make: makeName, model: modelName } = content.identity;
-	const [make] = await Make.findOrCreate({ where: { name: makeName }, defaults: { name: makeName, slug: slugify(makeName) }, transaction });
-	const modelSlug = slugify(modelName);
-	const [model] = await VehicleModel.findOrCreate({
-		where: { makeId: make.id, slug: modelSlug },
-		defaults: { makeId: make.id, name: modelName, slug: modelSlug },
-		transaction
-	});
-	return { makeId: make.id, modelId: model.id };
-}
-
 /** Writes one revision and moves the page to it; the caller holds the vehicle row lock. */
 async function insertRevision(
 	vehicle: Vehicle,
@@ -203,23 +192,9 @@ async function insertRevision(
 			transaction
 		});
 	}
-	const identity = content.identity;
-	const slug = vehicleSlug(identity);
-	if (slug !== vehicle.slug) {
-		const taken = await Vehicle.findOne({ where: { slug, id: { [Op.ne]: vehicle.id } }, transaction });
-		if (taken) {
-			throw new ServiceError('Another page already covers that make, model, years and body. Edit that page instead.', 409, {
-				'identity.model': 'Another page already has this make, model, year range and body.'
-			});
-		}
-		if (vehicle.slug) await VehicleSlug.upsert({ slug: vehicle.slug, vehicleId: vehicle.id }, { transaction });
-		await VehicleSlug.destroy({ where: { slug }, transaction });
-	}
-	const ids = await catalogueIds(content, transaction);
-	await vehicle.update(
-		{ slug, ...ids, yearFrom: identity.yearFrom, yearTo: identity.yearTo, body: identity.body, latestRevisionId: Number(row.id) },
-		{ transaction }
-	);
+	await refuseTakenName(Number(vehicle.id), content.identity, transaction);
+	await vehicle.update({ latestRevisionId: Number(row.id) }, { transaction });
+	await settlePageName(vehicle, transaction);
 	return row;
 }
 
@@ -234,11 +209,7 @@ export async function createVehicle(input: unknown, author: SessionUser, summary
 				'identity.model': 'A page with this make, model, year range and body already exists.'
 			});
 		}
-		const ids = await catalogueIds(content, transaction);
-		const vehicle = await Vehicle.create(
-			{ slug, ...ids, yearFrom: content.identity.yearFrom, yearTo: content.identity.yearTo, body: content.identity.body, latestRevisionId: null },
-			{ transaction }
-		);
+		const vehicle = await Vehicle.create({ ...(await namingColumns(content.identity, transaction)), latestRevisionId: null }, { transaction });
 		const row = await insertRevision(vehicle, null, content, { authorId: author.id, authorRole: author.role, summary: summary || 'New page' }, transaction);
 		return { slug: vehicle.slug, revisionId: Number(row.id), vehicleId: vehicle.id };
 	});
@@ -310,8 +281,13 @@ export async function restoreRevision(vehicleId: number, revisionId: number, act
 	return result;
 }
 
-/** A change to who reads a page's revisions: other app servers' indexes look for touched pages. */
-export async function touchVehicle(vehicleId: number, transaction: Transaction): Promise<void> {
+/**
+ * A change to who reads a page's revisions: the page takes the name viewers now read, and other app servers'
+ * indexes look for touched pages.
+ */
+export async function touchVehicle(vehicleId: number, transaction: Transaction, rules?: ReadingRules): Promise<void> {
+	const vehicle = await Vehicle.findByPk(vehicleId, { transaction, lock: transaction.LOCK.UPDATE });
+	if (vehicle) await settlePageName(vehicle, transaction, rules);
 	await db().query('UPDATE vehicles SET updated_at = CURRENT_TIMESTAMP(3) WHERE id = ?', { replacements: [vehicleId], transaction });
 }
 

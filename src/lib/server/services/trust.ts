@@ -8,6 +8,7 @@ import type { UnitSystem } from '../../domain/units';
 import type { SessionUser } from '../../domain/sessionUser';
 import { roleAtLeast } from '../../domain/roles';
 import { revisionById } from './revisions';
+import { pageRevision } from './visibility';
 import { ServiceError } from '../errors';
 import { onRevisionWritten } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
@@ -74,16 +75,16 @@ function requireInstaller(user: SessionUser): void {
 	if (!roleAtLeast(user.role, 'viewer')) throw new ServiceError('Sign in to mark a page.', 403);
 }
 
-async function currentFor(vehicleId: number, revisionId?: number) {
+async function currentFor(vehicleId: number, user: SessionUser, revisionId?: number) {
 	const vehicle = await Vehicle.findByPk(vehicleId);
 	if (!vehicle || !vehicle.latestRevisionId) throw new ServiceError('No vehicle page at this address.', 404);
-	const latestId = Number(vehicle.latestRevisionId);
-	// A mark is for what the installer read: an older revision is refused so nobody confirms a page that has since changed.
-	if (revisionId !== undefined && revisionId !== latestId) {
+	// A mark is for what the installer read (the revision this person reads as the page): anything else is
+	// refused so nobody confirms a page that has since changed.
+	const { revision } = await pageRevision({ id: Number(vehicle.id), latestRevisionId: Number(vehicle.latestRevisionId) }, user);
+	if (!revision) throw new ServiceError('No vehicle page at this address.', 404);
+	if (revisionId !== undefined && revisionId !== revision.id) {
 		throw new ServiceError('The page changed since you opened it; read the current revision and mark it again.', 409);
 	}
-	const revision = await revisionById(latestId);
-	if (!revision) throw new ServiceError('No vehicle page at this address.', 404);
 	return revision;
 }
 
@@ -92,7 +93,7 @@ export async function confirmPage(vehicleId: number, input: unknown, user: Sessi
 	requireInstaller(user);
 	const parsed = trustMarkSchema.safeParse(input ?? {});
 	if (!parsed.success) throw new ServiceError(parsed.error.issues[0].message, 400, { note: parsed.error.issues[0].message });
-	const revision = await currentFor(vehicleId, parsed.data.revisionId);
+	const revision = await currentFor(vehicleId, user, parsed.data.revisionId);
 	const result = await db().transaction(async (transaction) => {
 		const existing = await Confirmation.findOne({
 			where: { vehicleId, revisionId: revision.id, userId: user.id, kind: 'confirm' },
@@ -120,7 +121,7 @@ export async function flagField(vehicleId: number, input: unknown, user: Session
 		for (const i of parsed.error.issues) errors[String(i.path[0] ?? 'form')] ??= i.message;
 		throw new ServiceError(Object.values(errors)[0], 400, errors);
 	}
-	const revision = await currentFor(vehicleId, parsed.data.revisionId);
+	const revision = await currentFor(vehicleId, user, parsed.data.revisionId);
 	const { fieldPath, note } = parsed.data;
 	if (fieldPath !== null) {
 		const problem = 'Pick a field that is on the current page.';
@@ -155,10 +156,13 @@ export async function flagField(vehicleId: number, input: unknown, user: Session
 
 const same = (a: unknown, b: unknown) => canonicalJson(a ?? null) === canonicalJson(b ?? null);
 
-/** What the reading view, the fit check and the job sheet show as trust for a page, as of its latest revision. */
-export async function trustSummary(vehicle: { id: number; latestRevisionId: number | null }, units: UnitSystem = 'metric'): Promise<TrustSummary> {
-	const key = `${vehicle.id}:${vehicle.latestRevisionId}:${units}`;
-	return summaries.get(key, () => computeTrustSummary(vehicle.id, vehicle.latestRevisionId, units));
+/**
+ * What the reading view, the fit check and the job sheet show as trust for a page, as of the revision the
+ * reader reads as the page (labels and values never come from a revision they may not read).
+ */
+export async function trustSummary(vehicleId: number, readerRevisionId: number | null, units: UnitSystem = 'metric'): Promise<TrustSummary> {
+	const key = `${vehicleId}:${readerRevisionId}:${units}`;
+	return summaries.get(key, () => computeTrustSummary(vehicleId, readerRevisionId, units));
 }
 
 async function computeTrustSummary(vehicleId: number, currentId: number | null, units: UnitSystem): Promise<TrustSummary> {

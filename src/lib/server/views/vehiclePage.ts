@@ -5,6 +5,7 @@ import { pageRevision } from '../services/visibility';
 import { isWatching } from '../services/watch';
 import { trustSummary } from '../services/trust';
 import { canEditVehicle } from '../services/revisions';
+import { vehicleSlug } from '../../domain/slug';
 import { deliverBody, vehicleBody } from '../render/vehicleBody';
 
 type VehiclePageEvent = Pick<RequestEvent<{ slug: string }>, 'locals' | 'params' | 'url' | 'isDataRequest'>;
@@ -16,14 +17,11 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 	if (!found) error(404, 'No vehicle page at this address.');
 	if ('redirectTo' in found) redirect(301, `/vehicles/${found.redirectTo}`);
 	const { vehicle } = found;
-	const [{ revision, newerAwaitingReview }, watching, trust] = await Promise.all([
-		pageRevision(vehicle, user),
-		isWatching(user.id, vehicle.id),
-		trustSummary(vehicle, locals.units)
-	]);
+	const [{ revision, newerAwaitingReview }, watching] = await Promise.all([pageRevision(vehicle, user), isWatching(user.id, vehicle.id)]);
 	if (!revision) {
 		error(404, newerAwaitingReview ? 'This new page is awaiting sign-off by a moderator.' : 'This vehicle page has no saved revision yet.');
 	}
+	const trust = await trustSummary(vehicle.id, revision.id, locals.units);
 	const saved = Number(url.searchParams.get('saved'));
 	// The identity notes are in the cached fragments; the header needs only the names and years.
 	const { notes: _notes, ...identity } = revision.content.identity;
@@ -39,6 +37,8 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 		watching,
 		trust,
 		newerAwaitingReview,
+		// A rename waiting for sign-off: lists, search and the address keep the signed-off name until then.
+		listedAs: vehicleSlug(revision.content.identity) === vehicle.slug ? null : vehicle.title,
 		units: locals.units,
 		flash: Number.isInteger(saved) && saved > 0 ? { revisionId: saved, merged: url.searchParams.get('merged') === '1' } : null
 	};

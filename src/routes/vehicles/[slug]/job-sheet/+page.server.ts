@@ -21,7 +21,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		const [parts, catalogue, trust, evidence] = await Promise.all([
 			partsByIds(partIds),
 			listParts(),
-			trustSummary(vehicle, locals.units),
+			trustSummary(vehicle.id, rev.id, locals.units),
 			measurementOrigins(rev, placeReaders(rev.content))
 		]);
 

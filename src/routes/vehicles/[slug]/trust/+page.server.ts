@@ -20,7 +20,8 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = requireRole(locals, 'viewer');
 	try {
 		const vehicle = await requireVehicle(params.slug);
-		const [trust, { revision: current }] = await Promise.all([trustSummary(vehicle, locals.units), pageRevision(vehicle, user)]);
+		const { revision: current } = await pageRevision(vehicle, user);
+		const trust = await trustSummary(vehicle.id, current?.id ?? null, locals.units);
 		return { vehicle: { slug: vehicle.slug, title: vehicle.title }, trust, fields: current ? flaggableFields(current.content) : [] };
 	} catch (err) {
 		asHttpError(err);
