@@ -21,12 +21,16 @@ const stamp = randomBytes(3).toString('hex');
 const HIDDEN = `sentinelhidden${stamp}`;
 const UNSIGNED = `sentinelunsigned${stamp}`;
 const NEW_PAGE = `Sentinelnew${stamp}`;
+// A rename nobody signed off: lists, search and addresses keep the signed-off name for viewers.
+const RENAMED = `Sentinelrenamed${stamp}`;
 
 /** What each sentinel's readers may be. */
 const MAY_SEE: Record<string, Identity[]> = {
 	[HIDDEN]: ['moderator', 'admin'],
 	[UNSIGNED]: ['editor', 'moderator', 'admin'],
-	[NEW_PAGE.toLowerCase()]: ['editor', 'moderator', 'admin']
+	[NEW_PAGE.toLowerCase()]: ['editor', 'moderator', 'admin'],
+	[RENAMED]: ['editor', 'moderator', 'admin'],
+	[RENAMED.toLowerCase()]: ['editor', 'moderator', 'admin']
 };
 
 // ---- The routes, read from the source tree ----
@@ -71,6 +75,7 @@ let hiddenSlug = '';
 let unsignedSlug = '';
 let hiddenRevisionId = 0;
 let unsignedRevisionId = 0;
+let unsignedModel = '';
 let visibleRevisionId = 0;
 /** A photo shown only in hidden revisions (uploaded by a moderator), and one shown only in an unsigned-off change. */
 let hiddenPhotoId = '';
@@ -96,11 +101,12 @@ async function jsonOf(res: APIResponse) {
 	return res.json();
 }
 
-async function saveNotes(who: Identity, slug: string, text: string, summary: string, dropPhoto?: string): Promise<number> {
+async function saveNotes(who: Identity, slug: string, text: string, summary: string, dropPhoto?: string, model?: string): Promise<number> {
 	const ctx = people.get(who)!;
 	const page = await jsonOf(await ctx.get(`/api/vehicles/${slug}`));
 	const content = structuredClone(page.content);
 	content.identity.notes = text;
+	if (model) content.identity.model = model;
 	if (dropPhoto) content.photos = content.photos.filter((p: { id: string }) => p.id !== dropPhoto);
 	content.seats.notes = `Also under the seat: ${text}`;
 	const saved = await jsonOf(await ctx.put(`/api/vehicles/${slug}`, { data: { baseRevisionId: page.revisionId, content, summary } }));
@@ -201,7 +207,7 @@ function pointedProbes(): string[] {
 			`/vehicles/${slug}/history?revision=${id}`
 		);
 	}
-	for (const q of [HIDDEN, UNSIGNED, NEW_PAGE]) out.push(`/api/search?q=${q}`);
+	for (const q of [HIDDEN, UNSIGNED, NEW_PAGE, RENAMED]) out.push(`/api/search?q=${q}`);
 	// The search page shows the words typed back in its box, so it is asked for the words beside each sentinel.
 	for (const q of ['customer phone', 'unchecked figure', 'Quillan']) out.push(`/search?q=${encodeURIComponent(q)}`, `/api/search?q=${encodeURIComponent(q)}`);
 	out.push('/shop-log', '/shop-log?awaiting=1', '/vehicles', `/api/vehicles?make=Quillan`, '/', '/following');
@@ -251,7 +257,8 @@ describe('the perimeter, tried as an attacker would', () => {
 
 		// With sign-off required, a change nobody signed off yet and a brand-new page.
 		await setSignOff(true);
-		unsignedRevisionId = await saveNotes('editor', unsignedSlug, `Unchecked figure ${UNSIGNED}`, `Unchecked change ${UNSIGNED}`);
+		unsignedModel = (await jsonOf(await people.get('viewer')!.get(`/api/vehicles/${unsignedSlug}`))).content.identity.model;
+		unsignedRevisionId = await saveNotes('editor', unsignedSlug, `Unchecked figure ${UNSIGNED}`, `Unchecked change ${UNSIGNED}`, undefined, RENAMED);
 		unsignedPhotoId = (await uploadPhoto('editor', unsignedSlug)).id;
 		const created = await people.get('editor')!.post('/vehicles/new', {
 			form: { make: 'Quillan', model: NEW_PAGE, yearFrom: '2020', yearTo: '2022', body: 'sedan', market: '', aliases: '' },
@@ -261,6 +268,8 @@ describe('the perimeter, tried as an attacker would', () => {
 	}, 120_000);
 
 	afterAll(async () => {
+		// The sample page gets its own name back (a moderator's change needs no sign-off) before sign-off is switched off.
+		if (unsignedModel && people.has('moderator')) await saveNotes('moderator', unsignedSlug, 'Notes checked', 'Name back', undefined, unsignedModel).catch(() => undefined);
 		if (people.has('admin')) await setSignOff(false).catch(() => undefined);
 		// The naughty round renames each person through their account form: later files read the sample names.
 		for (const who of IDENTITIES.filter((w) => w !== 'anonymous' && people.has(w))) {
