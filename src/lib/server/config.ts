@@ -75,6 +75,7 @@ const envSchema = z.object({
 	SMTP_PASS: optional(z.string()),
 	MAIL_FROM: optional(z.string()),
 	MAIL_CAPTURE_DIR: optional(z.string()),
+	MAIL_QUEUE_INTERVAL_MS: optional(wholeNumber(100)),
 	VIN_DECODE_URL: optional(address),
 	VIN_DECODE_KEY: optional(z.string()),
 	VIN_DECODE_TIMEOUT_MS: optional(wholeNumber(1)),
@@ -160,7 +161,9 @@ export function readConfig(env: Env = process.env) {
 			pass: e.SMTP_PASS ?? null,
 			from: e.MAIL_FROM ?? 'Kickpanel <no-reply@kickpanel.test>',
 			capturePort,
-			captureDir: e.MAIL_CAPTURE_DIR ?? '.data/outbox'
+			captureDir: e.MAIL_CAPTURE_DIR ?? '.data/outbox',
+			/** How often each app server looks for queued mail that is due. */
+			queueIntervalMs: e.MAIL_QUEUE_INTERVAL_MS ?? 15_000
 		},
 		vin: {
 			/** Unset: the local fake decoder answers. */

@@ -2,6 +2,7 @@ import { authSecret } from './config';
 import { databaseIsUp } from './db';
 import { warmSeatSpaceIndex } from './fit';
 import { startWatchNotices } from './services/watch';
+import { startMailQueue } from './mail/queue';
 import { searchIndex, stopSearchIndex } from './search';
 
 /** Work done once when the server starts: check the database, warm caches. */
@@ -10,6 +11,8 @@ export async function startApp(): Promise<void> {
 	authSecret();
 	// Watch notices and the hourly digest check; the timer stops with the server.
 	process.once('sveltekit:shutdown', startWatchNotices());
+	// Queued mail (invitations, reset links, notices) is sent from MariaDB, retried until the server takes it.
+	process.once('sveltekit:shutdown', startMailQueue());
 	// The search index builds in the background and then polls for other instances' saves.
 	searchIndex();
 	process.once('sveltekit:shutdown', stopSearchIndex);

@@ -30,11 +30,13 @@ function transporterFor(settings: MailSettings): Transporter {
 }
 
 export type OutgoingMail = { to: string; subject: string; text: string; html: string };
+/** A message as sent from the queue: its Message-ID stays the same on every try. */
+export type QueuedMail = OutgoingMail & { messageId?: string };
 
 /** The mail server refused or could not be reached; the person asking should hear that it was not sent. */
 export class MailNotSent extends Error {}
 
-export async function sendMail(mail: OutgoingMail): Promise<void> {
+export async function sendMail(mail: QueuedMail): Promise<void> {
 	const settings = mailSettings();
 	try {
 		await transporterFor(settings).sendMail({ from: settings.from, ...mail });

@@ -6,7 +6,7 @@ import { ROLES, roleAtLeast, type Role } from '../../domain/roles';
 import { hashPassword } from '../auth/password';
 import type { SessionUser } from '../../domain/sessionUser';
 import { config } from '../config';
-import { MailNotSent, sendMail } from '../mail/transport';
+import { deliverQueuedMail, queueMail } from '../mail/queue';
 import { inviteMail } from '../mail/templates';
 import { emailSchema, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
@@ -33,14 +33,15 @@ export const acceptInviteSchema = z
  * Mails a single-use link that lets the person choose their name and password. No user row exists until the
  * link is used, so nobody can sign in as an invited address before that. Inviting again revokes the older link.
  */
-export async function inviteByEmail(input: unknown, admin: SessionUser, now = new Date()): Promise<{ email: string; role: Role; expiresAt: Date }> {
+export async function inviteByEmail(input: unknown, admin: SessionUser, now = new Date()): Promise<{ email: string; role: Role; expiresAt: Date; sent: boolean }> {
 	if (!roleAtLeast(admin.role, 'admin')) throw new ServiceError('Inviting staff needs the admin role.', 403);
 	const parsed = inviteSchema.safeParse(input);
 	if (!parsed.success) invalidInput(parsed.error);
 	const { email, role } = parsed.data;
 	const { token, tokenHash } = newToken();
 	const expiresAt = new Date(now.getTime() + INVITE_LIFETIME_MS);
-	const row = await db().transaction(async (transaction) => {
+	const shop = await shopSettings();
+	const mailId = await db().transaction(async (transaction) => {
 		if (await User.findOne({ where: { email }, transaction })) {
 			throw new ServiceError('Someone already has an account with that e-mail address.', 409, { email: 'This address already has an account.' });
 		}
@@ -50,17 +51,11 @@ export async function inviteByEmail(input: unknown, admin: SessionUser, now = ne
 			{ transaction }
 		);
 		await recordAudit({ actorId: admin.id, action: 'user.invite', targetType: 'invite', targetId: created.id, details: { email, role, replaced } }, transaction);
-		return created;
+		// The link and its mail land together: a mail server that is down delays the mail, it never loses it.
+		return queueMail({ to: email, ...inviteMail({ shopName: shop.shopName, inviterName: admin.name, role, link: `${config.origin}/invite/${token}`, expiresAt }) }, transaction);
 	});
-	const shop = await shopSettings();
-	try {
-		await sendMail({ to: email, ...inviteMail({ shopName: shop.shopName, inviterName: admin.name, role, link: `${config.origin}/invite/${token}`, expiresAt }) });
-	} catch (err) {
-		await row.update({ revokedAt: new Date() });
-		if (err instanceof MailNotSent) throw new ServiceError(`${err.message}. Nothing was sent; try again.`, 503);
-		throw err;
-	}
-	return { email, role, expiresAt };
+	const { sent } = await deliverQueuedMail({ ids: [mailId] });
+	return { email, role, expiresAt, sent: sent.includes(mailId) };
 }
 
 export type PendingInvite = { id: number; email: string; role: Role; invitedBy: string; createdAt: string; expiresAt: string };

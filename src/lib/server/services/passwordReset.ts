@@ -6,7 +6,7 @@ import { AccountToken, User } from '../db/models';
 import { hashPassword } from '../auth/password';
 import { clearSignInFailures } from '../auth/throttle';
 import { config } from '../config';
-import { sendMail } from '../mail/transport';
+import { deliverQueuedMail, queueMail } from '../mail/queue';
 import { resetMail } from '../mail/templates';
 import { emailSchema, newUserSchema } from './users';
 import { newToken, revokeOpenTokens, usableToken } from './accountTokens';
@@ -52,12 +52,13 @@ async function mailResetLink(email: string, now: Date): Promise<void> {
 	if (!user) return;
 	const { token, tokenHash } = newToken();
 	const expiresAt = new Date(now.getTime() + RESET_LIFETIME_MS);
-	await db().transaction(async (transaction) => {
+	const shop = await shopSettings();
+	const mailId = await db().transaction(async (transaction) => {
 		await revokeOpenTokens('reset', { userId: user.id }, now, transaction);
 		await AccountToken.create({ kind: 'reset', userId: user.id, email: null, role: null, invitedBy: null, tokenHash, expiresAt, createdAt: now }, { transaction });
+		return queueMail({ to: user.email, ...resetMail({ shopName: shop.shopName, name: user.name, link: `${config.origin}/reset/${token}`, expiresAt }) }, transaction);
 	});
-	const shop = await shopSettings();
-	await sendMail({ to: user.email, ...resetMail({ shopName: shop.shopName, name: user.name, link: `${config.origin}/reset/${token}`, expiresAt }) });
+	await deliverQueuedMail({ ids: [mailId] });
 }
 
 export const RESET_UNUSABLE = 'This reset link has expired, was replaced by a newer one, or was already used. Ask for a new link.';

@@ -1,8 +1,9 @@
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
+import { db } from '../db';
 import { NotificationPreference, PendingNotice, User, Watch, type NoticeMode } from '../db/models';
 import type { SessionUser } from '../../domain/sessionUser';
 import { config } from '../config';
-import { sendMail } from '../mail/transport';
+import { deliverQueuedMail, queueMail } from '../mail/queue';
 import { changeNoticeMail, digestMail, type ChangeLine } from '../mail/templates';
 import { onRevisionWritten, type RevisionWritten } from '../events';
 import { revisionById } from './revisions';
@@ -155,41 +156,43 @@ async function changeLine(notice: PendingNotice, recipient: Pick<User, 'role'>):
 	};
 }
 
-/** Claims rows one by one, so two app instances never send the same notice twice. */
-async function claim(ids: number[], now: Date): Promise<number[]> {
+/**
+ * Claims notices inside the caller's transaction (the rows stay locked until it ends), so two app servers never
+ * mail the same notice, and a claimed notice always has its mail queued with it.
+ */
+async function claim(ids: number[], now: Date, transaction: Transaction): Promise<number[]> {
 	const claimed: number[] = [];
 	for (const id of ids) {
-		const [n] = await PendingNotice.update({ sentAt: now }, { where: { id, sentAt: null } });
+		const [n] = await PendingNotice.update({ sentAt: now }, { where: { id, sentAt: null }, transaction });
 		if (n) claimed.push(id);
 	}
 	return claimed;
 }
 
-async function release(ids: number[]): Promise<void> {
-	if (ids.length) await PendingNotice.update({ sentAt: null }, { where: { id: ids } });
-}
-
 const footerLinks = () => ({ accountLink: `${config.origin}/account`, followingLink: `${config.origin}/following` });
 
-/** Sends every queued "at once" notice; a notice whose mail fails stays queued for the next try. */
+/** Sends queued messages now; what the mail server does not take stays in the mail queue for its retries. */
+async function sendNow(mailIds: (number | null)[]): Promise<number> {
+	const ids = mailIds.filter((id): id is number => id !== null);
+	return ids.length ? (await deliverQueuedMail({ ids })).sent.length : 0;
+}
+
+/** Hands every "at once" notice to the mail queue and sends it; a mail server that is down only delays it. */
 export async function deliverImmediateNotices(now = new Date()): Promise<number> {
 	const due = await PendingNotice.findAll({ where: { mode: 'immediate', sentAt: null }, order: [['id', 'ASC']], limit: 500 });
-	let sent = 0;
+	const mailIds: (number | null)[] = [];
 	for (const notice of due) {
-		const [id] = await claim([Number(notice.id)], now);
-		if (!id) continue;
 		const user = await User.findByPk(notice.userId, { attributes: ['id', 'email', 'name', 'status', 'role'] });
 		const line = user ? await changeLine(notice, user) : null;
-		if (!user || user.status !== 'active' || !line) continue;
-		try {
-			await sendMail({ to: user.email, ...changeNoticeMail({ recipientName: user.name, change: line, ...footerLinks() }) });
-			sent++;
-		} catch (err) {
-			await release([id]);
-			console.error('[kickpanel] watch notice not sent:', err instanceof Error ? err.message : err);
-		}
+		mailIds.push(
+			await db().transaction(async (transaction) => {
+				const [id] = await claim([Number(notice.id)], now, transaction);
+				if (!id || !user || user.status !== 'active' || !line) return null;
+				return queueMail({ to: user.email, ...changeNoticeMail({ recipientName: user.name, change: line, ...footerLinks() }) }, transaction);
+			})
+		);
 	}
-	return sent;
+	return sendNow(mailIds);
 }
 
 /**
@@ -206,28 +209,26 @@ export async function sendDigests(now = new Date()): Promise<number> {
 		const seen = oldestByUser.get(n.userId);
 		if (!seen || n.createdAt < seen) oldestByUser.set(n.userId, n.createdAt);
 	}
-	let sent = 0;
+	const mailIds: (number | null)[] = [];
 	for (const [userId, oldest] of oldestByUser) {
 		const prefs = await NotificationPreference.findByPk(userId);
 		const since = prefs?.lastDigestAt ?? oldest;
 		if (now.getTime() - since.getTime() < DIGEST_INTERVAL_MS - DIGEST_SLACK_MS) continue;
-		const notices = await PendingNotice.findAll({ where: { userId, mode: 'digest', sentAt: null, createdAt: { [Op.lte]: now } }, order: [['revisionId', 'ASC']] });
-		const ids = await claim(notices.map((n) => Number(n.id)), now);
 		const user = await User.findByPk(userId, { attributes: ['id', 'email', 'name', 'status', 'role'] });
-		if (!ids.length || !user || user.status !== 'active') continue;
-		const lines = (await Promise.all(notices.filter((n) => ids.includes(Number(n.id))).map((n) => changeLine(n, user)))).filter((l): l is ChangeLine => l !== null);
-		if (!lines.length) continue;
-		try {
-			await sendMail({ to: user.email, ...digestMail({ recipientName: user.name, changes: lines, ...footerLinks() }) });
-			if (prefs) await prefs.update({ lastDigestAt: now });
-			else await NotificationPreference.create({ userId, noticeMode: 'digest', lastDigestAt: now });
-			sent++;
-		} catch (err) {
-			await release(ids);
-			console.error('[kickpanel] digest not sent:', err instanceof Error ? err.message : err);
-		}
+		if (!user || user.status !== 'active') continue;
+		mailIds.push(
+			await db().transaction(async (transaction) => {
+				const notices = await PendingNotice.findAll({ where: { userId, mode: 'digest', sentAt: null, createdAt: { [Op.lte]: now } }, order: [['revisionId', 'ASC']], transaction });
+				const ids = await claim(notices.map((n) => Number(n.id)), now, transaction);
+				const lines = (await Promise.all(notices.filter((n) => ids.includes(Number(n.id))).map((n) => changeLine(n, user)))).filter((l): l is ChangeLine => l !== null);
+				if (!lines.length) return null;
+				if (prefs) await prefs.update({ lastDigestAt: now }, { transaction });
+				else await NotificationPreference.create({ userId, noticeMode: 'digest', lastDigestAt: now }, { transaction });
+				return queueMail({ to: user.email, ...digestMail({ recipientName: user.name, changes: lines, ...footerLinks() }) }, transaction);
+			})
+		);
 	}
-	return sent;
+	return sendNow(mailIds);
 }
 
 // Immediate notices go out behind the save, one run at a time, so a slow mail server never delays an edit.

@@ -29,7 +29,7 @@ export const actions: Actions = {
 			request,
 			async (posted) => {
 				const sent = await inviteByEmail(Object.fromEntries(posted), admin);
-				return { invited: sent.email };
+				return sent.sent ? { invited: sent.email } : { invited: sent.email, queued: true };
 			},
 			{ action: 'invite', values: ['email', 'role'] }
 		);
