@@ -12,6 +12,7 @@ import { vehiclePageData } from '$lib/server/views/vehiclePage';
 import { config } from '$lib/server/config';
 import { bodyLimits, securityHeaders } from '$lib/server/perimeter';
 import { movedAddress } from '$lib/server/movedAddresses';
+import { databaseGate, handleServerError } from '$lib/server/databaseGate';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -59,4 +60,6 @@ const moved: Handle = ({ event, resolve }) => {
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = sequence(securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, authHandle, loadUser, memoised);
+export const handle = sequence(securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, authHandle, loadUser, memoised);
+
+export const handleError = handleServerError;

@@ -1,6 +1,7 @@
 import { fail, type ActionFailure } from '@sveltejs/kit';
 import { ZodError } from 'zod';
 import { ServiceError, fieldMessages } from './errors';
+import { DATABASE_DOWN_MESSAGE, noteDatabaseError } from './db/availability';
 
 /**
  * What every refused form action answers, the counterpart of `apiCall`'s JSON: which of the page's
@@ -18,6 +19,8 @@ type Refusal = { status: number; errors: Record<string, string>; message: string
 function refusalOf(err: unknown): Refusal | null {
 	if (err instanceof ZodError) return { status: 400, errors: fieldMessages(err), message: err.issues[0]?.message ?? 'Check the form and try again.' };
 	if (err instanceof ServiceError) return { status: err.status, errors: err.fieldErrors ?? {}, message: err.message };
+	// Everything typed goes back to the form, as for any other refusal.
+	if (noteDatabaseError(err)) return { status: 503, errors: {}, message: DATABASE_DOWN_MESSAGE };
 	return null;
 }
 

@@ -1,6 +1,7 @@
 import { error, isHttpError, json } from '@sveltejs/kit';
 import type { ZodType } from 'zod';
 import { EditConflictError, ServiceError, fieldMessages } from './errors';
+import { DATABASE_DOWN_MESSAGE, noteDatabaseError } from './db/availability';
 
 /** Runs an API handler body and answers refusals as JSON 4xx with a message a person understands. */
 export async function apiCall(body: () => Promise<Response>): Promise<Response> {
@@ -14,6 +15,7 @@ export async function apiCall(body: () => Promise<Response>): Promise<Response> 
 			return json({ message: err.message, fieldErrors: err.fieldErrors }, { status: err.status });
 		}
 		if (isHttpError(err)) return json({ message: err.body.message }, { status: err.status });
+		if (noteDatabaseError(err)) return json({ message: DATABASE_DOWN_MESSAGE }, { status: 503, headers: { 'retry-after': '5' } });
 		throw err;
 	}
 }
@@ -64,5 +66,6 @@ export function queryInt(url: URL, name: string, range: { min: number; max: numb
 /** For pages and form actions: a service refusal becomes an HTTP error page with its message. */
 export function asHttpError(err: unknown): never {
 	if (err instanceof ServiceError) error(err.status, err.message);
+	if (noteDatabaseError(err)) error(503, DATABASE_DOWN_MESSAGE);
 	throw err;
 }
