@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import sharp from 'sharp';
 import exifr from 'exifr';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import { createServer } from 'node:net';
 import { closeDb, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
 import { QueryTypes } from 'sequelize';
@@ -25,7 +26,7 @@ import {
 	storePhoto
 } from '../../src/lib/server/services/photos';
 import { ServiceError } from '../../src/lib/server/errors';
-import { usePhotoStore, type PhotoStore } from '../../src/lib/server/storage';
+import { photoStore, usePhotoStore, type PhotoStore } from '../../src/lib/server/storage';
 import { S3PhotoStore } from '../../src/lib/server/storage/s3';
 import { S3_FAKE_CREDENTIALS as FAKE_CREDENTIALS } from '../../src/lib/server/config';
 import { startObjectStoreFake, type RunningObjectStoreFake } from '../../src/lib/server/storage/fake';
@@ -295,6 +296,35 @@ describe('refusing what is not a usable photo, storing nothing', () => {
 		expect(err.status).toBe(415);
 		expect(err.message).toMatch(/“IMG_0042\.HEIC” is a HEIC photo, which this server cannot read\. On the phone, share it as JPEG/);
 		expect(await Photo.findByPk(createHash('sha256').update(heic).digest('hex'))).toBeNull();
+	});
+
+	it('answers plainly and records nothing while photo storage is down, and works again when it is back', async () => {
+		const bytes = await jpeg(640, 480);
+		// A page of its own, so the photo it ends with changes no other test's page.
+		const own = await createVehicle(emptyContent({ make: 'Tarnell', model: 'Outage', yearFrom: 2015, yearTo: 2018, body: 'sedan' }), editor);
+		const vehicle = await requireVehicle(own.slug);
+		const revisionOf = async () => (await requireVehicle(own.slug)).latestRevisionId;
+		const photosBefore = await Photo.count();
+		const closed = createServer();
+		await new Promise<void>((resolve) => closed.listen(0, '127.0.0.1', resolve));
+		const deadPort = (closed.address() as { port: number }).port;
+		await new Promise<void>((resolve) => closed.close(() => resolve()));
+		const down = new S3PhotoStore({ endpoint: `http://127.0.0.1:${deadPort}`, bucket: BUCKET, region: 'us-east-1', credentials: { ...FAKE_CREDENTIALS }, forcePathStyle: true });
+		const working = photoStore();
+		usePhotoStore(down);
+		try {
+			const err = await addPhotosToVehicle(vehicle.id, [{ name: 'rail.jpg', bytes }], seatDetails, editor).catch((e) => e);
+			expect(err).toBeInstanceOf(ServiceError);
+			expect(err.status).toBe(503);
+			expect(err.message).toMatch(/Photo storage is not answering right now, so nothing was uploaded/);
+			expect(await Photo.count()).toBe(photosBefore);
+			expect(await revisionOf()).toBe(own.revisionId);
+		} finally {
+			usePhotoStore(working);
+			down.close();
+		}
+		await addPhotosToVehicle(vehicle.id, [{ name: 'rail.jpg', bytes }], seatDetails, editor);
+		expect(await Photo.count()).toBe(photosBefore + 1);
 	});
 
 	it('refuses a whole upload when one of its files is bad, and stores none of them', async () => {

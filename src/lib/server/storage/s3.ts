@@ -1,5 +1,6 @@
 import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import type { PhotoStore, StoredObject, StoredObjectInfo } from './store';
+import { ServiceError } from '../errors';
 
 
 export type S3StoreConfig = {
@@ -16,6 +17,14 @@ function isNotFound(err: unknown): boolean {
 	return e?.name === 'NotFound' || e?.name === 'NoSuchKey' || e?.$metadata?.httpStatusCode === 404;
 }
 
+/** The store could not be reached or failed on its side (no answer, a 5xx): the person hears it plainly. */
+function unavailable(err: unknown): unknown {
+	const status = (err as { $metadata?: { httpStatusCode?: number } })?.$metadata?.httpStatusCode;
+	if (status !== undefined && status < 500) return err;
+	console.error('[kickpanel] photo storage:', err instanceof Error ? err.message : err);
+	return new ServiceError('Photo storage is not answering right now, so nothing was uploaded or changed. Try again in a minute.', 503);
+}
+
 /** Photo storage in any S3-compatible bucket through the AWS SDK. */
 export class S3PhotoStore implements PhotoStore {
 	private readonly client: S3Client;
@@ -27,12 +36,19 @@ export class S3PhotoStore implements PhotoStore {
 			endpoint: config.endpoint,
 			region: config.region,
 			forcePathStyle: config.forcePathStyle,
-			credentials: config.credentials
+			credentials: config.credentials,
+			// A store that is down answers within seconds instead of holding the upload open.
+			maxAttempts: 2,
+			requestHandler: { connectionTimeout: 3_000, requestTimeout: 30_000 }
 		});
 	}
 
 	async put(key: string, bytes: Uint8Array, contentType: string): Promise<void> {
-		await this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: bytes, ContentType: contentType }));
+		try {
+			await this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: bytes, ContentType: contentType }));
+		} catch (err) {
+			throw unavailable(err);
+		}
 	}
 
 	async head(key: string): Promise<StoredObjectInfo | null> {
@@ -41,7 +57,7 @@ export class S3PhotoStore implements PhotoStore {
 			return { bytes: res.ContentLength ?? 0, contentType: res.ContentType ?? 'application/octet-stream' };
 		} catch (err) {
 			if (isNotFound(err)) return null;
-			throw err;
+			throw unavailable(err);
 		}
 	}
 
@@ -56,7 +72,7 @@ export class S3PhotoStore implements PhotoStore {
 			};
 		} catch (err) {
 			if (isNotFound(err)) return null;
-			throw err;
+			throw unavailable(err);
 		}
 	}
 
