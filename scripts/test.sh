@@ -22,6 +22,8 @@ export AUTH_SECRET=test-secret-not-for-production-000000
 export TEST_APP_PORT="${TEST_APP_PORT:-$(free_port 3117)}"
 export ORIGIN="http://127.0.0.1:$TEST_APP_PORT"
 export KICKPANEL_DEV_TOOLS=1
+export LOG_LEVEL="${LOG_LEVEL:-warn}"
+export METRICS_PORT="${METRICS_PORT:-$(free_port 9464)}"
 # Local stand-ins for hosted services listen on their own test ports.
 VIN_DECODE_PORT="$(free_port 3392)"; S3_FAKE_PORT="$(free_port 4570)"; SMTP_CAPTURE_PORT="$(free_port 2526)"
 export VIN_DECODE_PORT S3_FAKE_PORT SMTP_CAPTURE_PORT

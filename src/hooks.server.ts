@@ -13,6 +13,7 @@ import { config } from '$lib/server/config';
 import { bodyLimits, securityHeaders } from '$lib/server/perimeter';
 import { movedAddress } from '$lib/server/movedAddresses';
 import { databaseGate, handleServerError } from '$lib/server/databaseGate';
+import { observeRequests } from '$lib/server/observability/requests';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -60,6 +61,6 @@ const moved: Handle = ({ event, resolve }) => {
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = sequence(securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, authHandle, loadUser, memoised);
+export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, authHandle, loadUser, memoised);
 
 export const handleError = handleServerError;

@@ -54,6 +54,8 @@ const envSchema = z.object({
 	DB_PASSWORD: z.string().optional(),
 	DB_POOL_MAX: optional(wholeNumber(1, 1_000)),
 	PAGE_MEMO_MB: optional(wholeNumber(0)),
+	LOG_LEVEL: optional(z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'], { error: 'must be one of fatal, error, warn, info, debug, trace, silent' })),
+	METRICS_PORT: optional(z.union([z.literal('off'), port(0)])),
 	SHARED_STATE_TTL_MS: optional(wholeNumber(0)),
 	SEARCH_POLL_MS: optional(wholeNumber(0)),
 	PHOTO_MAX_BYTES: optional(wholeNumber(1)),
@@ -129,6 +131,9 @@ export function readConfig(env: Env = process.env) {
 		origin: e.ORIGIN ?? 'http://127.0.0.1:3000',
 		/** Memory for whole rendered pages kept for repeat views (see render/pageMemo.ts); 0 turns it off. */
 		pageMemoBytes: (e.PAGE_MEMO_MB ?? 64) * MB,
+		logLevel: e.LOG_LEVEL ?? 'info',
+		/** Prometheus metrics on 127.0.0.1 only; 0 picks a free port (printed at start), off turns them off. */
+		metricsPort: e.METRICS_PORT === 'off' ? null : (e.METRICS_PORT ?? 9464),
 		/** How long another instance's change can take to show here (role, block, page row, watch, trust marks). */
 		sharedStateTtlMs: e.SHARED_STATE_TTL_MS ?? 2_000,
 		/** How often this instance picks up revisions saved by other instances. */

@@ -1,5 +1,6 @@
 // While MariaDB is marked down, every request that would need it is answered at once with a 503 and a plain
 // message, rather than waiting for a connection. Built assets and the health answer still come through.
+import { logFailure } from './observability/log';
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { DATABASE_DOWN_MESSAGE, databaseDownSince, noteDatabaseError } from './db/availability';
 
@@ -32,6 +33,6 @@ export const databaseGate: Handle = async ({ event, resolve }) => {
 /** Unexpected errors: a lost database gets its plain message (and marks it down); anything else is logged. */
 export const handleServerError: HandleServerError = ({ error, status }) => {
 	if (noteDatabaseError(error)) return { message: DATABASE_DOWN_MESSAGE };
-	if (status >= 500) console.error(error);
+	if (status >= 500) logFailure('unexpected error', error);
 	return { message: status === 404 ? 'Not Found' : 'Something went wrong on our side. Try again; if it keeps happening, tell your admin.' };
 };

@@ -1,3 +1,4 @@
+import { logFailure } from './observability/log';
 /** In-process notices after a revision is committed: the search index and watchers listen here. */
 export type RevisionWritten = {
 	kind: 'save' | 'restore' | 'hide' | 'unhide' | 'create' | 'review';
@@ -19,7 +20,7 @@ export async function announceRevision(event: RevisionWritten): Promise<void> {
 		try {
 			await listener(event);
 		} catch (err) {
-			console.error('[kickpanel] revision listener failed', err);
+			logFailure('revision listener failed', err);
 		}
 	}
 }

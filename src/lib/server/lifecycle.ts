@@ -1,4 +1,6 @@
-import { authSecret } from './config';
+import { authSecret, config } from './config';
+import { log, logFailure } from './observability/log';
+import { reportIndexWatermark, startMetricsServer } from './observability/metrics';
 import { databaseIsUp } from './db';
 import { warmSeatSpaceIndex } from './fit';
 import { startWatchNotices } from './services/watch';
@@ -14,10 +16,21 @@ export async function startApp(): Promise<void> {
 	// Queued mail (invitations, reset links, notices) is sent from MariaDB, retried until the server takes it.
 	process.once('sveltekit:shutdown', startMailQueue());
 	// The search index builds in the background and then polls for other instances' saves.
-	searchIndex();
+	const index = searchIndex();
+	reportIndexWatermark(() => index.caughtUpTo);
 	process.once('sveltekit:shutdown', stopSearchIndex);
 	const status = await databaseIsUp();
-	if (!status.up) console.error(`[kickpanel] database not reachable at start-up: ${status.reason}`);
+	if (!status.up) logFailure('database not reachable at start-up', status.reason);
 	// Built in the background; the first fit query waits for it if it is not done yet.
-	else void warmSeatSpaceIndex().catch((err) => console.error('[kickpanel] seat-space index not built at start-up; it is retried on the first fit query', err));
+	else void warmSeatSpaceIndex().catch((err) => logFailure('seat-space index not built at start-up; it is retried on the first fit query', err));
+	if (config.metricsPort !== null) {
+		// Metrics are for the operator: loopback only, and a port already taken never stops the app.
+		startMetricsServer(config.metricsPort).then(
+			(metrics) => {
+				log.info({ port: metrics.port }, `metrics on http://127.0.0.1:${metrics.port}/metrics`);
+				process.once('sveltekit:shutdown', () => void metrics.stop());
+			},
+			(err) => logFailure('metrics not served', err)
+		);
+	}
 }

@@ -2,6 +2,7 @@
 // A mail server that is down delays a message, never loses it; the claim on each row keeps two app servers
 // (or two timers) from sending one message twice, and the stable Message-ID lets a receiving server drop a
 // copy sent again after a crash between "sent" and "marked sent".
+import { logFailure } from '../observability/log';
 import { randomBytes } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db';
@@ -93,7 +94,7 @@ export function kickMailQueue(): void {
 	if (sending) return;
 	sending = true;
 	deliverQueuedMail()
-		.catch((err) => console.error('[kickpanel] mail queue:', err instanceof Error ? err.message : err))
+		.catch((err) => logFailure('mail queue', err))
 		.finally(() => (sending = false));
 }
 

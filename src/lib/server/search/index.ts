@@ -1,6 +1,7 @@
 // The search index each app instance keeps in memory. MariaDB is the truth; this is a cache of it:
 // built at start-up, updated in the request that writes a revision, and caught up by polling so that
 // several instances behind a load balancer stay in step with each other's saves.
+import { logFailure } from '../observability/log';
 import { error } from '@sveltejs/kit';
 import type { SearchSection } from '../../domain/search/document';
 import { vehicleSearchSections } from '../../domain/search/document';
@@ -37,6 +38,11 @@ export class LiveSearchIndex {
 	state: IndexState = 'empty';
 	lastError: string | null = null;
 
+	/** The newest revision id the index has taken in (the metrics report the lag behind the database). */
+	get caughtUpTo(): number {
+		return this.watermark;
+	}
+
 	/** Listens for revisions written by this process and polls for the rest; the build starts in the background. */
 	start(opts: { pollMs?: number; listen?: boolean } = {}): void {
 		if (opts.listen !== false && !this.unsubscribe) {
@@ -64,7 +70,7 @@ export class LiveSearchIndex {
 
 	private fail(doing: string, err: unknown) {
 		this.lastError = err instanceof Error ? err.message : String(err);
-		console.error(`[kickpanel] search index: failed ${doing}: ${this.lastError}`);
+		logFailure(`search index: failed ${doing}`, err);
 	}
 
 	/** The built engine; builds it on first use, and again after a failed build. */

@@ -1,3 +1,4 @@
+import { logFailure } from '../observability/log';
 import { z } from 'zod';
 import { RateLimiterRes } from 'rate-limiter-flexible';
 import { SharedLimiter } from '../auth/sharedLimiter';
@@ -43,7 +44,7 @@ export async function requestPasswordReset(emailInput: unknown, clientAddress: s
 		const minutes = Math.max(1, Math.ceil(err.msBeforeNext / 60_000));
 		return { ok: false, status: 429, message: `Too many reset requests. Try again in ${minutes} ${minutes === 1 ? 'minute' : 'minutes'}.` };
 	}
-	const delivery = mailResetLink(email.data, now).catch((err) => console.error('[kickpanel] password reset mail failed:', err instanceof Error ? err.message : err));
+	const delivery = mailResetLink(email.data, now).catch((err) => logFailure('password reset mail failed', err));
 	return { ok: true, message: RESET_REQUESTED, delivery };
 }
 

@@ -1,3 +1,4 @@
+import { logFailure } from '../observability/log';
 import { Op, type Transaction } from 'sequelize';
 import { db } from '../db';
 import { NotificationPreference, PendingNotice, User, Watch, type NoticeMode } from '../db/models';
@@ -239,7 +240,7 @@ function kickDelivery(): void {
 		.then(() => deliverImmediateNotices())
 		.then(
 			() => undefined,
-			(err) => console.error('[kickpanel] watch notices failed:', err)
+			(err) => logFailure('watch notices failed', err)
 		);
 }
 
@@ -256,7 +257,7 @@ export function startWatchNotices(): () => void {
 	const unsubscribe = onRevisionWritten((event) => queueNotices(event).then(() => undefined));
 	const timer = setInterval(() => {
 		kickDelivery();
-		sendDigests(new Date()).catch((err) => console.error('[kickpanel] digests failed:', err));
+		sendDigests(new Date()).catch((err) => logFailure('digests failed', err));
 	}, HOUR_MS);
 	timer.unref();
 	running = () => {

@@ -1,3 +1,4 @@
+import { logFailure } from '../observability/log';
 import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import type { PhotoStore, StoredObject, StoredObjectInfo } from './store';
 import { ServiceError } from '../errors';
@@ -21,7 +22,7 @@ function isNotFound(err: unknown): boolean {
 function unavailable(err: unknown): unknown {
 	const status = (err as { $metadata?: { httpStatusCode?: number } })?.$metadata?.httpStatusCode;
 	if (status !== undefined && status < 500) return err;
-	console.error('[kickpanel] photo storage:', err instanceof Error ? err.message : err);
+	logFailure('photo storage', err);
 	return new ServiceError('Photo storage is not answering right now, so nothing was uploaded or changed. Try again in a minute.', 503);
 }
 

@@ -1,0 +1,37 @@
+// Every request gets an id (taken from X-Request-Id when a proxy set a sane one), sent back in the answer,
+// carried by every log line written while it is served, and counted in the metrics.
+import { randomUUID } from 'node:crypto';
+import type { Handle } from '@sveltejs/kit';
+import { log, withRequestId } from './log';
+import { requestSeconds, requestsTotal } from './metrics';
+
+const SANE_ID = /^[A-Za-z0-9._:-]{8,64}$/;
+
+export const observeRequests: Handle = async ({ event, resolve }) => {
+	const given = event.request.headers.get('x-request-id');
+	const requestId = given && SANE_ID.test(given) ? given : randomUUID();
+	const started = performance.now();
+	return withRequestId(requestId, async () => {
+		const route = event.route.id ?? (event.url.pathname.startsWith('/_app/') ? '/_app' : 'unmatched');
+		let status = 500;
+		try {
+			const response = await resolve(event);
+			status = response.status;
+			try {
+				response.headers.set('x-request-id', requestId);
+			} catch {
+				// A response with fixed headers (a passed-through fetch) keeps them.
+			}
+			return response;
+		} catch (err) {
+			// A redirect thrown by a hook is an answer too.
+			status = typeof (err as { status?: unknown })?.status === 'number' ? (err as { status: number }).status : 500;
+			throw err;
+		} finally {
+			const seconds = (performance.now() - started) / 1000;
+			requestsTotal.inc({ route, method: event.request.method, status: String(status) });
+			requestSeconds.observe({ route, method: event.request.method }, seconds);
+			log.info({ method: event.request.method, route, status, ms: Math.round(seconds * 1000) }, 'request');
+		}
+	});
+};
