@@ -2,7 +2,8 @@
 # Private MariaDB for Kickpanel: its own data dir, its own port, bound to 127.0.0.1.
 # Usage: scripts/db.sh start|stop|status|reset
 # Environment: DB_DATA_DIR (default .data/mariadb), DB_PORT (3307), DB_NAME (kickpanel),
-#              DB_USER (kickpanel), DB_PASSWORD (kickpanel-local), DB_FAST=1 for throw-away test data.
+#              DB_USER (kickpanel), DB_PASSWORD (kickpanel-local), DB_FAST=1 for throw-away test data,
+#              DB_SERVER_ID=n to keep a binary log for replication (DB_READ_ONLY=1 on a replica).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -50,10 +51,17 @@ start() {
 	if [ "${DB_FAST:-0}" = "1" ]; then
 		extra+=(--innodb-flush-log-at-trx-commit=0 --innodb-doublewrite=0)
 	fi
+	# A replication primary keeps a binary log; a replica is read-only to everyone but its replication thread.
+	if [ -n "${DB_SERVER_ID:-}" ]; then
+		extra+=(--server-id="$DB_SERVER_ID" --log-bin="$DATA_DIR/binlog" --binlog-format=ROW --log-slave-updates=ON)
+		if [ "${DB_READ_ONLY:-0}" = "1" ]; then extra+=(--read-only=ON); fi
+	else
+		extra+=(--skip-log-bin)
+	fi
 	"$(mariadbd_bin)" --no-defaults --datadir="$DATA_DIR" --socket="$SOCK" --pid-file="$PIDFILE" \
 		--log-error="$DATA_DIR/error.log" --port="$PORT" --bind-address=127.0.0.1 --user="$(id -un)" \
 		--innodb-buffer-pool-size="${DB_BUFFER_POOL:-64M}" --innodb-log-file-size=16M \
-		--performance-schema=OFF --skip-log-bin --skip-name-resolve \
+		--performance-schema=OFF --skip-name-resolve \
 		--character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
 		--max-connections=300 "${extra[@]}" >/dev/null 2>&1 &
 	for _ in $(seq 1 100); do
@@ -65,7 +73,11 @@ start() {
 		tail -n 20 "$DATA_DIR/error.log" >&2 || true
 		exit 1
 	fi
+	# On a replica the set-up below stays out of its own binary log: the primary's copy arrives by replication.
+	local quiet=""
+	if [ "${DB_READ_ONLY:-0}" = "1" ]; then quiet="SET SESSION sql_log_bin = 0;"; fi
 	mariadb --socket="$SOCK" -uroot <<SQL
+$quiet
 CREATE DATABASE IF NOT EXISTS \`$NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE USER IF NOT EXISTS '$USER_NAME'@'127.0.0.1' IDENTIFIED BY '$PASSWORD';
 ALTER USER '$USER_NAME'@'127.0.0.1' IDENTIFIED BY '$PASSWORD';

@@ -14,6 +14,7 @@ import { bodyLimits, securityHeaders } from '$lib/server/perimeter';
 import { movedAddress } from '$lib/server/movedAddresses';
 import { databaseGate, handleServerError } from '$lib/server/databaseGate';
 import { observeRequests } from '$lib/server/observability/requests';
+import { freshReads } from '$lib/server/freshReads';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -61,6 +62,6 @@ const moved: Handle = ({ event, resolve }) => {
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, authHandle, loadUser, memoised);
+export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised);
 
 export const handleError = handleServerError;

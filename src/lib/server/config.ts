@@ -48,6 +48,8 @@ const envSchema = z.object({
 	AUTH_LOCKOUT_SECONDS: optional(wholeNumber(1)),
 	DB_HOST: optional(z.string()),
 	DB_PORT: optional(port()),
+	DB_REPLICA_HOST: optional(z.string()),
+	DB_REPLICA_PORT: optional(port()),
 	DB_NAME: optional(z.string()),
 	DB_USER: optional(z.string()),
 	// An empty password is a real choice for a local account, so only an unset one takes the default.
@@ -115,7 +117,9 @@ export function readConfig(env: Env = process.env) {
 			name: e.DB_NAME ?? 'kickpanel',
 			user: e.DB_USER ?? 'kickpanel',
 			password: e.DB_PASSWORD ?? 'kickpanel-local',
-			poolMax: e.DB_POOL_MAX ?? 10
+			poolMax: e.DB_POOL_MAX ?? 10,
+			/** A read replica (MariaDB replication); unset: every query goes to the primary. */
+			replica: e.DB_REPLICA_PORT ? { host: e.DB_REPLICA_HOST ?? e.DB_HOST ?? '127.0.0.1', port: e.DB_REPLICA_PORT } : null
 		},
 		auth: {
 			// With ORIGIN fixed by the operator, the request host is never taken from the client.

@@ -1,26 +1,12 @@
 // Whether MariaDB is answering. A request that finds it gone marks it down; from then on requests are answered
 // at once with a 503 (instead of each waiting for a connection that will not come), and a probe every second
 // clears the mark as soon as the database answers again.
-import { ConnectionError } from 'sequelize';
 import { databaseIsUp } from './index';
+import { isDatabaseUnreachable } from './unreachable';
 
-/** Driver codes for a connection that was refused, closed or never came. */
-const LOST_CONNECTION = /^(ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT|ER_SOCKET_UNEXPECTED_CLOSE|ER_CONNECTION_TIMEOUT|ER_GET_CONNECTION_TIMEOUT|ER_CONNECTION_ALREADY_CLOSED|ER_CLOSING_POOL|PROTOCOL_CONNECTION_LOST)$/;
+export { isDatabaseUnreachable };
 
 export const DATABASE_DOWN_MESSAGE = 'The database is not answering right now, so nothing was read or saved. Try again in a minute; what you typed is still in the form.';
-
-/** True for errors that say the database cannot be reached (as opposed to a bad query or a refused change). */
-export function isDatabaseUnreachable(err: unknown): boolean {
-	let cause: unknown = err;
-	for (let depth = 0; cause && depth < 4; depth++) {
-		if (cause instanceof ConnectionError) return true;
-		const c = cause as { code?: unknown; fatal?: unknown; parent?: unknown; original?: unknown; cause?: unknown };
-		if (typeof c.code === 'string' && LOST_CONNECTION.test(c.code)) return true;
-		if (c.fatal === true) return true;
-		cause = c.parent ?? c.original ?? c.cause;
-	}
-	return false;
-}
 
 let downSince: number | null = null;
 let probe: NodeJS.Timeout | null = null;

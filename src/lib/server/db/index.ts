@@ -1,15 +1,19 @@
 import { Sequelize } from 'sequelize';
 import { config } from '../config';
 import { initModels } from './models';
+import { routeReads } from './readRouting';
 
 let instance: Sequelize | null = null;
 
 export function db(): Sequelize {
 	if (instance) return instance;
+	const { replica } = config.db;
+	const server = (at: { host: string; port: number }) => ({ host: at.host, port: at.port, username: config.db.user, password: config.db.password });
 	instance = new Sequelize(config.db.name, config.db.user, config.db.password, {
 		host: config.db.host,
 		port: config.db.port,
 		dialect: 'mariadb',
+		replication: replica ? { read: [server(replica)], write: server(config.db) } : undefined,
 		logging: false,
 		pool: { max: config.db.poolMax, min: 0, idle: 10_000, acquire: 10_000 },
 		dialectOptions: { connectTimeout: 5_000 },
@@ -17,6 +21,7 @@ export function db(): Sequelize {
 		define: { underscored: true }
 	});
 	initModels(instance);
+	if (replica) routeReads(instance);
 	return instance;
 }
 
