@@ -13,7 +13,7 @@ export function db(): Sequelize {
 		host: config.db.host,
 		port: config.db.port,
 		dialect: 'mariadb',
-		replication: replica ? { read: [server(replica)], write: server(config.db) } : undefined,
+		...(replica ? { replication: { read: [server(replica)], write: server(config.db) } } : {}),
 		logging: false,
 		pool: { max: config.db.poolMax, min: 0, idle: 10_000, acquire: 10_000 },
 		dialectOptions: { connectTimeout: 5_000 },
