@@ -150,14 +150,14 @@ describe('database work for a page view', () => {
 		// The shop settings and the reader's followed pages are read once per reader, not per page.
 		await view(viewer);
 		const seen: string[] = [];
-		const sequelize = db();
-		const logging = sequelize.options.logging;
-		sequelize.options.logging = (sql: string) => seen.push(sql);
+		db().addHook('afterQuery', 'countQueries', (_options, query) => {
+			seen.push((query as unknown as { sql: string }).sql);
+		});
 		try {
 			const page = await view(viewer, 'metric', other.slug);
 			expect(page.vehicle.slug).toBe(other.slug);
 		} finally {
-			sequelize.options.logging = logging;
+			db().removeHook('afterQuery', 'countQueries');
 		}
 		expect(seen.length).toBeLessThanOrEqual(2);
 		expect(seen.join('\n')).toContain('rendered_pages');

@@ -44,7 +44,7 @@ async function renderAndStore(revisionId: number, units: UnitSystem): Promise<Re
 	const revision = await revisionById(revisionId);
 	if (!revision) return null;
 	const parts = partsOf(revision, units);
-	await storeParts(revision.sha256, units, RENDERER, JSON.stringify(parts));
+	await storeParts(revision.sha256, RENDERER, { [units]: JSON.stringify(parts) });
 	return parts;
 }
 
@@ -73,14 +73,13 @@ export function readingPage(slug: string, units: UnitSystem): Promise<ReadingPag
 	});
 }
 
-/** Renders and stores whatever unit system of a revision's parts is not stored yet. */
-async function renderMissing(revisionId: number): Promise<void> {
+/** Renders and stores whatever unit system of a revision's parts is not kept yet. */
+async function renderMissing(revisionId: number, kept?: UnitSystem[]): Promise<void> {
 	const revision = await revisionById(revisionId);
 	if (!revision) return;
-	const kept = await keptUnits(revision.sha256, RENDERER);
-	for (const units of UNIT_SYSTEMS) {
-		if (!kept.includes(units)) await storeParts(revision.sha256, units, RENDERER, JSON.stringify(partsOf(revision, units)));
-	}
+	const have = kept ?? (await keptUnits(revision.sha256, RENDERER));
+	const missing = UNIT_SYSTEMS.filter((u) => !have.includes(u));
+	await storeParts(revision.sha256, RENDERER, Object.fromEntries(missing.map((u) => [u, JSON.stringify(partsOf(revision, u))])));
 }
 
 // A new revision's parts are rendered as it is written, in both unit systems, so no reader waits for them.
@@ -99,8 +98,8 @@ export async function renderMissingParts(): Promise<number> {
 	let rendered = 0;
 	for (let after = 0; ; ) {
 		const batch = await currentRevisionsMissingParts(RENDERER, after, BATCH);
-		for (const { vehicleId, revisionId } of batch) {
-			await renderMissing(revisionId);
+		for (const { vehicleId, revisionId, kept } of batch) {
+			await renderMissing(revisionId, kept);
 			rendered++;
 			after = vehicleId;
 			await new Promise((resolve) => setImmediate(resolve));

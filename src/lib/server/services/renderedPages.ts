@@ -111,10 +111,12 @@ export async function storedParts(sha256: string, units: UnitSystem, renderer: s
 	return row?.parts ?? null;
 }
 
-/** Keeps a content's parts; parts already kept for the same content, units and renderer stay as they are. */
-export async function storeParts(sha256: string, units: UnitSystem, renderer: string, parts: string, transaction?: Transaction): Promise<void> {
-	await db().query('INSERT IGNORE INTO rendered_pages (sha256, units, renderer, parts) VALUES (?, ?, ?, ?)', {
-		replacements: [sha256, units, renderer, parts],
+/** Keeps a content's parts, one row per unit system; parts already kept for the same content, units and renderer stay as they are. */
+export async function storeParts(sha256: string, renderer: string, byUnits: Partial<Record<UnitSystem, string>>, transaction?: Transaction): Promise<void> {
+	const rows = Object.entries(byUnits);
+	if (!rows.length) return;
+	await db().query(`INSERT IGNORE INTO rendered_pages (sha256, units, renderer, parts) VALUES ${rows.map(() => '(?, ?, ?, ?)').join(', ')}`, {
+		replacements: rows.flatMap(([units, parts]) => [sha256, units, renderer, parts]),
 		transaction
 	});
 }
@@ -128,13 +130,20 @@ export async function keptUnits(sha256: string, renderer: string): Promise<UnitS
 	return rows.map((r) => r.units);
 }
 
-/** Current revisions of pages after `afterVehicleId`, in page order, that `renderer` has not kept in every unit system. */
-export async function currentRevisionsMissingParts(renderer: string, afterVehicleId: number, limit: number): Promise<{ vehicleId: number; revisionId: number }[]> {
-	const rows = await db().query<{ vehicleId: number; revisionId: number | string }>(
-		`SELECT v.id AS vehicleId, v.latest_revision_id AS revisionId FROM vehicles v JOIN revisions r ON r.id = v.latest_revision_id
-		WHERE v.id > :after AND (SELECT COUNT(*) FROM rendered_pages rp WHERE rp.sha256 = r.sha256 AND rp.renderer = :renderer) < 2
+/** Current revisions of pages after `afterVehicleId`, in page order, that `renderer` has not kept in every unit system, with those it has. */
+export async function currentRevisionsMissingParts(
+	renderer: string,
+	afterVehicleId: number,
+	limit: number
+): Promise<{ vehicleId: number; revisionId: number; kept: UnitSystem[] }[]> {
+	const rows = await db().query<{ vehicleId: number; revisionId: number | string; kept: string | null }>(
+		`SELECT v.id AS vehicleId, v.latest_revision_id AS revisionId,
+			(SELECT GROUP_CONCAT(rp.units) FROM rendered_pages rp WHERE rp.sha256 = r.sha256 AND rp.renderer = :renderer) AS kept
+		FROM vehicles v JOIN revisions r ON r.id = v.latest_revision_id
+		WHERE v.id > :after
+		HAVING kept IS NULL OR kept NOT LIKE '%,%'
 		ORDER BY v.id LIMIT :limit`,
 		{ replacements: { after: afterVehicleId, renderer, limit }, type: QueryTypes.SELECT }
 	);
-	return rows.map((r) => ({ vehicleId: Number(r.vehicleId), revisionId: Number(r.revisionId) }));
+	return rows.map((r) => ({ vehicleId: Number(r.vehicleId), revisionId: Number(r.revisionId), kept: (r.kept ? r.kept.split(',') : []) as UnitSystem[] }));
 }
