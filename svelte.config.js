@@ -7,7 +7,7 @@ const config = {
 	extensions: ['.svelte', '.svx'],
 	preprocess: [vitePreprocess(), mdsvex({ extensions: ['.svx'] })],
 	kit: {
-		adapter: adapter({ out: 'build' }),
+		adapter: adapter({ out: 'build', precompress: true }),
 		csrf: { trustedOrigins: [] },
 		// Hashes, not nonces: a page sent again from the page memo carries the same scripts and header.
 		csp: {

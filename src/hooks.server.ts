@@ -6,6 +6,7 @@ import { activeSessionUser } from '$lib/server/services/users';
 import { closeDb } from '$lib/server/db';
 import { startApp } from '$lib/server/lifecycle';
 import { spliceFragments } from '$lib/server/render/vehicleBody';
+import { renderMissingParts } from '$lib/server/render/readingPage';
 import { PageMemo, reuseRenders } from '$lib/server/render/pageMemo';
 import { layoutData } from '$lib/server/views/layout';
 import { vehiclePageData } from '$lib/server/views/vehiclePage';
@@ -18,6 +19,7 @@ import { freshReads } from '$lib/server/freshReads';
 
 export const init: ServerInit = async () => {
 	await startApp();
+	void renderMissingParts().catch((err) => console.error('[kickpanel] stored page parts not rendered at start-up; pages render on first view', err));
 	process.once('sveltekit:shutdown', () => {
 		void closeDb();
 	});

@@ -14,19 +14,13 @@ export type VehicleBody = {
 	quickFactsColumns: string;
 };
 
-type Outline = Record<SectionKey, { empty: boolean; notes: boolean }>;
-/** A body with what every view of it hands out, worked out once. */
-type CachedBody = { body: VehicleBody; outline: Outline; fragments: Record<string, string> };
+export type Outline = Record<SectionKey, { empty: boolean; notes: boolean }>;
 
-// A body depends on the content alone, so it is rendered once per content and unit system and kept (a
-// restore shares its revision's): a page view then only renders what depends on the reader.
-const cache = new Map<string, CachedBody>();
-const CACHE_LIMIT = 2_000;
+/** A body with its outline: the same for every reader of one content in one unit system. */
+export type RenderedBody = { body: VehicleBody; outline: Outline };
 
-export function vehicleBody(revision: StoredRevision, units: UnitSystem): CachedBody {
-	const key = `${revision.sha256}:${units}`;
-	const hit = cache.get(key);
-	if (hit) return hit;
+/** Renders a revision's figures, tables, notes and quick facts in one unit system. */
+export function renderBody(revision: Pick<StoredRevision, 'content' | 'rendered'>, units: UnitSystem): RenderedBody {
 	const { content, rendered } = revision;
 	const sections = {} as VehicleBody['sections'];
 	for (const section of SECTION_KEYS) {
@@ -44,21 +38,23 @@ export function vehicleBody(revision: StoredRevision, units: UnitSystem): Cached
 		quickFactsColumns: render(QuickFacts, { props: { content, units, columns: true } }).body
 	};
 	const outline = Object.fromEntries(SECTION_KEYS.map((k) => [k, { empty: sections[k].empty, notes: sections[k].notes !== '' }])) as Outline;
+	return { body, outline };
+}
+
+/** The named placeholders of a full page view and the HTML that fills each. */
+export function bodyFragments(body: VehicleBody): Record<string, string> {
 	const fragments: Record<string, string> = { 'quick-facts': body.quickFacts, 'quick-facts-columns': body.quickFactsColumns };
 	for (const k of SECTION_KEYS) {
-		fragments[`section-${k}`] = sections[k].html;
-		fragments[`notes-${k}`] = sections[k].notes;
+		fragments[`section-${k}`] = body.sections[k].html;
+		fragments[`notes-${k}`] = body.sections[k].notes;
 	}
-	const cached = { body, outline, fragments };
-	if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
-	cache.set(key, cached);
-	return cached;
+	return fragments;
 }
 
 /** Client navigations get the body as data; a full page view gets it spliced into the HTML by the handle hook. */
-export function deliverBody(locals: App.Locals, { body, outline, fragments }: CachedBody, isDataRequest: boolean) {
+export function deliverBody(locals: App.Locals, { body, outline }: RenderedBody, isDataRequest: boolean) {
 	if (isDataRequest) return { outline, body };
-	locals.fragments = fragments;
+	locals.fragments = bodyFragments(body);
 	return { outline, body: null };
 }
 

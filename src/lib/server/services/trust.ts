@@ -166,7 +166,6 @@ export async function trustSummary(vehicleId: number, readerRevisionId: number |
 }
 
 async function computeTrustSummary(vehicleId: number, currentId: number | null, units: UnitSystem): Promise<TrustSummary> {
-	const current = currentId ? await revisionById(currentId) : null;
 	const rows = await Confirmation.findAll({
 		where: { vehicleId },
 		include: [{ model: User, as: 'user', attributes: ['name'] }],
@@ -179,9 +178,12 @@ async function computeTrustSummary(vehicleId: number, currentId: number | null, 
 	const onCurrent = new Set(confirms.filter((r) => Number(r.revisionId) === currentId).map((r) => r.userId)).size;
 	const latest = confirms[0];
 
+	const flags = rows.filter((x) => x.kind === 'flag');
+	// The current content is read only when a flag names a field: most pages have none.
+	const current = currentId && flags.some((f) => f.fieldPath !== null) ? await revisionById(currentId) : null;
 	const openFlags: TrustFlag[] = [];
 	let closedFlags = 0;
-	for (const r of rows.filter((x) => x.kind === 'flag')) {
+	for (const r of flags) {
 		const path = r.fieldPath;
 		let open = true;
 		if (path !== null && current) {

@@ -1,44 +1,51 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { requireRole } from '../auth/guard';
 import { vehicleBySlug } from '../services/vehicles';
-import { pageRevision } from '../services/visibility';
+import { readableHead } from '../services/renderedPages';
 import { isWatching } from '../services/watch';
 import { trustSummary } from '../services/trust';
 import { canEditVehicle } from '../services/revisions';
 import { vehicleSlug } from '../../domain/slug';
-import { deliverBody, vehicleBody } from '../render/vehicleBody';
+import { deliverBody } from '../render/vehicleBody';
+import { partsFor, readingPage } from '../render/readingPage';
 
 type VehiclePageEvent = Pick<RequestEvent<{ slug: string }>, 'locals' | 'params' | 'url' | 'isDataRequest'>;
 
-/** Everything the reading view of a vehicle page shows, for the signed-in reader. */
+/**
+ * Everything the reading view of a vehicle page shows, for the signed-in reader. What does not depend on
+ * the reader comes stored with the page's row (see render/readingPage.ts); the rest is who reads, whether
+ * they follow the page, and its trust marks.
+ */
 export async function vehiclePageData({ locals, params, url, isDataRequest }: VehiclePageEvent) {
 	const user = requireRole(locals, 'viewer');
-	const found = await vehicleBySlug(params.slug);
-	if (!found) error(404, 'No vehicle page at this address.');
-	if ('redirectTo' in found) redirect(301, `/vehicles/${found.redirectTo}`);
-	const { vehicle } = found;
-	const [{ revision, newerAwaitingReview }, watching] = await Promise.all([pageRevision(vehicle, user), isWatching(user.id, vehicle.id)]);
-	if (!revision) {
+	const page = await readingPage(params.slug, locals.units);
+	if (!page) {
+		const moved = await vehicleBySlug(params.slug);
+		if (moved && 'redirectTo' in moved) redirect(301, `/vehicles/${moved.redirectTo}`);
+		error(404, 'No vehicle page at this address.');
+	}
+	const { vehicle } = page;
+	const [{ revision, newerAwaitingReview }, watching] = await Promise.all([readableHead(page, user), isWatching(user.id, vehicle.id)]);
+	const parts = revision && (revision.id === page.latest?.id ? page.parts : await partsFor(revision, locals.units));
+	if (!revision || !parts) {
 		error(404, newerAwaitingReview ? 'This new page is awaiting sign-off by a moderator.' : 'This vehicle page has no saved revision yet.');
 	}
 	const trust = await trustSummary(vehicle.id, revision.id, locals.units);
 	const saved = Number(url.searchParams.get('saved'));
-	// The identity notes are in the cached fragments; the header needs only the names and years.
-	const { notes: _notes, ...identity } = revision.content.identity;
 	return {
 		vehicle,
-		identity,
-		photos: revision.content.photos,
-		// A full page view gets the cached figures and notes spliced into its HTML (see hooks.server.ts) instead of
+		identity: parts.identity,
+		photos: parts.photos,
+		// A full page view gets the stored figures and notes spliced into its HTML (see hooks.server.ts) instead of
 		// serialising them twice; a client-side navigation receives them as data.
-		...deliverBody(locals, vehicleBody(revision, locals.units), isDataRequest),
+		...deliverBody(locals, parts, isDataRequest),
 		revision: { id: revision.id, authorName: revision.authorName, createdAt: revision.createdAt.toISOString(), summary: revision.summary },
 		canEdit: canEditVehicle(user, vehicle),
 		watching,
 		trust,
 		newerAwaitingReview,
 		// A rename waiting for sign-off: lists, search and the address keep the signed-off name until then.
-		listedAs: vehicleSlug(revision.content.identity) === vehicle.slug ? null : vehicle.title,
+		listedAs: vehicleSlug(parts.identity) === vehicle.slug ? null : vehicle.title,
 		units: locals.units,
 		flash: Number.isInteger(saved) && saved > 0 ? { revisionId: saved, merged: url.searchParams.get('merged') === '1' } : null
 	};

@@ -1,0 +1,128 @@
+// npm run bench:transfer — what a phone downloads for the fullest sample vehicle page: a first view with an
+// empty browser cache, and a repeat view with the cache warm. Headless Chromium (Debian's) at 390 px counts
+// the bytes that crossed the network for every request: the page, scripts, styles, fonts and photos.
+import { readFile } from 'node:fs/promises';
+import { loadavg, tmpdir } from 'node:os';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import mariadb from 'mariadb';
+import { chromium, type Page } from 'playwright-core';
+import { benchDatabase, startBuiltApp, writeResults } from './lib';
+
+const DB_PORT = Number(process.env.BENCH_DB_PORT ?? 3347);
+const APP_PORT = Number(process.env.BENCH_APP_PORT ?? 3348);
+const FIRST_VIEW_KB = 150;
+const REPEAT_VIEW_KB = 20;
+
+const db = benchDatabase('transfer', DB_PORT);
+db.start();
+process.env.DB_NAME = 'kickpanel';
+// Server modules read the database settings when first imported, so they come in after the port is set.
+const { migrateToLatest } = await import('../../src/lib/server/db/migrate');
+const { closeDb } = await import('../../src/lib/server/db');
+const { seedSampleShop } = await import('../../src/lib/server/services/seed');
+const read = async (name: string) => JSON.parse(await readFile(`content-seed/${name}`, 'utf8'));
+await migrateToLatest();
+await seedSampleShop({
+	shop: (await read('shop.json')).shop,
+	users: (await read('users.json')).users,
+	vehicles: (await read('vehicles.json')).vehicles,
+	parts: (await read('parts.json')).parts
+});
+await closeDb();
+
+// The fullest sample page: the one whose current revision holds the most.
+const conn = await mariadb.createConnection({ host: '127.0.0.1', port: DB_PORT, user: 'kickpanel', password: 'kickpanel-local', database: 'kickpanel' });
+const [{ slug }] = await conn.query('SELECT v.slug FROM vehicles v JOIN revisions r ON r.id = v.latest_revision_id ORDER BY LENGTH(r.content) DESC LIMIT 1');
+await conn.end();
+const viewer = (await read('users.json')).users.find((u: { role: string }) => u.role === 'viewer');
+
+const base = `http://127.0.0.1:${APP_PORT}`;
+const app = await startBuiltApp(APP_PORT, { ...db.env, DB_NAME: 'kickpanel', AUTH_SECRET: 'bench-secret-bench-secret-bench-secret' });
+const profile = mkdtempSync(join(tmpdir(), 'kickpanel-transfer-'));
+const browser = await chromium.launchPersistentContext(profile, {
+	executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+	headless: true,
+	viewport: { width: 390, height: 844 },
+	deviceScaleFactor: 3,
+	isMobile: true,
+	hasTouch: true,
+	args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync']
+});
+
+type Transfer = { bytes: number; requests: number; fromCache: number; byKind: Record<string, number>; largest: [string, number][] };
+
+/** Opens the address and scrolls to the end (so lazy photos load too), adding up the bytes each response took on the wire. */
+async function measure(page: Page, url: string): Promise<Transfer> {
+	const cdp = await page.context().newCDPSession(page);
+	await cdp.send('Network.enable');
+	const kinds = new Map<string, string>();
+	const cached = new Set<string>();
+	const urls = new Map<string, string>();
+	const result: Transfer = { bytes: 0, requests: 0, fromCache: 0, byKind: {}, largest: [] };
+	cdp.on('Network.responseReceived', (e) => {
+		kinds.set(e.requestId, e.type);
+		urls.set(e.requestId, `${e.response.status} ${new URL(e.response.url).pathname}`);
+		if (e.response.fromDiskCache || e.response.fromPrefetchCache || e.response.fromServiceWorker) cached.add(e.requestId);
+	});
+	cdp.on('Network.requestServedFromCache', (e) => cached.add(e.requestId));
+	cdp.on('Network.loadingFinished', (e) => {
+		result.requests++;
+		if (cached.has(e.requestId)) result.fromCache++;
+		const kind = kinds.get(e.requestId) ?? 'Other';
+		result.bytes += e.encodedDataLength;
+		result.byKind[kind] = (result.byKind[kind] ?? 0) + e.encodedDataLength;
+		result.largest.push([urls.get(e.requestId) ?? e.requestId, e.encodedDataLength]);
+	});
+	await page.goto(url, { waitUntil: 'networkidle' });
+	await page.evaluate(async () => {
+		for (let y = 0; y < document.body.scrollHeight; y += window.innerHeight) {
+			window.scrollTo(0, y);
+			await new Promise((r) => setTimeout(r, 50));
+		}
+	});
+	await page.waitForLoadState('networkidle');
+	await cdp.detach();
+	result.largest = result.largest.sort((a, b) => b[1] - a[1]).slice(0, 8);
+	return result;
+}
+
+try {
+	const page = await browser.newPage();
+	await page.goto(`${base}/signin`, { waitUntil: 'networkidle' });
+	await page.fill('#email', viewer.email);
+	await page.fill('#password', viewer.password);
+	await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/signin')), page.click('button:has-text("Sign in")')]);
+	// The sign-in pages filled the cache with the shared scripts; a first view starts from nothing.
+	const cdp = await browser.newCDPSession(page);
+	await cdp.send('Network.clearBrowserCache');
+	await cdp.detach();
+
+	const url = `${base}/vehicles/${slug}`;
+	const first = await measure(page, url);
+	await page.goto('about:blank');
+	const repeat = await measure(page, url);
+	const kb = (b: number) => (b / 1024).toFixed(1);
+	const kinds = (t: Transfer) =>
+		Object.entries(t.byKind)
+			.sort((a, b) => b[1] - a[1])
+			.map(([k, b]) => `${k} ${kb(b)} KB`)
+			.join(', ');
+	const mark = (ok: boolean) => (ok ? 'met' : 'MISSED');
+	writeResults('transfer', { slug, first, repeat, loadAverage: loadavg() });
+	console.log(`
+what a phone downloads for /vehicles/${slug} (390 px, headless Chromium, loopback)
+  first view, empty cache   ${kb(first.bytes)} KB in ${first.requests} requests (target ≤ ${FIRST_VIEW_KB} KB) [${mark(first.bytes <= FIRST_VIEW_KB * 1024)}]
+    ${kinds(first)}
+    largest: ${first.largest.map(([u, b]) => `${u} ${kb(b)} KB`).join(', ')}
+  repeat view, warm cache   ${kb(repeat.bytes)} KB in ${repeat.requests} requests, ${repeat.fromCache} from the cache (target ≤ ${REPEAT_VIEW_KB} KB) [${mark(repeat.bytes <= REPEAT_VIEW_KB * 1024)}]
+    ${kinds(repeat)}
+    largest: ${repeat.largest.map(([u, b]) => `${u} ${kb(b)} KB`).join(', ')}
+`);
+} finally {
+	await browser.close();
+	rmSync(profile, { recursive: true, force: true });
+	app.kill('SIGTERM');
+	await new Promise((r) => app.once('exit', r));
+	db.stop();
+}

@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { emptyContent, SECTION_KEYS } from '../../../src/lib/domain/content/schema';
+import { renderNotes } from '../../../src/lib/server/services/rendering';
+import { bodyFragments, spliceFragments } from '../../../src/lib/server/render/vehicleBody';
+import { partsOf } from '../../../src/lib/server/render/readingPage';
+import { seatSpace } from '../../helpers/places';
+
+function sample() {
+	const content = emptyContent({ make: 'Ostrel', model: 'Carrow', yearFrom: 2011, yearTo: 2016, body: 'wagon' });
+	content.identity.notes = 'Trim clips are **brittle** in the cold.';
+	// 254 mm is exactly 10 in: the inch is 25.4 mm by definition (international yard and pound, 1959).
+	content.seats.spaces = [seatSpace('s1', 'driver', 254, 300, 100)];
+	return { content, rendered: renderNotes(content) };
+}
+
+describe('the stored parts of a reading view', () => {
+	it('hold the figures in the unit system they were rendered for', () => {
+		const metric = JSON.stringify(partsOf(sample(), 'metric').body);
+		const imperial = JSON.stringify(partsOf(sample(), 'imperial').body);
+		expect(metric).toContain('254 mm');
+		expect(imperial).toContain('10.00 in');
+		expect(imperial).not.toContain('254 mm');
+	});
+
+	it('keep the header’s names and photos but leave the identity notes to the body', () => {
+		const parts = partsOf(sample(), 'metric');
+		expect(parts.identity.make).toBe('Ostrel');
+		expect('notes' in parts.identity).toBe(false);
+		expect(parts.photos).toEqual([]);
+		expect(parts.body.sections.identity.notes).toContain('<strong>brittle</strong>');
+		expect(parts.outline.identity).toEqual({ empty: false, notes: true });
+		expect(parts.outline.power.empty).toBe(true);
+	});
+
+	it('read back from JSON exactly as rendered', () => {
+		const parts = partsOf(sample(), 'imperial');
+		expect(JSON.parse(JSON.stringify(parts))).toEqual(parts);
+	});
+
+	it('fill every placeholder of a full page view and leave the rest of the page alone', () => {
+		const { body } = partsOf(sample(), 'metric');
+		const fragments = bodyFragments(body);
+		expect(Object.keys(fragments).sort()).toEqual(
+			['quick-facts', 'quick-facts-columns', ...SECTION_KEYS.flatMap((k) => [`section-${k}`, `notes-${k}`])].sort()
+		);
+		const page = '<main><div data-kp-fragment="notes-identity"></div><p>kept</p><div data-kp-fragment="unknown"></div></main>';
+		expect(spliceFragments(page, fragments)).toBe(
+			`<main><div data-kp-fragment="notes-identity">${fragments['notes-identity']}</div><p>kept</p><div data-kp-fragment="unknown"></div></main>`
+		);
+	});
+});
