@@ -10,7 +10,6 @@ import {
 	readAmpCurrent,
 	readBank,
 	readImpedances,
-	readJobSheetQuery,
 	readLadder,
 	readPowerWire,
 	readResistances,
@@ -20,6 +19,7 @@ import { ampCurrent, powerWire } from '../../src/lib/domain/power';
 import { ladderReport, parallel, series, suggestSeparator } from '../../src/lib/domain/ladder';
 import { speakerCablePlan, parallelImpedance, seriesImpedance, seriesParallelImpedance } from '../../src/lib/domain/speaker';
 import { jobSheet } from '../../src/lib/domain/jobSheet';
+import { readJobSheetQuery } from '../../src/lib/domain/jobSheetQuery';
 import { emptyContent } from '../../src/lib/domain/content/schema';
 import { POST as ampCurrentApi } from '../../src/routes/api/calc/amp-current/+server';
 import { POST as powerWireApi } from '../../src/routes/api/calc/power-wire/+server';
@@ -107,8 +107,9 @@ describe('calculator forms and page queries never throw', () => {
 		const content = emptyContent({ make: 'Quillan', model: 'Tarrow', yearFrom: 2011, yearTo: 2015, body: 'sedan' });
 		fc.assert(
 			fc.property(fc.record({ power: text, ground: text, remote: text, speaker: text, speakers: text, cores: text }), fc.constantFrom('mm', 'in') as fc.Arbitrary<'mm' | 'in'>, (q, unit) => {
-				const r = readJobSheetQuery((name) => q[name], unit);
-				jobSheet({ content, parts: [], powerM: r.lengths.power, groundM: r.lengths.ground, remoteM: r.lengths.remote, speakerM: r.lengths.speaker, speakers: r.speakers, coresPerCable: r.cores });
+				const params = new URLSearchParams(Object.entries(q));
+				const r = readJobSheetQuery(params, unit, content.identity);
+				jobSheet({ content, parts: [], powerM: r.lengths.power, groundM: r.grounds, branchM: r.branches, remoteM: r.lengths.remote, speakerM: r.lengths.speaker, speakers: r.speakers, coresPerCable: r.cores });
 			}),
 			{ numRuns: 300 }
 		);

@@ -2,6 +2,8 @@ import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEM
 import { readLength, readOhms, type LengthUnit } from './units';
 import { DEFAULT_CIRCUIT, type ControlLine, type ESeries, type LadderCircuit } from './ladder';
 import { runLengthProblem } from './sizeRules';
+import { DEFAULT_MATERIAL, type CableMaterial } from './wire';
+import { MAX_AMPLIFIERS, type DistributionInput } from './distribution';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per
 // field. The same readers run on the server (a GET form without JavaScript) and in the browser.
@@ -69,7 +71,7 @@ export function readAmpCurrent(f: Fields<AmpFields>): Read<AmpFields, AmpCurrent
 
 // ---- Power wire and fuse ----
 
-export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct' | 'tempC' | 'ownFuseA';
+export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct' | 'tempC' | 'ownFuseA' | 'material';
 export const POWER_DEFAULTS: Record<PowerFields, string> = {
 	currentA: '',
 	powerLength: '',
@@ -77,8 +79,17 @@ export const POWER_DEFAULTS: Record<PowerFields, string> = {
 	volts: String(NOMINAL_VOLTS),
 	maxDropPct: String(ABYC_E11_CRITICAL_DROP_PCT),
 	tempC: String(DEFAULT_CONDUCTOR_TEMP_C),
-	ownFuseA: ''
+	ownFuseA: '',
+	material: DEFAULT_MATERIAL
 };
+
+/** The cable material chosen in a form: copper unless CCA is picked. */
+export function readMaterial(text: string | null | undefined): { material: CableMaterial } | { error: string } {
+	const t = (text ?? '').trim().toLowerCase();
+	if (t === '' || t === 'copper') return { material: 'copper' };
+	if (t === 'cca') return { material: 'cca' };
+	return { error: `Cable material "${(text ?? '').trim()}" is not one we stock: choose copper or CCA.` };
+}
 
 const length = (text: string | undefined, label: string, unit: LengthUnit, allowZero: boolean): number | string => {
 	const t = (text ?? '').trim();
@@ -93,7 +104,8 @@ const length = (text: string | undefined, label: string, unit: LengthUnit, allow
 
 /** Run lengths are typed in metres (unit "mm") or feet (unit "in"); a unit in the text wins. */
 export function readPowerWire(f: Fields<PowerFields>, unit: LengthUnit = 'mm'): Read<PowerFields, PowerWireInput> {
-	const { values, errors } = collect<PowerFields>({
+	const material = readMaterial(f.material);
+	const { values, errors } = collect<Exclude<PowerFields, 'material'>>({
 		currentA: () => readNumber(f.currentA, { label: 'Current', unit: 'A', above: 0, max: 2000 }),
 		powerLength: () => length(f.powerLength, 'Power run length', unit, false),
 		groundLength: () => length(f.groundLength, 'Ground lead length', unit, true),
@@ -103,14 +115,16 @@ export function readPowerWire(f: Fields<PowerFields>, unit: LengthUnit = 'mm'): 
 		// Left empty when the amplifiers' own fuses are not known.
 		ownFuseA: () => ((f.ownFuseA ?? '').trim() === '' ? 0 : readNumber(f.ownFuseA, { label: "Amplifiers' own fuses", unit: 'A', above: 0, max: 2000 }))
 	});
-	return done(errors, () => ({
+	const all: Partial<Record<PowerFields, string>> = 'error' in material ? { ...errors, material: material.error } : errors;
+	return done(all, () => ({
 		currentA: values.currentA,
 		powerLengthM: values.powerLength,
 		groundLengthM: values.groundLength,
 		volts: values.volts,
 		maxDropPct: values.maxDropPct,
 		tempC: values.tempC,
-		ownFuseA: values.ownFuseA || null
+		ownFuseA: values.ownFuseA || null,
+		material: 'material' in material ? material.material : DEFAULT_MATERIAL
 	}));
 }
 
@@ -267,41 +281,53 @@ export function buttonsText(line: ControlLine): string {
 	return line.buttons.map((b) => `${b.name} = ${b.ohms}`).join('\n');
 }
 
-// ---- Job sheet ----
+// ---- Several amplifiers on one run ----
 
-export type JobSheetFields = 'power' | 'ground' | 'remote' | 'speaker' | 'speakers' | 'cores';
-const RUN_FIELDS = ['power', 'ground', 'remote', 'speaker'] as const;
-
-export interface JobSheetQuery {
-	lengths: Partial<Record<(typeof RUN_FIELDS)[number], number>>;
-	speakers?: number;
-	cores?: number;
-	errors: Partial<Record<JobSheetFields, string>>;
+export interface DistributionRow {
+	currentA: string;
+	fuseA: string;
+	branch: string;
+	ground: string;
 }
+export type DistributionFields = 'mainLength' | 'material' | 'remoteOut';
+export const DISTRIBUTION_DEFAULTS: Record<DistributionFields, string> = { mainLength: '', material: DEFAULT_MATERIAL, remoteOut: '' };
+export const emptyDistributionRow = (): DistributionRow => ({ currentA: '', fuseA: '', branch: '0.5', ground: '0.5' });
 
-/** The job sheet's typed run lengths (metres, or feet for imperial, unless the text names its unit) and counts. */
-export function readJobSheetQuery(get: (name: JobSheetFields) => string | null, unit: LengthUnit): JobSheetQuery {
-	const out: JobSheetQuery = { lengths: {}, errors: {} };
-	for (const f of RUN_FIELDS) {
-		const text = (get(f) ?? '').trim();
-		if (!text) continue;
-		try {
-			const m = readLength('m', text, unit);
-			if (!(m >= 0) || m > 30) out.errors[f] = 'A run length is between 0 and 30 m (98 ft).';
-			else out.lengths[f] = m;
-		} catch (e) {
-			out.errors[f] = (e as Error).message;
-		}
-	}
-	for (const [name, label, min, max] of [
-		['speakers', 'Speakers', 0, 64],
-		['cores', 'Cores per cable', 2, 24]
-	] as const) {
-		const text = get(name);
-		if (!text) continue;
-		const n = readNumber(text, { label, whole: true, min, max });
-		if (typeof n === 'string') out.errors[name] = n;
-		else out[name] = n;
-	}
-	return out;
+/** The distribution form: one row an amplifier (rows left wholly empty are skipped); errors keyed by field or "row1.currentA". */
+export function readDistribution(rows: readonly DistributionRow[], f: Fields<DistributionFields>, unit: LengthUnit = 'mm'): Read<string, DistributionInput> {
+	const errors: Record<string, string> = {};
+	const used = rows.filter((r) => r.currentA.trim() !== '' || r.fuseA.trim() !== '');
+	if (used.length === 0) errors['row1.currentA'] = 'Enter the current of at least one amplifier.';
+	if (used.length > MAX_AMPLIFIERS) errors.form = `At most ${MAX_AMPLIFIERS} amplifiers on one run.`;
+	const amps: { currentA: number; fuseA: number | null }[] = [];
+	const branches: number[] = [];
+	const grounds: number[] = [];
+	used.forEach((r, i) => {
+		const at = (k: keyof DistributionRow) => `row${i + 1}.${k}`;
+		const current = readNumber(r.currentA, { label: 'Current', unit: 'A', above: 0, max: 1000 });
+		const fuse = r.fuseA.trim() === '' ? null : readNumber(r.fuseA, { label: 'Own fuse', unit: 'A', above: 0, max: 1000 });
+		const branch = length(r.branch, 'Branch length', unit, false);
+		const ground = length(r.ground, 'Ground lead length', unit, true);
+		if (typeof current === 'string') errors[at('currentA')] = current;
+		if (typeof fuse === 'string') errors[at('fuseA')] = fuse;
+		if (typeof branch === 'string') errors[at('branch')] = branch;
+		if (typeof ground === 'string') errors[at('ground')] = ground;
+		if (typeof current === 'number' && typeof fuse !== 'string') amps.push({ currentA: current, fuseA: fuse });
+		if (typeof branch === 'number') branches.push(branch);
+		if (typeof ground === 'number') grounds.push(ground);
+	});
+	const main = length(f.mainLength, 'Main cable length', unit, false);
+	if (typeof main === 'string') errors.mainLength = main;
+	const material = readMaterial(f.material);
+	if ('error' in material) errors.material = material.error;
+	const remote = (f.remoteOut ?? '').trim() === '' ? null : readNumber(f.remoteOut, { label: "Head unit's remote output", unit: 'A', above: 0, max: 5 });
+	if (typeof remote === 'string') errors.remoteOut = remote;
+	return done(errors, () => ({
+		amps,
+		mainLengthM: main as number,
+		branchLengthsM: amps.length > 1 ? branches : [],
+		groundLengthsM: grounds,
+		material: 'material' in material ? material.material : DEFAULT_MATERIAL,
+		headUnitRemoteA: remote as number | null
+	}));
 }

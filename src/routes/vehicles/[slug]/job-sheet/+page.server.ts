@@ -7,7 +7,7 @@ import { listParts, partsByIds } from '$lib/server/services/parts';
 import { measurementOrigins, placeReaders } from '$lib/server/services/evidence';
 import { trustSummary } from '$lib/server/services/trust';
 import { jobSheet } from '$lib/domain/jobSheet';
-import { readJobSheetQuery } from '$lib/domain/calcInput';
+import { readJobSheetQuery } from '$lib/domain/jobSheetQuery';
 import { BODY_STYLE_NAMES, BATTERY_LOCATION_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 
 export const load: PageServerLoad = async ({ locals, params, url }) => {
@@ -25,14 +25,19 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			measurementOrigins(rev, placeReaders(rev.content))
 		]);
 
-		const { lengths, speakers, cores, errors } = readJobSheetQuery((name) => q.get(name), unit);
+		const read = readJobSheetQuery(q, unit, rev.content.identity);
+		const { lengths, speakers, cores, errors } = read;
 
 		const sheet = jobSheet({
 			content: rev.content,
 			parts,
+			typedAmps: read.typedAmps,
+			material: read.material,
+			headUnitRemoteA: read.remoteOutA ?? null,
 			powerRunId: q.get('run'),
 			powerM: lengths.power ?? null,
-			groundM: lengths.ground ?? null,
+			groundM: read.grounds ?? null,
+			branchM: read.branches ?? null,
 			remoteM: lengths.remote ?? null,
 			speakerM: lengths.speaker ?? null,
 			speakers: speakers ?? null,
@@ -67,6 +72,10 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 				run: sheet.powerRun.id ?? '',
 				power: q.get('power') ?? '',
 				ground: q.get('ground') ?? '',
+				branch: q.get('branch') ?? '',
+				material: read.material,
+				remoteOut: q.get('remoteOut') ?? '',
+				ampRows: read.ampRows,
 				remote: q.get('remote') ?? '',
 				speaker: q.get('speaker') ?? '',
 				speakers: q.get('speakers') ?? '',
@@ -76,6 +85,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 				speakerAt: q.get('speakerAt') ?? '',
 				unit
 			},
+			customer: read.customer,
+			years: { from: rev.content.identity.yearFrom, to: rev.content.identity.yearTo },
 			errors,
 			units: locals.units,
 			printedAt: new Date().toISOString()
