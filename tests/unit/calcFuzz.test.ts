@@ -23,6 +23,7 @@ import { readJobSheetQuery } from '../../src/lib/domain/jobSheetQuery';
 import { emptyContent } from '../../src/lib/domain/content/schema';
 import { POST as ampCurrentApi } from '../../src/routes/api/calc/amp-current/+server';
 import { POST as powerWireApi } from '../../src/routes/api/calc/power-wire/+server';
+import { POST as distributionApi } from '../../src/routes/api/calc/distribution/+server';
 import { GET as awgApi } from '../../src/routes/api/calc/awg/[...n]/+server';
 
 // Every calculator form and query reads any text as a value or a message, and every calculator
@@ -125,7 +126,8 @@ const value = fc.oneof(text, fc.double(), fc.integer(), fc.constant(null), fc.bo
 describe('calculator endpoints answer a value or a 4xx', () => {
 	it.each([
 		['amp-current', ampCurrentApi, ['rmsWattsPerChannel', 'channels', 'efficiency', 'volts']],
-		['power-wire', powerWireApi, ['currentA', 'powerLengthM', 'groundLengthM', 'volts', 'maxDropPct', 'tempC', 'ownFuseA']]
+		['power-wire', powerWireApi, ['currentA', 'powerLengthM', 'groundLengthM', 'volts', 'maxDropPct', 'tempC', 'ownFuseA', 'material']],
+		['distribution', distributionApi, ['amps', 'mainLengthM', 'branchLengthsM', 'groundLengthsM', 'material', 'volts', 'headUnitRemoteA']]
 	] as const)('%s with random JSON bodies', async (_, handler, keys) => {
 		await fc.assert(
 			fc.asyncProperty(fc.dictionary(fc.constantFrom(...keys), value), async (body) => {
@@ -159,15 +161,38 @@ describe('calculator endpoints answer a value or a 4xx', () => {
 		expect(await wire.json()).toMatchObject({ awg: '4', fuseA: 80, basis: { volts: 12, maxDropPct: 3, tempC: 20 } });
 	});
 
+	it('the distribution endpoint plans two amplifiers and refuses bad input with field messages', async () => {
+		// Worked by hand in the distribution tests: main 6 AWG with a 100 A fuse; branches 12 AWG 30 A and 8 AWG 60 A
+		const res = await post(distributionApi, JSON.stringify({ amps: [{ currentA: 23.53, fuseA: 25 }, { currentA: 47.35, fuseA: 60 }], mainLengthM: 2, branchLengthsM: [0.5, 0.5], groundLengthsM: [0.3, 0.3] }));
+		expect(res.status).toBe(200);
+		const body = await res.json();
+		expect(body.main).toMatchObject({ awg: '6', fuseA: 100, label: '6 AWG (13.3 mm²)' });
+		expect(body.branches.map((b: { awg: string; fuseA: number }) => [b.awg, b.fuseA])).toEqual([['12', 30], ['8', 60]]);
+		expect(body.grounds.map((g: { awg: string }) => g.awg)).toEqual(['12', '8']);
+		expect(body.basis).toMatch(/copper \(OFC\)/);
+		const bad = await post(distributionApi, JSON.stringify({ amps: [{ currentA: 0 }], mainLengthM: 2, branchLengthsM: [], groundLengthsM: [] }));
+		expect(bad.status).toBe(400);
+		expect((await bad.json()).fieldErrors).toMatchObject({ 'amps.0.currentA': expect.stringMatching(/more than 0 A/) });
+		const tooMuch = await post(distributionApi, JSON.stringify({ amps: [{ currentA: 200 }, { currentA: 200 }], mainLengthM: 2 }));
+		expect(tooMuch.status).toBe(422);
+	});
+
 	it('the gauge endpoint states its basis', async () => {
 		// ASTM B258: 4 AWG is 0.2043 in = 5.189 mm across
-		const res = await awgApi({ locals: viewer, params: { n: '4' } } as never);
-		expect(await res.json()).toMatchObject({ diameterMm: expect.closeTo(5.189, 3), basis: expect.stringMatching(/ASTM B258.*IEC 60028.*20 °C/) });
+		const res = await awgApi({ locals: viewer, params: { n: '4' }, url: new URL('http://kickpanel.test/api/calc/awg/4') } as never);
+		// ASTM B258: 41,740 cmil = 21.2 mm²
+		expect(await res.json()).toMatchObject({ label: '4 AWG (21.2 mm²)', material: 'copper', diameterMm: expect.closeTo(5.189, 3), basis: expect.stringMatching(/ASTM B258.*IEC 60028.*20 °C/) });
+		// ASTM B566, 10 % class: 62.9 % of copper's conductivity; 0.8152 Ω/km (AWG table, from memory) / 0.629 = 1.296 Ω/km
+		const cca = await awgApi({ locals: viewer, params: { n: '4' }, url: new URL('http://kickpanel.test/api/calc/awg/4?material=cca') } as never);
+		expect(await cca.json()).toMatchObject({ material: 'cca', ohmsPerKm: expect.closeTo(1.296, 2), basis: expect.stringMatching(/ASTM B566/) });
+		const bad = await awgApi({ locals: viewer, params: { n: '4' }, url: new URL('http://kickpanel.test/api/calc/awg/4?material=tin') } as never);
+		expect(bad.status).toBe(400);
+		expect((await bad.json()).message).toMatch(/copper or cca/);
 	});
 
 	it('the gauge endpoint answers every naughty path with a value or a 400', async () => {
 		for (const s of [...NAUGHTY, '%', '%E0%A4%A', '1%2F0']) {
-			const res = await awgApi({ locals: viewer, params: { n: s } } as never);
+			const res = await awgApi({ locals: viewer, params: { n: s }, url: new URL('http://kickpanel.test/api/calc/awg/x') } as never);
 			expect(res.status === 200 || res.status === 400).toBe(true);
 		}
 	});

@@ -7,7 +7,7 @@ import { speakerCablePlan, type SpeakerCablePlan } from './speaker';
 import { DEFAULT_CIRCUIT, ladderReport, suggestSeparator, type ControlLine, type LadderReport, type SeparatorResult } from './ladder';
 import { amplifierEfficiency, partBox, type Amplifier, type Part, type Speaker } from './part';
 import { dashFit, pickLocation, pickSpace, seatSpaceFits, speakerLocationFits, type LocationFit, type SpaceFit } from './fitCheck';
-import type { DepthFit } from './fit';
+import type { Box, DepthFit } from './fit';
 
 // What an installer takes to the car: lengths to cut, gauge, fuse, where things go, what to
 // watch for. Everything here is worked out from the page and the chosen parts.
@@ -67,6 +67,8 @@ export interface JobSheetInput {
 	material?: CableMaterial;
 	/** The head unit's remote output rating, A, when known. */
 	headUnitRemoteA?: number | null;
+	/** A box typed on the fit screen (mm), placed like a catalogue enclosure. */
+	box?: Box | null;
 }
 
 export interface CutLine {
@@ -117,6 +119,8 @@ export interface JobSheet {
 	cutList: CutLine[];
 	speakerCable: (SpeakerCablePlan & { gauge: string }) | null;
 	mounting: Mounting[];
+	/** The typed box and where it goes. */
+	typedBox: { box: Box; seat: { chosen: SpaceFit | null; all: SpaceFit[] } } | null;
 	ladder: { report: LadderReport; separator: SeparatorResult | null; lines: ControlLine[] } | null;
 	cautions: string[];
 	/** Things the sheet could not work out, in words. */
@@ -286,6 +290,9 @@ export function jobSheet(input: JobSheetInput): JobSheet {
 		return { part, speaker: { chosen: pickLocation(all, input.speakerLocation), all } };
 	});
 
+	const typedBoxFits = input.box ? seatSpaceFits(content.seats.spaces, input.box) : null;
+	const typedBox = input.box && typedBoxFits ? { box: input.box, seat: { chosen: pickSpace(typedBoxFits, input.seat), all: typedBoxFits } } : null;
+
 	const lines: ControlLine[] = content.harness.ladder.lines
 		.map((l) => ({ name: l.name || 'Unnamed line', buttons: l.buttons.flatMap((b) => (b.ohms === null ? [] : [{ name: b.name || 'Unnamed button', ohms: b.ohms }])) }))
 		.filter((l) => l.buttons.length > 0);
@@ -299,5 +306,5 @@ export function jobSheet(input: JobSheetInput): JobSheet {
 			: null;
 
 	const basis = distribution?.ok ? distribution.basis : electricalBasis(volts, { maxDropPct, material });
-	return { amplifiers, currentA, basis, volts, material, powerRun, distribution, wire, fuse, cutList, speakerCable, mounting, ladder, cautions: [...WORK_CAUTIONS], gaps, assumptions };
+	return { amplifiers, currentA, basis, volts, material, powerRun, distribution, wire, fuse, cutList, speakerCable, mounting, typedBox, ladder, cautions: [...WORK_CAUTIONS], gaps, assumptions };
 }

@@ -7,6 +7,8 @@ import { MAX_AMPLIFIERS } from './distribution';
 import type { TypedAmplifier } from './jobSheet';
 import type { AmpClass } from './power';
 import type { CableMaterial } from './wire';
+import type { Box } from './fit';
+import { readTypedBox } from './typedBox';
 
 // The job sheet's address: typed run lengths (metres, or feet for imperial, unless the text names
 // its unit), typed amplifiers (one value of each field a row, in order), the cable, and the
@@ -40,6 +42,8 @@ export interface JobSheetQuery {
 	/** The rows as typed, for the form to show again. */
 	ampRows: TypedAmpRow[];
 	customer: JobCustomer;
+	/** A box typed on the fit screen, mm. */
+	box: Box | null;
 	/** One message per field; a typed amplifier's under "amp1", "amp2" … */
 	errors: Record<string, string>;
 }
@@ -73,7 +77,6 @@ export function readJobCustomer(q: QueryReader, years: { yearFrom: number; yearT
 		const vin = decodeVinBasics(c.vin);
 		if (vin.problem) errors.vin = vin.problem;
 		else c.vin = vin.vin;
-		if (!vin.problem && vin.modelYear !== null && vin.region === 'north-america' && c.year === '') c.year = String(vin.modelYear);
 	}
 	const yearProblem = modelYearProblem(c.year, years);
 	if (yearProblem) errors.year = yearProblem;
@@ -138,7 +141,7 @@ export function readJobSheetQuery(q: QueryReader, unit: LengthUnit, years: { yea
 		else if (read.length > MAX_AMPLIFIERS) errors[f] = `At most ${MAX_AMPLIFIERS} lengths, one for each amplifier.`;
 		else lists[f] = read as number[];
 	}
-	const out: JobSheetQuery = { lengths, grounds: lists.ground, branches: lists.branch, material: 'copper', typedAmps: [], ampRows: [], customer: { customer: '', order: '', vin: '', year: '' }, errors };
+	const out: JobSheetQuery = { lengths, grounds: lists.ground, branches: lists.branch, material: 'copper', typedAmps: [], ampRows: [], customer: { customer: '', order: '', vin: '', year: '' }, box: null, errors };
 	for (const [name, label, min, max] of [
 		['speakers', 'Speakers', 0, 64],
 		['cores', 'Cores per cable', 2, 24]
@@ -162,6 +165,10 @@ export function readJobSheetQuery(q: QueryReader, unit: LengthUnit, years: { yea
 	out.typedAmps = typed.amps;
 	out.ampRows = typed.rows;
 	Object.assign(errors, typed.errors);
+	// The fit screen hands the box over in millimetres.
+	const box = readTypedBox({ l: q.get('boxL') ?? '', w: q.get('boxW') ?? '', h: q.get('boxH') ?? '' }, 'mm');
+	out.box = box.box;
+	for (const [side, message] of Object.entries(box.errors)) errors[`box${side.toUpperCase()}`] = message;
 	const customer = readJobCustomer(q, years);
 	out.customer = customer.customer;
 	Object.assign(errors, customer.errors);
