@@ -48,7 +48,7 @@ describe('sealed box', () => {
 				fc.double({ min: 15, max: 80, noNaN: true }),
 				fc.double({ min: 0.2, max: 0.6, noNaN: true }),
 				fc.double({ min: 10, max: 300, noNaN: true }),
-				fc.double({ min: 0.05, max: 1, noNaN: true }),
+				fc.double({ min: 0.1, max: 1, noNaN: true }),
 				(fs, qts, vas, extra) => {
 					const qtc = qts + extra;
 					const b = sealedBox({ fsHz: fs, qts, vasL: vas, qtc });

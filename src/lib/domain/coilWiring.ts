@@ -61,6 +61,7 @@ export const loadInputSchema = z.object({
 	partId: z.number({ error: 'Part must be a catalogue number.' }).int('Part must be a catalogue number.').positive('Part must be a catalogue number.').optional()
 });
 export type LoadInput = z.input<typeof loadInputSchema>;
+export type LoadRequest = z.output<typeof loadInputSchema>;
 
 /** Identical groups as one: the total count, with the shared coil figures. */
 export function mergeDrivers(groups: readonly DriverGroup[]): DriverGroup {
@@ -206,4 +207,14 @@ export function ampLoadCheck(amp: AmpLoadFigures, ohms: number, bridged = false)
 			? `${stable} About ${watts} W RMS bridged: twice the ${rated.watts} W a channel is rated at ${ohmsText(rated.ohms)}, the nearest rated load at or above ${ohmsText(perChannel)} (not interpolated).`
 			: `${stable} Rated ${watts} W RMS at ${ohmsText(rated.ohms)}, the nearest rated load at or above ${ohmsText(perChannel)} (not interpolated).`
 	};
+}
+
+export interface LoadOption extends WiringOption {
+	/** Against the chosen amplifier, when one was given. */
+	check?: AmpLoadCheck;
+}
+
+/** Every wiring, each checked against the amplifier when there is one. */
+export function loadPlan(drivers: readonly DriverGroup[], opts: { bridged?: boolean } = {}, amp: AmpLoadFigures | null = null): LoadOption[] {
+	return wiringOptions(drivers, opts).map((o) => (amp ? { ...o, check: ampLoadCheck(amp, o.ohms, opts.bridged ?? false) } : o));
 }

@@ -11,10 +11,10 @@ export const BUTTERWORTH_QTC = Math.SQRT1_2;
 
 export const sealedInputSchema = z
 	.object({
-		fsHz: z.number({ error: 'Fs must be a number of hertz.' }).positive('Fs must be more than 0 Hz.').max(500, 'Fs over 500 Hz looks like a typo for a woofer.'),
-		qts: z.number({ error: 'Qts must be a number.' }).positive('Qts must be more than 0.').max(3, 'Qts over 3 looks like a typo.'),
-		vasL: z.number({ error: 'Vas must be a number of litres.' }).positive('Vas must be more than 0 L.').max(2000, 'Vas over 2000 L looks like a typo.'),
-		qtc: z.number({ error: 'Qtc must be a number.' }).positive('Qtc must be more than 0.').max(3, 'Qtc over 3 looks like a typo.')
+		fsHz: z.number({ error: 'Fs must be a number of hertz.' }).positive('Fs must be more than 0 Hz.').min(5, 'Fs under 5 Hz looks like a typo.').max(500, 'Fs over 500 Hz looks like a typo for a woofer.'),
+		qts: z.number({ error: 'Qts must be a number.' }).positive('Qts must be more than 0.').min(0.05, 'Qts under 0.05 looks like a typo.').max(3, 'Qts over 3 looks like a typo.'),
+		vasL: z.number({ error: 'Vas must be a number of litres.' }).positive('Vas must be more than 0 L.').min(0.1, 'Vas under 0.1 L looks like a typo.').max(2000, 'Vas over 2000 L looks like a typo.'),
+		qtc: z.number({ error: 'Qtc must be a number.' }).positive('Qtc must be more than 0.').min(0.3, 'Qtc under 0.3 is not a useful sealed box.').max(3, 'Qtc over 3 looks like a typo.')
 	})
 	.refine((v) => v.qtc > v.qts, {
 		message: "Qtc must be higher than the driver's Qts: a sealed box only ever raises Q.",
