@@ -177,11 +177,8 @@ export function amplifierEfficiency(part: Pick<Amplifier, 'ampClass' | 'efficien
 
 // ---- The catalogue form: every field is typed text ----
 
-/** Form field names; lengths take mm or inches ("3.5 in"), a bare number in the form's unit. */
-export const PART_FIELDS = [
-	'kind',
-	'sku',
-	'name',
+// An amplifier's form fields, in form order.
+const AMPLIFIER_FIELDS = [
 	'lengthMm',
 	'widthMm',
 	'heightMm',
@@ -195,7 +192,15 @@ export const PART_FIELDS = [
 	'rms1OhmW',
 	'minLoadOhm',
 	'bridgeable',
-	'bridgedRmsW',
+	'bridgedRmsW'
+] as const;
+
+/** Form field names; lengths take mm or inches ("3.5 in"), a bare number in the form's unit. */
+export const PART_FIELDS = [
+	'kind',
+	'sku',
+	'name',
+	...AMPLIFIER_FIELDS,
 	'dinSize',
 	'chassisDepthMm',
 	'nominalSize',
@@ -362,22 +367,7 @@ export function partFieldsFromForm(entries: Iterable<[string, FormDataEntryValue
 
 /** Which form fields a kind uses, in form order. */
 export const KIND_FIELDS: Readonly<Record<PartKind, readonly PartField[]>> = {
-	amplifier: [
-		'lengthMm',
-		'widthMm',
-		'heightMm',
-		'channels',
-		'rmsWattsPerChannel',
-		'ampClass',
-		'efficiency',
-		'fuseRatingA',
-		'rms4OhmW',
-		'rms2OhmW',
-		'rms1OhmW',
-		'minLoadOhm',
-		'bridgeable',
-		'bridgedRmsW'
-	],
+	amplifier: AMPLIFIER_FIELDS,
 	'head-unit': ['dinSize', 'chassisDepthMm', 'lengthMm', 'widthMm', 'heightMm'],
 	speaker: ['nominalSize', 'cutoutMm', 'mountingDepthMm', 'impedanceOhm', 'voiceCoils', 'ohmsPerCoil'],
 	enclosure: ['lengthMm', 'widthMm', 'heightMm']
