@@ -28,6 +28,10 @@ describe('charging budget', () => {
 		// 100 − 92 = 8 A, under 10 % of 100 A.
 		expect(chargingBudget({ alternatorA: 100, vehicleLoadA: 30, addedLoadA: 62 }).verdict).toBe('tight');
 		expect(chargingBudget({ alternatorA: 100, vehicleLoadA: 30, addedLoadA: 60 }).verdict).toBe('keeps-up');
+		// Idle: 65 − 65 = 0 A spare, under 10 % of 65 A, though cruise has 45 A.
+		const idle = chargingBudget({ alternatorA: 110, alternatorIdleA: 65, vehicleLoadA: 25, addedLoadA: 40 });
+		expect(idle).toMatchObject({ verdict: 'tight', headroomA: 45, idleHeadroomA: 0 });
+		expect(idle.words).toMatch(/but only 0 A at idle/);
 	});
 
 	it('advises heavier charging cables from a fifth of the output, sized on the wire rules', () => {

@@ -130,6 +130,9 @@ export function chargingBudget(input: ChargingInput): ChargingBudget {
 	} else if (headroomA < TIGHT_HEADROOM_SHARE * alternatorA) {
 		verdict = 'tight';
 		words = `Keeps up, but only ${a1(headroomA)} spare at cruise, less than a tenth of the alternator's output (common practice asks for more).`;
+	} else if (idleHeadroomA !== null && alternatorIdleA !== null && idleHeadroomA < TIGHT_HEADROOM_SHARE * alternatorIdleA) {
+		verdict = 'tight';
+		words = `Keeps up with ${a1(headroomA)} spare at cruise, but only ${a1(idleHeadroomA)} at idle, less than a tenth of the alternator's idle output (common practice asks for more).`;
 	} else {
 		verdict = 'keeps-up';
 		words = `Keeps up: ${a1(headroomA)} spare at cruise${idleHeadroomA === null ? '' : ` and ${a1(idleHeadroomA)} at idle`}.`;
