@@ -41,6 +41,10 @@ describe('install calculators on a phone', () => {
 		expect(await page.getByTestId('charging-cables').locator('tbody tr').count()).toBe(3);
 		expect(await page.getByTestId('charging-cables').textContent()).toMatch(/4 AWG/);
 		expect(await page.getByTestId('cautions').textContent()).toMatch(/negative terminal first/);
+		// 13.2 V running is below the 13.8–14.4 V a charging system holds (common practice).
+		await page.locator('button:has-text("Work it out")').waitFor({ state: 'detached' });
+		await page.fill('#ch-run', '13.2');
+		await expect.poll(() => page.getByTestId('battery-reading').textContent()).toMatch(/not keeping the battery charged/);
 		await screenshot(page, 'calc-charging-phone');
 		await page.close();
 	});
@@ -75,6 +79,38 @@ describe('install calculators on a phone', () => {
 		await page.fill('#sb-qtc', '0.3');
 		await expect.poll(() => page.locator('#sb-qtc-error').textContent()).toMatch(/higher than the driver's Qts/);
 		await screenshot(page, 'calc-sealed-box-phone');
+		await page.close();
+	});
+
+	it("records an amplifier's rated loads, minimum load and bridging in the catalogue", async () => {
+		const page = await freshPage(PHONE);
+		await signIn(page, 'moderator');
+		await page.goto(`${BASE}/parts/new`);
+		// Invented figures for a test part, not a real product.
+		await page.fill('#part-sku', 'TEST-LOADS-2');
+		await page.fill('#part-name', 'Test two-channel with load figures');
+		for (const [field, value] of [
+			['lengthMm', '260'],
+			['widthMm', '180'],
+			['heightMm', '55'],
+			['channels', '2'],
+			['rmsWattsPerChannel', '75'],
+			['rms4OhmW', '75'],
+			['rms2OhmW', '110'],
+			['minLoadOhm', 'two']
+		]) {
+			await page.fill(`#part-amplifier-${field}`, value);
+		}
+		await page.selectOption('#part-amplifier-bridgeable', 'yes');
+		await page.fill('#part-amplifier-bridgedRmsW', '220');
+		await page.click('button:has-text("Add to the catalogue")');
+		await expect.poll(() => page.locator('#part-amplifier-minLoadOhm-error').textContent()).toBe('"two" is not a number.');
+		await page.fill('#part-amplifier-minLoadOhm', '2');
+		await Promise.all([page.waitForURL((u) => u.searchParams.get('saved') === '1'), page.click('button:has-text("Add to the catalogue")')]);
+		const figures = await page.locator('dl').first().textContent();
+		expect(figures).toMatch(/RMS at 2 Ω\s*110 W per channel/);
+		expect(figures).toMatch(/Minimum load\s*2 Ω per channel/);
+		expect(figures).toMatch(/Bridgeable\s*yes, 220 W RMS at 4 Ω bridged/);
 		await page.close();
 	});
 

@@ -26,7 +26,7 @@ import { POST as powerWireApi } from '../../src/routes/api/calc/power-wire/+serv
 import { GET as awgApi } from '../../src/routes/api/calc/awg/[...n]/+server';
 import { BOX_DEFAULTS, CHARGING_DEFAULTS, COIL_DEFAULTS, SEALED_DEFAULTS, readBox, readCharging, readCoilWiring, readSealed } from '../../src/lib/domain/calcInput';
 import { loadPlan } from '../../src/lib/domain/coilWiring';
-import { chargingBudget } from '../../src/lib/domain/charging';
+import { chargingBudget, readBatteryVoltage } from '../../src/lib/domain/charging';
 import { enclosureVolume } from '../../src/lib/domain/boxVolume';
 import { sealedBox } from '../../src/lib/domain/sealedBox';
 import { POST as loadApi } from '../../src/routes/api/calc/load/+server';
@@ -188,7 +188,10 @@ describe('install calculators: forms and endpoints', () => {
 				const coil = readCoilWiring(c);
 				if (coil.ok) expect(loadPlan(coil.input.drivers, { bridged: coil.input.bridged }).every((o) => Number.isFinite(o.ohms))).toBe(true);
 				const charging = readCharging(ch);
-				if (charging.ok) expect(Number.isFinite(chargingBudget(charging.input).headroomA)).toBe(true);
+				if (charging.ok) {
+					expect(Number.isFinite(chargingBudget(charging.input.budget).headroomA)).toBe(true);
+					for (const [v, running] of [[charging.input.restingV, false], [charging.input.runningV, true]] as const) if (v !== null) expect(readBatteryVoltage(v, running).words).toBeTruthy();
+				}
 				const box = readBox({ ...b, port: b.port ?? 'round' });
 				if (box.ok) expect(enclosureVolume(box.input).netL).toBeGreaterThan(0);
 				const sealed = readSealed(s);

@@ -334,24 +334,35 @@ export function readCoilWiring(f: Fields<CoilFields>): Read<CoilFields, { driver
 
 // ---- Charging budget ----
 
-export type ChargingFields = 'alternatorA' | 'alternatorIdleA' | 'vehicleLoadA' | 'addedLoadA';
-export const CHARGING_DEFAULTS: Record<ChargingFields, string> = { alternatorA: '', alternatorIdleA: '', vehicleLoadA: '', addedLoadA: '' };
+export type ChargingFields = 'alternatorA' | 'alternatorIdleA' | 'vehicleLoadA' | 'addedLoadA' | 'restingV' | 'runningV';
+export const CHARGING_DEFAULTS: Record<ChargingFields, string> = { alternatorA: '', alternatorIdleA: '', vehicleLoadA: '', addedLoadA: '', restingV: '', runningV: '' };
 
-export function readCharging(f: Fields<ChargingFields>): Read<ChargingFields, ChargingInput> {
-	const { values, errors } = collect<ChargingFields>({
-		alternatorA: () => readNumber(f.alternatorA, { label: 'Alternator output at cruise', unit: 'A', above: 0, max: 500 }),
-		// Left empty when the idle figure is not known.
-		alternatorIdleA: () => ((f.alternatorIdleA ?? '').trim() === '' ? -1 : readNumber(f.alternatorIdleA, { label: 'Alternator output at idle', unit: 'A', min: 0, max: 500 })),
-		vehicleLoadA: () => readNumber(f.vehicleLoadA, { label: "The vehicle's own load", unit: 'A', min: 0, max: 500 }),
-		addedLoadA: () => readNumber(f.addedLoadA, { label: 'Added load', unit: 'A', min: 0, max: 1000 })
-	});
-	if (values.alternatorIdleA > values.alternatorA && !errors.alternatorA) errors.alternatorIdleA = "The alternator's output at idle cannot be more than at cruise.";
-	return done(errors, () => ({
-		alternatorA: values.alternatorA,
-		alternatorIdleA: values.alternatorIdleA < 0 ? null : values.alternatorIdleA,
-		vehicleLoadA: values.vehicleLoadA,
-		addedLoadA: values.addedLoadA
-	}));
+/** The budget's figures, and the voltmeter readings at the battery when they were taken. */
+export interface ChargingQuery {
+	budget: ChargingInput;
+	restingV: number | null;
+	runningV: number | null;
+}
+
+// Left empty when not known or not measured.
+const optional = (text: string | undefined, rule: NumberRule): number | null | string => ((text ?? '').trim() === '' ? null : readNumber(text, rule));
+
+export function readCharging(f: Fields<ChargingFields>): Read<ChargingFields, ChargingQuery> {
+	const errors: Partial<Record<ChargingFields, string>> = {};
+	const got = <T>(key: ChargingFields, v: T | string): T => {
+		if (typeof v === 'string') errors[key] = v;
+		return v as T;
+	};
+	const alternatorA = got<number>('alternatorA', readNumber(f.alternatorA, { label: 'Alternator output at cruise', unit: 'A', above: 0, max: 500 }));
+	const alternatorIdleA = got<number | null>('alternatorIdleA', optional(f.alternatorIdleA, { label: 'Alternator output at idle', unit: 'A', min: 0, max: 500 }));
+	const vehicleLoadA = got<number>('vehicleLoadA', readNumber(f.vehicleLoadA, { label: "The vehicle's own load", unit: 'A', min: 0, max: 500 }));
+	const addedLoadA = got<number>('addedLoadA', readNumber(f.addedLoadA, { label: 'Added load', unit: 'A', min: 0, max: 1000 }));
+	const restingV = got<number | null>('restingV', optional(f.restingV, { label: 'Battery at rest', unit: 'V', above: 0, max: 20 }));
+	const runningV = got<number | null>('runningV', optional(f.runningV, { label: 'Battery running', unit: 'V', above: 0, max: 20 }));
+	if (!errors.alternatorA && !errors.alternatorIdleA && alternatorIdleA !== null && alternatorIdleA > alternatorA) {
+		errors.alternatorIdleA = "The alternator's output at idle cannot be more than at cruise.";
+	}
+	return done(errors, () => ({ budget: { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA }, restingV, runningV }));
 }
 
 // ---- Box volume and port ----
