@@ -25,6 +25,15 @@ import { POST as ampCurrentApi } from '../../src/routes/api/calc/amp-current/+se
 import { POST as powerWireApi } from '../../src/routes/api/calc/power-wire/+server';
 import { POST as distributionApi } from '../../src/routes/api/calc/distribution/+server';
 import { GET as awgApi } from '../../src/routes/api/calc/awg/[...n]/+server';
+import { BOX_DEFAULTS, CHARGING_DEFAULTS, COIL_DEFAULTS, SEALED_DEFAULTS, readBox, readCharging, readCoilWiring, readSealed } from '../../src/lib/domain/calcInput';
+import { loadPlan } from '../../src/lib/domain/coilWiring';
+import { chargingBudget, readBatteryVoltage } from '../../src/lib/domain/charging';
+import { enclosureVolume } from '../../src/lib/domain/boxVolume';
+import { sealedBox } from '../../src/lib/domain/sealedBox';
+import { POST as loadApi } from '../../src/routes/api/calc/load/+server';
+import { POST as chargingApi } from '../../src/routes/api/calc/charging/+server';
+import { POST as enclosureApi } from '../../src/routes/api/calc/enclosure/+server';
+import { POST as sealedApi } from '../../src/routes/api/calc/sealed/+server';
 
 // Every calculator form and query reads any text as a value or a message, and every calculator
 // endpoint answers any body with a value or a 4xx: never an exception, never a 5xx. The inputs are
@@ -195,5 +204,44 @@ describe('calculator endpoints answer a value or a 4xx', () => {
 			const res = await awgApi({ locals: viewer, params: { n: s }, url: new URL('http://kickpanel.test/api/calc/awg/x') } as never);
 			expect(res.status === 200 || res.status === 400).toBe(true);
 		}
+	});
+});
+
+describe('install calculators: forms and endpoints', () => {
+	it('subwoofer wiring, charging, box volume and sealed box forms read any text as figures or messages', () => {
+		fc.assert(
+			fc.property(fieldsOf(COIL_DEFAULTS), fieldsOf(CHARGING_DEFAULTS), fieldsOf(BOX_DEFAULTS), fieldsOf(SEALED_DEFAULTS), (c, ch, b, s) => {
+				const coil = readCoilWiring(c);
+				if (coil.ok) expect(loadPlan(coil.input.drivers, { bridged: coil.input.bridged }).every((o) => Number.isFinite(o.ohms))).toBe(true);
+				const charging = readCharging(ch);
+				if (charging.ok) {
+					expect(Number.isFinite(chargingBudget(charging.input.budget).headroomA)).toBe(true);
+					for (const [v, running] of [[charging.input.restingV, false], [charging.input.runningV, true]] as const) if (v !== null) expect(readBatteryVoltage(v, running).words).toBeTruthy();
+				}
+				const box = readBox({ ...b, port: b.port ?? 'round' });
+				if (box.ok) expect(enclosureVolume(box.input).netL).toBeGreaterThan(0);
+				const sealed = readSealed(s);
+				if (sealed.ok) expect(sealedBox(sealed.input).volumeL).toBeGreaterThan(0);
+				for (const r of [coil, charging, box, sealed]) if (!r.ok) expect(Object.values(r.errors).every((m) => typeof m === 'string' && m.length > 0)).toBe(true);
+			}),
+			{ numRuns: 500 }
+		);
+	});
+
+	it.each([
+		['load', loadApi, ['drivers', 'bridged']],
+		['charging', chargingApi, ['alternatorA', 'alternatorIdleA', 'vehicleLoadA', 'addedLoadA', 'runLengthsM']],
+		['enclosure', enclosureApi, ['outside', 'wallMm', 'driverDisplacementL', 'port']],
+		['sealed', sealedApi, ['fsHz', 'qts', 'vasL', 'qtc']]
+	] as const)('%s answers random JSON bodies and naughty strings with a value or a 4xx', async (_, handler, keys) => {
+		await fc.assert(
+			fc.asyncProperty(fc.dictionary(fc.constantFrom(...keys), fc.oneof(value, fc.array(value, { maxLength: 3 }), fc.dictionary(fc.string({ maxLength: 8 }), value))), async (body) => {
+				const res = await post(handler, JSON.stringify(body));
+				expect(res.status).toBeLessThan(500);
+				if (res.status >= 400) expect(typeof (await res.json()).message).toBe('string');
+			}),
+			{ numRuns: 200 }
+		);
+		for (const s of NAUGHTY.slice(0, 200)) expect((await post(handler, s)).status).toBeLessThan(500);
 	});
 });

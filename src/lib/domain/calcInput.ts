@@ -4,6 +4,11 @@ import { DEFAULT_CIRCUIT, type ControlLine, type ESeries, type LadderCircuit } f
 import { runLengthProblem } from './sizeRules';
 import { DEFAULT_MATERIAL, type CableMaterial } from './wire';
 import { MAX_AMPLIFIERS, type DistributionInput } from './distribution';
+import type { ZodType } from 'zod';
+import { MAX_DRIVERS, type DriverGroup } from './coilWiring';
+import type { ChargingInput } from './charging';
+import { enclosureInputSchema, type EnclosureInput } from './boxVolume';
+import { sealedInputSchema, type SealedInput } from './sealedBox';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per
 // field. The same readers run on the server (a GET form without JavaScript) and in the browser.
@@ -22,7 +27,7 @@ type NumberRule = { label: string; unit?: string; min?: number; above?: number; 
 export function readNumber(text: string | undefined, rule: NumberRule): number | string {
 	const typed = (text ?? '').trim();
 	// A unit is only read after a figure: "abc" stays "abc", never "ab" and a unit.
-	const t = typed.replace(/(?<=[\d.])\s*(%|a|v|w|°c|c|ω|ohms?)$/i, '');
+	const t = typed.replace(/(?<=[\d.])\s*(%|a|v|w|°c|c|ω|ohms?|hz|l)$/i, '');
 	const unit = rule.unit ? ` ${rule.unit}` : '';
 	if (t === '') return `Enter ${rule.label.toLowerCase()}${unit ? ` in${unit}` : ''}.`;
 	if (/^\d+,\d+$/.test(t)) return `Use a point for decimals: ${t.replace(',', '.')}.`;
@@ -330,4 +335,156 @@ export function readDistribution(rows: readonly DistributionRow[], f: Fields<Dis
 		material: 'material' in material ? material.material : DEFAULT_MATERIAL,
 		headUnitRemoteA: remote as number | null
 	}));
+}
+
+// ---- Subwoofer wiring ----
+
+export type CoilFields = 'count' | 'coils' | 'ohmsPerCoil' | 'bridged' | 'amp';
+export const COIL_DEFAULTS: Record<CoilFields, string> = { count: '2', coils: '2', ohmsPerCoil: '4', bridged: '', amp: '' };
+
+const ticked = (text: string | undefined) => text === 'on' || text === 'true' || text === 'yes';
+
+export function readCoilWiring(f: Fields<CoilFields>): Read<CoilFields, { drivers: DriverGroup[]; bridged: boolean; ampId: number | null }> {
+	const { values, errors } = collect<'count' | 'ohmsPerCoil' | 'coils' | 'amp'>({
+		count: () => readNumber(f.count, { label: 'Number of drivers', whole: true, min: 1, max: MAX_DRIVERS }),
+		coils: () => readNumber(f.coils, { label: 'Voice coils', whole: true, min: 1, max: 2 }),
+		ohmsPerCoil: () => readNumber(f.ohmsPerCoil, { label: 'Impedance per coil', unit: 'Ω', above: 0, max: 32 }),
+		amp: () => ((f.amp ?? '').trim() === '' ? 0 : readNumber(f.amp, { label: 'Amplifier', whole: true, min: 1, max: 2 ** 31 }))
+	});
+	return done(errors, () => ({
+		drivers: [{ count: values.count, coils: values.coils as 1 | 2, ohmsPerCoil: values.ohmsPerCoil }],
+		bridged: ticked(f.bridged),
+		ampId: values.amp || null
+	}));
+}
+
+// ---- Charging budget ----
+
+export type ChargingFields = 'alternatorA' | 'alternatorIdleA' | 'vehicleLoadA' | 'addedLoadA' | 'restingV' | 'runningV';
+export const CHARGING_DEFAULTS: Record<ChargingFields, string> = { alternatorA: '', alternatorIdleA: '', vehicleLoadA: '', addedLoadA: '', restingV: '', runningV: '' };
+
+/** The budget's figures, and the voltmeter readings at the battery when they were taken. */
+export interface ChargingQuery {
+	budget: ChargingInput;
+	restingV: number | null;
+	runningV: number | null;
+}
+
+// Left empty when not known or not measured.
+const optional = (text: string | undefined, rule: NumberRule): number | null | string => ((text ?? '').trim() === '' ? null : readNumber(text, rule));
+
+export function readCharging(f: Fields<ChargingFields>): Read<ChargingFields, ChargingQuery> {
+	const errors: Partial<Record<ChargingFields, string>> = {};
+	const got = <T>(key: ChargingFields, v: T | string): T => {
+		if (typeof v === 'string') errors[key] = v;
+		return v as T;
+	};
+	const alternatorA = got<number>('alternatorA', readNumber(f.alternatorA, { label: 'Alternator output at cruise', unit: 'A', above: 0, max: 500 }));
+	const alternatorIdleA = got<number | null>('alternatorIdleA', optional(f.alternatorIdleA, { label: 'Alternator output at idle', unit: 'A', min: 0, max: 500 }));
+	const vehicleLoadA = got<number>('vehicleLoadA', readNumber(f.vehicleLoadA, { label: "The vehicle's own load", unit: 'A', min: 0, max: 500 }));
+	const addedLoadA = got<number>('addedLoadA', readNumber(f.addedLoadA, { label: 'Added load', unit: 'A', min: 0, max: 1000 }));
+	const restingV = got<number | null>('restingV', optional(f.restingV, { label: 'Battery at rest', unit: 'V', above: 0, max: 20 }));
+	const runningV = got<number | null>('runningV', optional(f.runningV, { label: 'Battery running', unit: 'V', above: 0, max: 20 }));
+	if (!errors.alternatorA && !errors.alternatorIdleA && alternatorIdleA !== null && alternatorIdleA > alternatorA) {
+		errors.alternatorIdleA = "The alternator's output at idle cannot be more than at cruise.";
+	}
+	return done(errors, () => ({ budget: { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA }, restingV, runningV }));
+}
+
+// ---- Box volume and port ----
+
+export type BoxFields = 'l' | 'w' | 'h' | 'wallMm' | 'driverL' | 'port' | 'diameterMm' | 'slotWidthMm' | 'slotHeightMm' | 'portLengthMm';
+export const BOX_DEFAULTS: Record<BoxFields, string> = {
+	l: '',
+	w: '',
+	h: '',
+	wallMm: '18',
+	driverL: '0',
+	port: 'none',
+	diameterMm: '',
+	slotWidthMm: '',
+	slotHeightMm: '',
+	portLengthMm: ''
+};
+
+/** A size in mm; "19.5 in" or "50 cm" are read in their own unit. */
+const size = (text: string | undefined, label: string): number | string => {
+	const t = (text ?? '').trim();
+	if (t === '') return `Enter the ${label.toLowerCase()} in mm.`;
+	try {
+		const mm = readLength('mm', t, 'mm');
+		return mm > 0 ? mm : `${label} must be more than 0 mm.`;
+	} catch (e) {
+		return `${label}: ${(e as Error).message}`;
+	}
+};
+
+/** The form's figures as the enclosure input; the schema then checks that they make a box. */
+export function readBox(f: Fields<BoxFields>): Read<BoxFields, EnclosureInput> {
+	const port = f.port === 'round' || f.port === 'slot' ? f.port : 'none';
+	const { values, errors } = collect<Exclude<BoxFields, 'port'>>({
+		l: () => size(f.l, 'Outside length'),
+		w: () => size(f.w, 'Outside width'),
+		h: () => size(f.h, 'Outside height'),
+		wallMm: () => size(f.wallMm, 'Wall thickness'),
+		driverL: () => ((f.driverL ?? '').trim() === '' ? 0 : readNumber(f.driverL, { label: 'Driver displacement', unit: 'L', min: 0, max: 200 })),
+		diameterMm: () => (port === 'round' ? size(f.diameterMm, 'Port diameter') : 0),
+		slotWidthMm: () => (port === 'slot' ? size(f.slotWidthMm, 'Slot width') : 0),
+		slotHeightMm: () => (port === 'slot' ? size(f.slotHeightMm, 'Slot height') : 0),
+		portLengthMm: () => (port === 'none' ? 0 : size(f.portLengthMm, 'Port length'))
+	});
+	if (Object.keys(errors).length) return { ok: false, errors };
+	const input: EnclosureInput = {
+		outside: { l: values.l, w: values.w, h: values.h },
+		wallMm: values.wallMm,
+		driverDisplacementL: values.driverL,
+		port:
+			port === 'round'
+				? { kind: 'round', diameterMm: values.diameterMm, lengthMm: values.portLengthMm }
+				: port === 'slot'
+					? { kind: 'slot', widthMm: values.slotWidthMm, heightMm: values.slotHeightMm, lengthMm: values.portLengthMm }
+					: undefined
+	};
+	return schemaRead(enclosureInputSchema, input, BOX_PATHS);
+}
+
+// Where a schema's complaint about the enclosure belongs on the form.
+const BOX_PATHS: Record<string, BoxFields> = {
+	'outside.l': 'l',
+	'outside.w': 'w',
+	'outside.h': 'h',
+	wallMm: 'wallMm',
+	driverDisplacementL: 'driverL',
+	'port.diameterMm': 'diameterMm',
+	'port.widthMm': 'slotWidthMm',
+	'port.heightMm': 'slotHeightMm',
+	'port.lengthMm': 'portLengthMm'
+};
+
+/** The figures checked by the domain's own schema, each complaint put on its form field. */
+function schemaRead<K extends string, T>(schema: ZodType<unknown, T>, input: T, paths: Record<string, K>): Read<K, T> {
+	const parsed = schema.safeParse(input);
+	if (parsed.success) return { ok: true, input };
+	const errors: Partial<Record<K, string>> = {};
+	for (const issue of parsed.error.issues) {
+		const field = paths[issue.path.join('.')] ?? (Object.values(paths)[0] as K);
+		errors[field] ??= issue.message;
+	}
+	return { ok: false, errors };
+}
+
+// ---- Sealed box ----
+
+export type SealedFields = 'fsHz' | 'qts' | 'vasL' | 'qtc';
+export const SEALED_DEFAULTS: Record<SealedFields, string> = { fsHz: '', qts: '', vasL: '', qtc: '0.707' };
+
+export function readSealed(f: Fields<SealedFields>): Read<SealedFields, SealedInput> {
+	const { values, errors } = collect<SealedFields>({
+		fsHz: () => readNumber(f.fsHz, { label: 'Fs', unit: 'Hz', above: 0, max: 500 }),
+		qts: () => readNumber(f.qts, { label: 'Qts', above: 0, max: 3 }),
+		vasL: () => readNumber(f.vasL, { label: 'Vas', unit: 'L', above: 0, max: 2000 }),
+		qtc: () => readNumber(f.qtc, { label: 'Qtc', above: 0, max: 3 })
+	});
+	if (Object.keys(errors).length) return { ok: false, errors };
+	return schemaRead(sealedInputSchema, { fsHz: values.fsHz, qts: values.qts, vasL: values.vasL, qtc: values.qtc }, { fsHz: 'fsHz', qts: 'qts', vasL: 'vasL', qtc: 'qtc' });
 }

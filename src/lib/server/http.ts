@@ -1,6 +1,7 @@
 import { error, isHttpError, json } from '@sveltejs/kit';
 import type { ZodType } from 'zod';
 import { EditConflictError, ServiceError, fieldMessages } from './errors';
+import { requireRole } from './auth/guard';
 
 /** Runs an API handler body and answers refusals as JSON 4xx with a message a person understands. */
 export async function apiCall(body: () => Promise<Response>): Promise<Response> {
@@ -65,4 +66,17 @@ export function queryInt(url: URL, name: string, range: { min: number; max: numb
 export function asHttpError(err: unknown): never {
 	if (err instanceof ServiceError) error(err.status, err.message);
 	throw err;
+}
+
+/**
+ * A calculator endpoint: any signed-in person may ask; the body is checked against the calculator's
+ * schema (400 with a message per field) and the answer is JSON.
+ */
+export function calcPost<T>(schema: ZodType<T>, answer: (input: T) => unknown): (event: { locals: App.Locals; request: Request }) => Promise<Response> {
+	return ({ locals, request }) =>
+		apiCall(async () => {
+			requireRole(locals, 'viewer');
+			const input = await readJson(request, schema);
+			return json(await answer(input));
+		});
 }
