@@ -46,7 +46,7 @@ describe('job sheet', () => {
 			['remote', 1, 5.3, '18 AWG (0.823 mm²)'],
 			['speaker', 4, 5.3, '16 AWG (1.31 mm²)']
 		]);
-		expect(sheet.gaps).toEqual([]);
+		expect(sheet.gaps).toEqual([expect.stringMatching(/^Charging budget: the page records no alternator output/)]);
 		expect(sheet.material).toBe('copper');
 		expect(sheet.basis).toMatch(/copper \(OFC\)/);
 		expect(sheet.distribution).toMatchObject({ ok: true, single: true, branches: [] });
@@ -177,5 +177,31 @@ describe('job sheet', () => {
 		expect(sheet.wire).toMatchObject({ ok: true, awg: '6', material: 'cca' });
 		expect(sheet.material).toBe('cca');
 		expect(sheet.basis).toMatch(/copper-clad aluminium \(CCA\)/);
+	});
+
+	it('shows the final load on the subwoofer amplifier and the charging verdict', () => {
+		const c = page();
+		c.boot.alternatorCruiseA = 110;
+		c.boot.alternatorIdleA = 65;
+		const sub = { ...mono, rms4OhmW: 300, rms2OhmW: 500, rms1OhmW: 800, minLoadOhm: 1, bridgeable: false, bridgedRmsW: null } as Part;
+		const sheet = jobSheet({ content: c, parts: [amp, sub], powerM: 2, groundM: 0.3, subwoofers: { drivers: { count: 1, coils: 2, ohmsPerCoil: 4 } }, vehicleLoadA: 25 });
+		// Ohm's law: one dual 4 Ω coil driver wires as 2 Ω (coils in parallel) or 8 Ω (in series); on the mono amplifier (fewest channels)
+		expect(sheet.load?.ampLabel).toBe('M1');
+		expect(sheet.load?.options.map((o) => o.ohms)).toEqual([2, 8]);
+		// 2 Ω is at or above the 1 Ω minimum and the maker rates 500 W there; 8 Ω has no rated figure, so 2 Ω is picked
+		expect(sheet.load?.chosen).toBe(0);
+		expect(sheet.load?.options[0].check).toMatchObject({ ok: true, ratedW: 500 });
+		// charging, by hand: 25 A + 70.88 A = 95.88 A; 110 A at cruise leaves 14.1 A (more than a tenth, 11 A);
+		// 65 A at idle falls 30.9 A short; the install's 70.9 A is over a fifth of 110 A, so the charging cables are upgraded (common practice)
+		expect(sheet.charging?.verdict).toBe('short-at-idle');
+		expect(sheet.charging?.headroomA).toBeCloseTo(14.12, 2);
+		expect(sheet.charging?.upgrade).toHaveLength(3);
+	});
+
+	it('asks for what the charging budget needs', () => {
+		expect(jobSheet({ content: page(), parts: [amp], powerM: 2 }).gaps.join(' ')).toMatch(/page records no alternator output/);
+		const c = page();
+		c.boot.alternatorCruiseA = 110;
+		expect(jobSheet({ content: c, parts: [amp], powerM: 2 }).gaps.join(' ')).toMatch(/type the vehicle's own load/);
 	});
 });

@@ -8,6 +8,8 @@ import { DEFAULT_CIRCUIT, ladderReport, suggestSeparator, type ControlLine, type
 import { amplifierEfficiency, partBox, type Amplifier, type Part, type Speaker } from './part';
 import { dashFit, pickLocation, pickSpace, seatSpaceFits, speakerLocationFits, type LocationFit, type SpaceFit } from './fitCheck';
 import type { Box, DepthFit } from './fit';
+import { loadPlan, type AmpLoadFigures, type DriverGroup, type LoadOption } from './coilWiring';
+import { chargingBudget, type ChargingBudget } from './charging';
 
 // What an installer takes to the car: lengths to cut, gauge, fuse, where things go, what to
 // watch for. Everything here is worked out from the page and the chosen parts.
@@ -69,6 +71,22 @@ export interface JobSheetInput {
 	headUnitRemoteA?: number | null;
 	/** A box typed on the fit screen (mm), placed like a catalogue enclosure. */
 	box?: Box | null;
+	/** Subwoofers on one amplifier: the drivers, which amplifier (its key), bridged or not, and the wiring picked. */
+	subwoofers?: { drivers: DriverGroup; ampKey?: string | null; bridged?: boolean; wiring?: number | null } | null;
+	/** The vehicle's own electrical load, A, for the charging budget. */
+	vehicleLoadA?: number | null;
+}
+
+export interface SheetLoad {
+	ampKey: string;
+	ampLabel: string;
+	drivers: DriverGroup;
+	bridged: boolean;
+	options: LoadOption[];
+	/** Index into options of the wiring on the sheet, or null when none suits the amplifier. */
+	chosen: number | null;
+	/** Whether the wiring was picked by the installer or by the sheet. */
+	picked: 'typed' | 'best';
 }
 
 export interface CutLine {
@@ -93,6 +111,8 @@ export interface Mounting {
 /** One amplifier on the sheet, from the catalogue or typed. */
 export interface SheetAmplifier {
 	key: string;
+	/** The maker's load figures (rated power at 4, 2 and 1 Ω, minimum load, bridging), when known. */
+	loadFigures: AmpLoadFigures | null;
 	label: string;
 	currentA: number;
 	/** At the running voltage; null when the current was typed rather than worked out. */
@@ -119,6 +139,9 @@ export interface JobSheet {
 	cutList: CutLine[];
 	speakerCable: (SpeakerCablePlan & { gauge: string }) | null;
 	mounting: Mounting[];
+	/** The load the subwoofer amplifier sees, every wiring checked. */
+	load: SheetLoad | null;
+	charging: ChargingBudget | null;
 	/** The typed box and where it goes. */
 	typedBox: { box: Box; seat: { chosen: SpaceFit | null; all: SpaceFit[] } } | null;
 	ladder: { report: LadderReport; separator: SeparatorResult | null; lines: ControlLine[] } | null;
@@ -150,7 +173,7 @@ export function typedAmplifier(t: TypedAmplifier, index: number, volts: number):
 	const label = t.name?.trim() || `Typed amplifier ${index + 1}`;
 	const fuseA = t.fuseA ?? null;
 	if (t.currentA != null) {
-		return { key: `typed-${index}`, label, currentA: t.currentA, runningCurrentA: null, channels: t.channels ?? null, fuseA, detail: 'current as typed', part: null };
+		return { key: `typed-${index}`, loadFigures: null, label, currentA: t.currentA, runningCurrentA: null, channels: t.channels ?? null, fuseA, detail: 'current as typed', part: null };
 	}
 	if (t.rmsWattsPerChannel == null || t.channels == null) return `${label}: give its RMS power per channel and channels, or its current.`;
 	if (t.ampClass == null) return `${label}: choose its class (A/B or D), or type its current.`;
@@ -158,6 +181,7 @@ export function typedAmplifier(t: TypedAmplifier, index: number, volts: number):
 	const draw = ampCurrent({ rmsWattsPerChannel: t.rmsWattsPerChannel, channels: t.channels, efficiency, volts });
 	return {
 		key: `typed-${index}`,
+		loadFigures: null,
 		label,
 		currentA: draw.currentA,
 		runningCurrentA: draw.runningCurrentA,
@@ -166,6 +190,37 @@ export function typedAmplifier(t: TypedAmplifier, index: number, volts: number):
 		detail: `${t.channels} × ${t.rmsWattsPerChannel} W RMS, ${AMP_CLASS_NAMES[t.ampClass]} at a typical ${Math.round(efficiency * 100)} % (common practice)`,
 		part: null
 	};
+}
+
+// With no amplifier named, the subwoofers go on the one with the fewest channels (a mono amplifier, usually).
+function sheetLoad(subs: JobSheetInput['subwoofers'], amplifiers: readonly SheetAmplifier[], gaps: string[]): SheetLoad | null {
+	if (!subs) return null;
+	const amp = amplifiers.find((a) => a.key === subs.ampKey) ?? [...amplifiers].sort((a, b) => (a.channels ?? 99) - (b.channels ?? 99))[0];
+	if (!amp) {
+		gaps.push('Subwoofers: choose the amplifier that drives them.');
+		return null;
+	}
+	const bridged = !!subs.bridged;
+	// A typed amplifier has no load figures: its minimum load is taken as the conservative 4 Ω.
+	const figures: AmpLoadFigures = amp.loadFigures ?? { rms4OhmW: null, rms2OhmW: null, rms1OhmW: null, minLoadOhm: null, bridgeable: bridged, bridgedRmsW: null };
+	const options = loadPlan([subs.drivers], { bridged }, figures);
+	let chosen: number | null = subs.wiring != null && subs.wiring >= 0 && subs.wiring < options.length ? subs.wiring : null;
+	const picked = chosen === null ? 'best' : 'typed';
+	if (chosen === null) {
+		// The stable wiring with the most rated power; among equals, the higher load (cooler running).
+		let best = -1;
+		options.forEach((o, i) => {
+			if (!o.check?.ok) return;
+			const b = best < 0 ? null : options[best];
+			const w = o.check.ratedW ?? 0;
+			const bw = b?.check?.ratedW ?? 0;
+			if (!b || w > bw || (w === bw && o.ohms > b.ohms)) best = i;
+		});
+		chosen = best < 0 ? null : best;
+	}
+	if (chosen === null) gaps.push(`Subwoofers: no wiring of these drivers suits ${amp.label}; choose another amplifier or other drivers.`);
+	else if (!options[chosen].check?.ok) gaps.push(`Subwoofers: ${options[chosen].check?.message}`);
+	return { ampKey: amp.key, ampLabel: amp.label, drivers: subs.drivers, bridged, options, chosen, picked };
 }
 
 const perAmp = (value: number | null | undefined | readonly number[], n: number): number[] | null => {
@@ -188,7 +243,7 @@ export function jobSheet(input: JobSheetInput): JobSheet {
 		const efficiency = amplifierEfficiency(p);
 		const draw = ampCurrent({ rmsWattsPerChannel: p.rmsWattsPerChannel, channels: p.channels, efficiency, volts });
 		const detail = `${p.channels} × ${p.rmsWattsPerChannel} W RMS, efficiency ${Math.round(efficiency * 100)} %${p.fuseRatingA ? `, own fuses ${p.fuseRatingA} A` : ''}`;
-		return [{ key: `part-${p.id}`, label: p.sku, currentA: draw.currentA, runningCurrentA: draw.runningCurrentA, channels: p.channels, fuseA: p.fuseRatingA, detail, part: p }];
+		return [{ key: `part-${p.id}`, loadFigures: p, label: p.sku, currentA: draw.currentA, runningCurrentA: draw.runningCurrentA, channels: p.channels, fuseA: p.fuseRatingA, detail, part: p }];
 	});
 	const typed = (input.typedAmps ?? []).map((t, i) => typedAmplifier(t, i, volts));
 	for (const t of typed) if (typeof t === 'string') gaps.push(t);
@@ -290,6 +345,22 @@ export function jobSheet(input: JobSheetInput): JobSheet {
 		return { part, speaker: { chosen: pickLocation(all, input.speakerLocation), all } };
 	});
 
+	const load = sheetLoad(input.subwoofers ?? null, amplifiers, gaps);
+	let charging: ChargingBudget | null = null;
+	if (amplifiers.length > 0) {
+		const { alternatorCruiseA, alternatorIdleA } = content.boot;
+		if (alternatorCruiseA === null) gaps.push("Charging budget: the page records no alternator output; measure or look up the alternator's rating and add it to the page.");
+		else if (input.vehicleLoadA == null) gaps.push("Charging budget: type the vehicle's own load (lights, fans, engine management) to check it against the alternator.");
+		else {
+			const alternatorIdle = alternatorIdleA !== null && alternatorIdleA <= alternatorCruiseA ? alternatorIdleA : null;
+			try {
+				charging = chargingBudget({ alternatorA: alternatorCruiseA, alternatorIdleA: alternatorIdle, vehicleLoadA: input.vehicleLoadA, addedLoadA: currentA });
+			} catch (e) {
+				gaps.push(`Charging budget: ${(e as Error).message}`);
+			}
+		}
+	}
+
 	const typedBoxFits = input.box ? seatSpaceFits(content.seats.spaces, input.box) : null;
 	const typedBox = input.box && typedBoxFits ? { box: input.box, seat: { chosen: pickSpace(typedBoxFits, input.seat), all: typedBoxFits } } : null;
 
@@ -306,5 +377,5 @@ export function jobSheet(input: JobSheetInput): JobSheet {
 			: null;
 
 	const basis = distribution?.ok ? distribution.basis : electricalBasis(volts, { maxDropPct, material });
-	return { amplifiers, currentA, basis, volts, material, powerRun, distribution, wire, fuse, cutList, speakerCable, mounting, typedBox, ladder, cautions: [...WORK_CAUTIONS], gaps, assumptions };
+	return { amplifiers, currentA, basis, volts, material, powerRun, distribution, wire, fuse, cutList, speakerCable, mounting, load, charging, typedBox, ladder, cautions: [...WORK_CAUTIONS], gaps, assumptions };
 }

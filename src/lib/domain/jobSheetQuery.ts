@@ -9,6 +9,8 @@ import type { AmpClass } from './power';
 import type { CableMaterial } from './wire';
 import type { Box } from './fit';
 import { readTypedBox } from './typedBox';
+import type { DriverGroup } from './coilWiring';
+import type { Part } from './part';
 
 // The job sheet's address: typed run lengths (metres, or feet for imperial, unless the text names
 // its unit), typed amplifiers (one value of each field a row, in order), the cable, and the
@@ -44,6 +46,9 @@ export interface JobSheetQuery {
 	customer: JobCustomer;
 	/** A box typed on the fit screen, mm. */
 	box: Box | null;
+	/** Subwoofers typed (count, coils, ohms a coil) or one chosen from the parts (subPart), and how they are wired. */
+	subwoofers: { count: number; coils: 1 | 2 | null; ohmsPerCoil: number | null; partId: number | null; ampKey: string | null; bridged: boolean; wiring: number | null } | null;
+	vehicleLoadA?: number;
 	/** One message per field; a typed amplifier's under "amp1", "amp2" … */
 	errors: Record<string, string>;
 }
@@ -118,6 +123,30 @@ export function readTypedAmps(q: QueryReader): { amps: TypedAmplifier[]; rows: T
 	return { amps, rows, errors };
 }
 
+function readSubwoofers(q: QueryReader, errors: Record<string, string>): JobSheetQuery['subwoofers'] {
+	const text = (name: string) => (q.get(name) ?? '').trim();
+	const partId = text('subPart') === '' ? null : Number(text('subPart'));
+	if (text('subOhms') === '' && partId === null) return null;
+	const count = text('subCount') === '' ? 1 : readNumber(text('subCount'), { label: 'Subwoofers', whole: true, min: 1, max: 8 });
+	const ohms = text('subOhms') === '' ? null : readNumber(text('subOhms'), { label: 'Impedance a coil', unit: 'Ω', above: 0, max: 32 });
+	const coils = text('subCoils') === '' ? null : text('subCoils') === '2' ? 2 : text('subCoils') === '1' ? 1 : 'Voice coils must be 1 (single) or 2 (dual).';
+	const wiring = text('wiring') === '' ? null : readNumber(text('wiring'), { label: 'Wiring', whole: true, min: 0, max: 200 });
+	if (typeof count === 'string') errors.subCount = count;
+	if (typeof ohms === 'string') errors.subOhms = ohms;
+	if (typeof coils === 'string') errors.subCoils = coils;
+	if (partId !== null && !(Number.isInteger(partId) && partId > 0)) errors.subPart = 'Choose a subwoofer from the list.';
+	if ([count, ohms, coils].some((v) => typeof v === 'string') || errors.subPart) return null;
+	return {
+		count: count as number,
+		coils: coils as 1 | 2 | null,
+		ohmsPerCoil: ohms as number | null,
+		partId,
+		ampKey: text('subAmp') || null,
+		bridged: q.get('bridged') === 'on',
+		wiring: typeof wiring === 'number' ? wiring : null
+	};
+}
+
 export function readJobSheetQuery(q: QueryReader, unit: LengthUnit, years: { yearFrom: number; yearTo: number }): JobSheetQuery {
 	const errors: Record<string, string> = {};
 	const lengths: JobSheetQuery['lengths'] = {};
@@ -141,7 +170,7 @@ export function readJobSheetQuery(q: QueryReader, unit: LengthUnit, years: { yea
 		else if (read.length > MAX_AMPLIFIERS) errors[f] = `At most ${MAX_AMPLIFIERS} lengths, one for each amplifier.`;
 		else lists[f] = read as number[];
 	}
-	const out: JobSheetQuery = { lengths, grounds: lists.ground, branches: lists.branch, material: 'copper', typedAmps: [], ampRows: [], customer: { customer: '', order: '', vin: '', year: '' }, box: null, errors };
+	const out: JobSheetQuery = { lengths, grounds: lists.ground, branches: lists.branch, material: 'copper', typedAmps: [], ampRows: [], customer: { customer: '', order: '', vin: '', year: '' }, box: null, subwoofers: null, errors };
 	for (const [name, label, min, max] of [
 		['speakers', 'Speakers', 0, 64],
 		['cores', 'Cores per cable', 2, 24]
@@ -165,6 +194,13 @@ export function readJobSheetQuery(q: QueryReader, unit: LengthUnit, years: { yea
 	out.typedAmps = typed.amps;
 	out.ampRows = typed.rows;
 	Object.assign(errors, typed.errors);
+	const vehicleLoad = (q.get('vehicleLoad') ?? '').trim();
+	if (vehicleLoad) {
+		const n = readNumber(vehicleLoad, { label: "The vehicle's own load", unit: 'A', min: 0, max: 500 });
+		if (typeof n === 'string') errors.vehicleLoad = n;
+		else out.vehicleLoadA = n;
+	}
+	out.subwoofers = readSubwoofers(q, errors);
 	// The fit screen hands the box over in millimetres.
 	const box = readTypedBox({ l: q.get('boxL') ?? '', w: q.get('boxW') ?? '', h: q.get('boxH') ?? '' }, 'mm');
 	out.box = box.box;
@@ -175,3 +211,15 @@ export function readJobSheetQuery(q: QueryReader, unit: LengthUnit, years: { yea
 	return out;
 }
 
+
+/** The subwoofers as drivers: a chosen catalogue speaker's coils and impedance, with typed figures taking precedence. */
+export function subwooferDrivers(sub: NonNullable<JobSheetQuery['subwoofers']>, parts: readonly Part[]): DriverGroup | string {
+	const part = sub.partId === null ? null : parts.find((p) => p.id === sub.partId);
+	if (sub.partId !== null && (!part || part.kind !== 'speaker')) return 'Subwoofer: choose a speaker from the catalogue, or type its coils and impedance.';
+	const speaker = part?.kind === 'speaker' ? part : null;
+	const coils = sub.coils ?? speaker?.voiceCoils ?? null;
+	const ohmsPerCoil = sub.ohmsPerCoil ?? speaker?.ohmsPerCoil ?? speaker?.impedanceOhm ?? null;
+	if (coils === null) return 'Subwoofer: say whether it has a single or a dual voice coil.';
+	if (ohmsPerCoil === null) return 'Subwoofer: type the impedance of each voice coil.';
+	return { count: sub.count, coils, ohmsPerCoil };
+}
