@@ -137,4 +137,48 @@ describe('the job sheet, on a phone', () => {
 		await screenshot(page, 'job-sheet-two-amps-dvc-phone');
 		await page.close();
 	});
+
+	it('puts the distribution calculator plan on the sheet with the same cables and fuses', async () => {
+		const page = await freshPage(PHONE);
+		await signIn(page, 'viewer');
+		await page.goto(`${BASE}/calc/distribution`);
+		await page.locator('button:has-text("Work it out")').waitFor({ state: 'detached' });
+		await page.fill('#dist-a-0', '23.53');
+		await page.fill('#dist-fuse-0', '25');
+		await page.fill('#dist-ground-0', '0.3');
+		await page.fill('#dist-a-1', '47.35');
+		await page.fill('#dist-fuse-1', '60');
+		await page.fill('#dist-ground-1', '0.3');
+		await page.fill('#dist-main', '2');
+		// Hand-worked in the distribution tests: main 6 AWG (13.3 mm², ASTM B258) with a 100 A fuse;
+		// branches 12 AWG with 30 A and 8 AWG with 60 A (handbook chassis ampacity 41 A and 73 A)
+		expect(await text(page, 'dist-main')).toBe('6 AWG (13.3 mm²) · 100 A blade fuse');
+		const rows = page.getByTestId('dist-branches').locator('tbody tr');
+		expect((await rows.nth(0).locator('td').allTextContents()).slice(0, 3)).toEqual(['Amplifier 1', '12 AWG (3.31 mm²)', '30 A blade']);
+		expect((await rows.nth(1).locator('td').allTextContents()).slice(0, 3)).toEqual(['Amplifier 2', '8 AWG (8.37 mm²)', '60 A blade']);
+		await page.getByTestId('put-on-job-sheet').click();
+		await page.waitForURL((u) => u.pathname === '/job-sheet');
+		await page.selectOption('#pick-vehicle', SLUG);
+		await Promise.all([page.waitForURL((u) => u.pathname === `/vehicles/${SLUG}/job-sheet`), page.click('button:has-text("Open the job sheet")')]);
+		expect(await text(page, 'job-main')).toMatch(/^6 AWG \(13\.3 mm²\)/);
+		expect(await text(page, 'job-main-fuse')).toMatch(/^100 A/);
+		const power = await text(page, 'job-power');
+		expect(power).toMatch(/30 A blade fuse at the block, 12 AWG \(3\.31 mm²\)/);
+		expect(power).toMatch(/60 A blade fuse at the block, 8 AWG \(8\.37 mm²\)/);
+		await page.close();
+	});
+
+	it('carries a box typed on the fit screen to the sheet', async () => {
+		const page = await freshPage(PHONE);
+		await signIn(page, 'viewer');
+		await page.goto(`${BASE}/fit?vehicle=${SLUG}&l=300&w=200&h=60`);
+		const link = page.getByTestId('job-sheet-link');
+		await link.waitFor();
+		await link.click();
+		await page.waitForURL((u) => u.pathname === `/vehicles/${SLUG}/job-sheet`);
+		const box = await text(page, 'job-typed-box');
+		expect(box).toMatch(/Box from the fit check · 300 mm × 200 mm × 60 mm/);
+		expect(box).toMatch(/seat/);
+		await page.close();
+	});
 });
