@@ -116,10 +116,12 @@ describe('calculator forms and page queries never throw', () => {
 	it('job sheet query', () => {
 		const content = emptyContent({ make: 'Quillan', model: 'Tarrow', yearFrom: 2011, yearTo: 2015, body: 'sedan' });
 		fc.assert(
-			fc.property(fc.record({ power: text, ground: text, remote: text, speaker: text, speakers: text, cores: text }), fc.constantFrom('mm', 'in') as fc.Arbitrary<'mm' | 'in'>, (q, unit) => {
+			fc.property(fc.record({ power: text, ground: text, branch: text, remote: text, speaker: text, speakers: text, cores: text, ampW: text, ampCh: text, ampA: text, ampFuse: text, material: text, vin: text, year: text, vehicleLoad: text, remoteOut: text }), fc.constantFrom('mm', 'in') as fc.Arbitrary<'mm' | 'in'>, (q, unit) => {
 				const params = new URLSearchParams(Object.entries(q));
+				params.set('ampClass', 'D');
 				const r = readJobSheetQuery(params, unit, content.identity);
-				jobSheet({ content, parts: [], powerM: r.lengths.power, groundM: r.grounds, branchM: r.branches, remoteM: r.lengths.remote, speakerM: r.lengths.speaker, speakers: r.speakers, coresPerCable: r.cores });
+				expect(Object.values(r.errors).every((m) => typeof m === 'string' && m.length > 0)).toBe(true);
+				jobSheet({ content, parts: [], typedAmps: r.typedAmps, material: r.material, vehicleLoadA: r.vehicleLoadA, headUnitRemoteA: r.remoteOutA, powerM: r.lengths.power, groundM: r.grounds, branchM: r.branches, remoteM: r.lengths.remote, speakerM: r.lengths.speaker, speakers: r.speakers, coresPerCable: r.cores });
 			}),
 			{ numRuns: 300 }
 		);
