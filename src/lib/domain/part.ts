@@ -215,23 +215,11 @@ export type PartField = (typeof PART_FIELDS)[number];
 export type PartFormValues = Record<PartField, string>;
 
 const LENGTH_FIELDS: ReadonlySet<PartField> = new Set(['lengthMm', 'widthMm', 'heightMm', 'chassisDepthMm', 'cutoutMm', 'mountingDepthMm']);
-const NUMBER_FIELDS: ReadonlySet<PartField> = new Set([
-	'channels',
-	'rmsWattsPerChannel',
-	'efficiency',
-	'fuseRatingA',
-	'rms4OhmW',
-	'rms2OhmW',
-	'rms1OhmW',
-	'minLoadOhm',
-	'bridgedRmsW',
-	'dinSize',
-	'impedanceOhm',
-	'voiceCoils',
-	'ohmsPerCoil'
-]);
 /** Yes/no fields: the form sends "yes" or "no". */
 const YES_NO_FIELDS: ReadonlySet<PartField> = new Set(['bridgeable']);
+const TEXT_FIELDS: ReadonlySet<PartField> = new Set(['kind', 'sku', 'name', 'ampClass', 'nominalSize', 'notes']);
+/** Every other field is a plain number: watts, ohms, amps, counts. */
+const NUMBER_FIELDS: ReadonlySet<PartField> = new Set(PART_FIELDS.filter((f) => !LENGTH_FIELDS.has(f) && !YES_NO_FIELDS.has(f) && !TEXT_FIELDS.has(f)));
 
 const NUMBER = /^[+-]?(\d+(\.\d+)?|\.\d+)$/;
 
