@@ -7,6 +7,7 @@ import { createPart, deletePart, listParts, partById, partsByIds, samplePartInpu
 import { ServiceError } from '../../src/lib/server/errors';
 import { readPartForm } from '../../src/lib/domain/part';
 import type { SessionUser } from '../../src/lib/domain/sessionUser';
+import { down, up } from '../../src/lib/server/db/migrations/2026-12-05T06-00-00_load_figures';
 
 let moderator: SessionUser;
 let admin: SessionUser;
@@ -108,5 +109,32 @@ describe('parts catalogue', () => {
 			expect(bad.errors.lengthMm).toMatch(/Could not read "long" as a length/);
 			expect(bad.errors.widthMm).toBe('Width is required for this kind of part.');
 		}
+	});
+});
+
+describe('load figures on older parts', () => {
+	it('reads a speaker entered with one impedance as one coil at that impedance, and goes back', async () => {
+		const now = new Date();
+		const base = { lengthMm: null, widthMm: null, heightMm: null, notes: '', createdAt: now, updatedAt: now };
+		const old = await PartRow.create({ ...base, kind: 'speaker', sku: 'OLD-SPK', name: 'Older speaker', specs: JSON.stringify({ cutoutMm: 142, mountingDepthMm: 58, impedanceOhm: 4 }) });
+		const oldAmp = await PartRow.create({
+			...base,
+			kind: 'amplifier',
+			sku: 'OLD-AMP',
+			name: 'Older amp',
+			lengthMm: 200,
+			widthMm: 140,
+			heightMm: 45,
+			specs: JSON.stringify({ channels: 2, rmsWattsPerChannel: 75, ampClass: 'D', efficiency: null, fuseRatingA: null })
+		});
+		const context = PartRow.sequelize!.getQueryInterface();
+		await up({ context, name: 'load figures', path: undefined });
+		const specs = async (id: number) => JSON.parse((await PartRow.findByPk(id))!.specs);
+		expect(await specs(old.id)).toMatchObject({ voiceCoils: 1, ohmsPerCoil: 4 });
+		expect(await specs(oldAmp.id)).toMatchObject({ bridgeable: false, minLoadOhm: null, rms4OhmW: null });
+		expect(await partById(old.id)).toMatchObject({ voiceCoils: 1, ohmsPerCoil: 4 });
+		await down({ context, name: 'load figures', path: undefined });
+		expect(await specs(old.id)).toEqual({ cutoutMm: 142, mountingDepthMm: 58, impedanceOhm: 4 });
+		expect(await specs(oldAmp.id)).not.toHaveProperty('bridgeable');
 	});
 });

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { cutLength, jobSheet, speakerGauge } from '../../src/lib/domain/jobSheet';
 import { emptyContent, type VehicleContent } from '../../src/lib/domain/content/schema';
 import { partInputSchema, type Part } from '../../src/lib/domain/part';
+import { powerWire } from '../../src/lib/domain/power';
+import { distributionPlan } from '../../src/lib/domain/distribution';
 
 // An invented vehicle page and catalogue (sample data).
 function page(): VehicleContent {
@@ -26,7 +28,7 @@ const mono = { id: 2, ...partInputSchema.parse({ kind: 'amplifier', sku: 'M1', n
 
 describe('job sheet', () => {
 	it('works out draw, gauge, fuse and the cut list from the page run, at 12.0 V nominal', () => {
-		const sheet = jobSheet({ content: page(), parts: [amp] });
+		const sheet = jobSheet({ content: page(), parts: [amp], remoteM: 4.8, speakerM: 4.8 });
 		// by hand: I = 4 × 60 W / (0.85 × 12 V) = 23.53 A; at 14.4 V running 19.61 A
 		expect(sheet.currentA).toBeCloseTo(23.529, 3);
 		expect(sheet.amplifiers[0].runningCurrentA).toBeCloseTo(19.608, 3);
@@ -37,43 +39,55 @@ describe('job sheet', () => {
 		expect(sheet.wire).toMatchObject({ ok: true, awg: '8' });
 		// fuse ≥ max(1.25 × 23.53 = 29.4 A, the amplifier's own 25 A) → 30 A blade (common practice, ISO 8820-3)
 		expect(sheet.fuse).toMatchObject({ ok: true, fuseA: 30, kind: 'blade', spot: 'battery tray bracket' });
+		// ASTM B258 areas: 8 AWG 16,510 cmil = 8.37 mm², 18 AWG 1,624 cmil = 0.823 mm², 16 AWG 2,583 cmil = 1.31 mm²
 		expect(sheet.cutList.map((l) => [l.item, l.count, l.cutM, l.gauge])).toEqual([
-			['power', 1, 5.3, '8 AWG'],
-			['ground', 1, 0.6, '8 AWG'],
-			['remote', 1, 5.3, '18 AWG'],
-			['speaker', 4, 5.3, '16 AWG']
+			['power', 1, 5.3, '8 AWG (8.37 mm²)'],
+			['ground', 1, 0.6, '8 AWG (8.37 mm²)'],
+			['remote', 1, 5.3, '18 AWG (0.823 mm²)'],
+			['speaker', 4, 5.3, '16 AWG (1.31 mm²)']
 		]);
-		expect(sheet.gaps).toEqual([]);
-		expect(sheet.branchFuses).toEqual([]);
+		expect(sheet.gaps).toEqual([expect.stringMatching(/^Charging budget: the page records no alternator output/)]);
+		expect(sheet.material).toBe('copper');
+		expect(sheet.basis).toMatch(/copper \(OFC\)/);
+		expect(sheet.distribution).toMatchObject({ ok: true, single: true, branches: [] });
 	});
 
-	it('says where it assumed a run length', () => {
+	it('asks for the remote and speaker runs instead of copying the power run, and says which', () => {
 		const sheet = jobSheet({ content: page(), parts: [amp] });
 		expect(sheet.assumptions.join(' ')).toMatch(/Ground lead taken as 0\.5 m/);
-		expect(sheet.assumptions.join(' ')).toMatch(/Remote lead taken as long as the power run/);
-		expect(sheet.assumptions.join(' ')).toMatch(/Each speaker run taken as long as the power run/);
-		expect(sheet.cutList.find((l) => l.item === 'speaker')?.note).toMatch(/Length assumed/);
+		expect(sheet.assumptions.join(' ')).not.toMatch(/as long as the power run/);
+		expect(sheet.cutList.find((l) => l.item === 'remote')).toMatchObject({ lengthM: null, cutM: null });
+		expect(sheet.cutList.find((l) => l.item === 'speaker')).toMatchObject({ lengthM: null, cutM: null, gauge: null });
+		expect(sheet.cutList.find((l) => l.item === 'speaker')?.note).toMatch(/Not measured: type its length/);
+		expect(sheet.gaps.join(' ')).toMatch(/No remote lead length: the page records no remote run/);
+		expect(sheet.gaps.join(' ')).toMatch(/No speaker run length: the page records no speaker run/);
 		const typed = jobSheet({ content: page(), parts: [amp], groundM: 0.4, remoteM: 5, speakerM: 3 });
 		expect(typed.assumptions.filter((a) => /taken as .*(long|0\.5 m)/.test(a))).toEqual([]);
+		expect(typed.cutList.find((l) => l.item === 'remote')?.note).toMatch(/Typed length/);
 	});
 
 	it('fuses each amplifier at the block and the main feed for them all', () => {
 		// by hand at 12 V: A4 23.53 A, M1 500 / (0.88 × 12) = 47.35 A, total 70.88 A.
 		// main: ≥ max(1.25 × 70.88 = 88.6 A, own fuses 25 + 60 = 85 A) → 100 A maxi blade (ISO 8820-3, from memory)
-		// branches: A4 ≥ 29.4 A → 30 A; M1 ≥ max(59.2 A, 60 A) → 60 A; thinnest stocked gauge carrying each
-		// (handbook chassis ampacity): 30 A → 14 AWG (32 A), 60 A → 8 AWG (73 A)
+		// main cable (2 m, its share 2 / 2.8 of 3 % = 2.14 %): 10.75 × 70.88 × 6.56 ft / 0.257 V = 19,446 cmil → 6 AWG (24,538)
+		// branches (0.5 m assumed + 0.3 m ground, the 1.47 % left): A4 ≥ 29.4 A → 30 A on 12 AWG (3,769 cmil asked);
+		// M1 ≥ max(59.2 A, 60 A) → 60 A, more than 10 AWG carries (55 A, handbook chassis table), so 8 AWG (73 A)
 		const sheet = jobSheet({ content: page(), parts: [amp, mono], powerM: 2, groundM: 0.3 });
 		expect(sheet.currentA).toBeCloseTo(70.88, 2);
 		expect(sheet.fuse).toMatchObject({ ok: true, fuseA: 100 });
-		expect(sheet.branchFuses.map((b) => [b.sku, b.fuseA, b.gauge])).toEqual([
-			['A4', 30, '14 AWG'],
-			['M1', 60, '8 AWG']
+		expect(sheet.wire).toMatchObject({ ok: true, awg: '6' });
+		const plan = sheet.distribution;
+		expect(plan?.ok && plan.branches.map((b) => [b.label, b.wire.fuseA, b.wire.awg])).toEqual([
+			['A4', 30, '12'],
+			['M1', 60, '8']
 		]);
+		expect(sheet.cutList.filter((l) => l.item === 'branch').map((l) => l.gauge)).toEqual(['12 AWG (3.31 mm²)', '8 AWG (8.37 mm²)']);
+		expect(sheet.assumptions.join(' ')).toMatch(/Branches from the distribution block taken as 0\.5 m/);
 	});
 
 	it('asks for the fuse rating an amplifier does not record', () => {
 		const bare = { ...amp, fuseRatingA: null } as Part;
-		expect(jobSheet({ content: page(), parts: [bare] }).gaps.join(' ')).toMatch(/No fuse rating in the catalogue for A4/);
+		expect(jobSheet({ content: page(), parts: [bare] }).gaps.join(' ')).toMatch(/No fuse rating for A4/);
 	});
 
 	it('warns when no stocked speaker gauge meets the loss target', () => {
@@ -126,5 +140,68 @@ describe('job sheet', () => {
 		expect(sheet.cautions.join(' ')).toMatch(/Disconnect the battery/);
 		expect(sheet.cautions.join(' ')).toMatch(/ABYC E-11 asks for 7 in/);
 		expect(sheet.cautions[sheet.cautions.length - 1]).toBe("Follow the vehicle maker's procedures, local codes and licensed practice.");
+	});
+
+	it('takes a typed amplifier by power, channels and class, or by its current', () => {
+		// by hand: 4 × 80 W class D at the typical 80 % (common practice) and 12 V: 320 / 9.6 = 33.33 A; at 14.4 V 27.78 A
+		const sheet = jobSheet({ content: page(), parts: [], typedAmps: [{ name: 'Customer four-channel', rmsWattsPerChannel: 80, channels: 4, ampClass: 'D', fuseA: 40 }], powerM: 4 });
+		expect(sheet.amplifiers[0]).toMatchObject({ label: 'Customer four-channel', channels: 4, fuseA: 40 });
+		expect(sheet.amplifiers[0].currentA).toBeCloseTo(33.333, 3);
+		expect(sheet.amplifiers[0].runningCurrentA).toBeCloseTo(27.778, 3);
+		expect(sheet.amplifiers[0].detail).toMatch(/class D at a typical 80 % \(common practice\)/);
+		const byCurrent = jobSheet({ content: page(), parts: [], typedAmps: [{ currentA: 45, fuseA: 60 }], powerM: 4 });
+		expect(byCurrent.amplifiers[0]).toMatchObject({ label: 'Typed amplifier 1', currentA: 45, runningCurrentA: null, fuseA: 60 });
+	});
+
+	it('asks for the class rather than assuming one', () => {
+		const sheet = jobSheet({ content: page(), parts: [], typedAmps: [{ rmsWattsPerChannel: 80, channels: 4 }], powerM: 4 });
+		expect(sheet.amplifiers).toEqual([]);
+		expect(sheet.gaps.join(' ')).toMatch(/Typed amplifier 1: choose its class \(A\/B or D\), or type its current/);
+	});
+
+	it('gives the same gauge and fuse as the power-wire and distribution rules for the same figures', () => {
+		// One computation: the calculator's inputs (45 A, own fuse 60 A, 3.5 m run, 0.5 m ground) on every screen
+		const wire = powerWire({ currentA: 45, powerLengthM: 3.5, groundLengthM: 0.5, ownFuseA: 60 });
+		const plan = distributionPlan({ amps: [{ currentA: 45, fuseA: 60 }], mainLengthM: 3.5, groundLengthsM: [0.5] });
+		const sheet = jobSheet({ content: page(), parts: [], typedAmps: [{ currentA: 45, fuseA: 60 }], powerM: 3.5, groundM: 0.5 });
+		// by hand: 4 m = 13.12 ft; 10.75 × 45 × 13.12 / 0.36 = 17,634 cmil → 6 AWG (24,538); fuse ≥ max(56.25, 60) → 60 A
+		expect(wire.ok && [wire.awg, wire.fuseA]).toEqual(['6', 60]);
+		expect(plan.ok && [plan.main.awg, plan.main.fuseA]).toEqual(['6', 60]);
+		expect(sheet.wire?.ok && [sheet.wire.awg, sheet.wire.fuseA]).toEqual(['6', 60]);
+		expect(sheet.fuse?.fuseA).toBe(60);
+	});
+
+	it('works the whole sheet in CCA when asked, and prints it', () => {
+		const sheet = jobSheet({ content: page(), parts: [amp], material: 'cca', remoteM: 4.8, speakerM: 4.8 });
+		// 12,217 cmil for copper (above) / 0.629 = 19,423 cmil: 8 AWG (14,810) too little → 6 AWG (24,538)
+		expect(sheet.wire).toMatchObject({ ok: true, awg: '6', material: 'cca' });
+		expect(sheet.material).toBe('cca');
+		expect(sheet.basis).toMatch(/copper-clad aluminium \(CCA\)/);
+	});
+
+	it('shows the final load on the subwoofer amplifier and the charging verdict', () => {
+		const c = page();
+		c.boot.alternatorCruiseA = 110;
+		c.boot.alternatorIdleA = 65;
+		const sub = { ...mono, rms4OhmW: 300, rms2OhmW: 500, rms1OhmW: 800, minLoadOhm: 1, bridgeable: false, bridgedRmsW: null } as Part;
+		const sheet = jobSheet({ content: c, parts: [amp, sub], powerM: 2, groundM: 0.3, subwoofers: { drivers: { count: 1, coils: 2, ohmsPerCoil: 4 } }, vehicleLoadA: 25 });
+		// Ohm's law: one dual 4 Ω coil driver wires as 2 Ω (coils in parallel) or 8 Ω (in series); on the mono amplifier (fewest channels)
+		expect(sheet.load?.ampLabel).toBe('M1');
+		expect(sheet.load?.options.map((o) => o.ohms)).toEqual([2, 8]);
+		// 2 Ω is at or above the 1 Ω minimum and the maker rates 500 W there; 8 Ω has no rated figure, so 2 Ω is picked
+		expect(sheet.load?.chosen).toBe(0);
+		expect(sheet.load?.options[0].check).toMatchObject({ ok: true, ratedW: 500 });
+		// charging, by hand: 25 A + 70.88 A = 95.88 A; 110 A at cruise leaves 14.1 A (more than a tenth, 11 A);
+		// 65 A at idle falls 30.9 A short; the install's 70.9 A is over a fifth of 110 A, so the charging cables are upgraded (common practice)
+		expect(sheet.charging?.verdict).toBe('short-at-idle');
+		expect(sheet.charging?.headroomA).toBeCloseTo(14.12, 2);
+		expect(sheet.charging?.upgrade).toHaveLength(3);
+	});
+
+	it('asks for what the charging budget needs', () => {
+		expect(jobSheet({ content: page(), parts: [amp], powerM: 2 }).gaps.join(' ')).toMatch(/page records no alternator output/);
+		const c = page();
+		c.boot.alternatorCruiseA = 110;
+		expect(jobSheet({ content: c, parts: [amp], powerM: 2 }).gaps.join(' ')).toMatch(/type the vehicle's own load/);
 	});
 });

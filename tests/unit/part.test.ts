@@ -9,7 +9,9 @@ import {
 	partFormValues,
 	partInputSchema,
 	partSummary,
-	readPartForm
+	ratedLoads,
+	readPartForm,
+	speakerCoils
 } from '../../src/lib/domain/part';
 import { AMP_CLASS_EFFICIENCY } from '../../src/lib/domain/power';
 
@@ -105,5 +107,51 @@ describe('catalogue form', () => {
 		]);
 		expect(fields).toEqual({ kind: 'enclosure', sku: 'E1', name: 'Box', notes: '', lengthMm: '420', widthMm: '300', heightMm: '80' });
 		expect(readPartForm(fields).ok).toBe(true);
+	});
+});
+
+describe('load figures', () => {
+	// Invented figures for a sample amplifier and subwoofers, not real products.
+	const rated = { ...amp, rms4OhmW: 60, rms2OhmW: 90, rms1OhmW: null, minLoadOhm: 2, bridgeable: true, bridgedRmsW: 180 };
+
+	it('reads rated power at each load, minimum load and bridging', () => {
+		expect(partInputSchema.parse(amp)).toMatchObject({ rms4OhmW: null, rms2OhmW: null, rms1OhmW: null, minLoadOhm: null, bridgeable: false, bridgedRmsW: null });
+		const part = partInputSchema.parse(rated);
+		expect(part.kind === 'amplifier' && ratedLoads(part)).toEqual([
+			{ ohms: 4, watts: 60 },
+			{ ohms: 2, watts: 90 }
+		]);
+	});
+
+	it.each([
+		[{ ...rated, rms2OhmW: 0 }, 'RMS per channel at 2 Ω must be more than 0 W.'],
+		[{ ...rated, minLoadOhm: 40 }, 'Minimum load over 16 Ω looks like a typo.'],
+		[{ ...rated, bridgeable: 'maybe' }, 'Bridgeable must be yes or no.']
+	])('refuses %j with a message', (input, message) => {
+		const r = partInputSchema.safeParse(input);
+		expect(r.success).toBe(false);
+		expect(r.error?.issues[0].message).toBe(message);
+	});
+
+	it('reads bridging as yes or no from the form, and round-trips it', () => {
+		const form = { ...emptyPartForm('amplifier'), sku: 'T-4D', name: 'Four', lengthMm: '200', widthMm: '140', heightMm: '45', channels: '4', rmsWattsPerChannel: '60' };
+		const yes = readPartForm({ ...form, bridgeable: 'yes', bridgedRmsW: '180', minLoadOhm: '2', rms2OhmW: '90' });
+		expect(yes.ok && yes.part).toMatchObject({ bridgeable: true, bridgedRmsW: 180, minLoadOhm: 2, rms2OhmW: 90 });
+		if (yes.ok) expect(partFormValues(yes.part)).toMatchObject({ bridgeable: 'yes', bridgedRmsW: '180', minLoadOhm: '2' });
+		const bad = readPartForm({ ...form, bridgeable: 'perhaps' });
+		expect(!bad.ok && bad.errors.bridgeable).toBe('Bridgeable must be yes or no.');
+		expect(readPartForm(form).ok && readPartForm(form)).toMatchObject({ part: { bridgeable: false } });
+	});
+
+	it("reads a speaker's voice coils, and falls back to one coil at the nominal impedance", () => {
+		const base = { kind: 'speaker', sku: 'W10', name: 'Sub', cutoutMm: 232, mountingDepthMm: 128 } as const;
+		const dual = partInputSchema.parse({ ...base, impedanceOhm: 2, voiceCoils: 2, ohmsPerCoil: 4 });
+		expect(dual.kind === 'speaker' && speakerCoils(dual)).toEqual({ coils: 2, ohmsPerCoil: 4 });
+		expect(partSummary(dual)).toBe('232 mm cut-out, 128 mm deep, dual 4 Ω coils');
+		const single = partInputSchema.parse({ ...base, impedanceOhm: 4 });
+		expect(single.kind === 'speaker' && speakerCoils(single)).toEqual({ coils: 1, ohmsPerCoil: 4 });
+		const unknown = partInputSchema.parse({ ...base, voiceCoils: 2, impedanceOhm: 2 });
+		expect(unknown.kind === 'speaker' && speakerCoils(unknown)).toBeNull();
+		expect(partInputSchema.safeParse({ ...base, voiceCoils: 3 }).error?.issues[0].message).toBe('Voice coils must be 1 (single) or 2 (dual).');
 	});
 });

@@ -206,7 +206,8 @@ describe('powerWire', () => {
 		// fuse ≥ 1.25 × 45 = 56.25 → 60 A; chassis ampacity (handbook): 16 AWG 22 A, 10 AWG 55 A, 8 AWG 73 A → 8 AWG
 		const r = powerWire({ currentA: 45, powerLengthM: 0.3, groundLengthM: 0.2 });
 		expect(r.ok && [r.awg, r.fuseA]).toEqual(['8', 60]);
-		expect(r.ok && r.upsized?.reason).toMatch(/16 AWG keeps the drop within 3 %, but the 60 A fuse the load needs is more than it can carry \(22 A\), so the cable is 8 AWG/);
+		// ASTM B258 areas: 16 AWG 2,583 cmil = 1.31 mm², 8 AWG 16,510 cmil = 8.37 mm²
+		expect(r.ok && r.upsized?.reason).toMatch(/16 AWG \(1\.31 mm²\) keeps the drop within 3 %, but the 60 A fuse the load needs is more than it can carry \(22 A\), so the cable is 8 AWG \(8\.37 mm²\)/);
 	});
 
 	it("honours the amplifiers' own fuse rating", () => {
@@ -220,13 +221,14 @@ describe('powerWire', () => {
 		// by hand: 100 A over 30 m = 98.4 ft: 10.75 × 100 × 98.4 / 0.36 = 293,800 cmil, beyond 1/0's 98,980
 		const r = powerWire({ currentA: 100, powerLengthM: 29, groundLengthM: 1 });
 		expect(r.ok).toBe(false);
-		if (!r.ok) expect(r.reason).toMatch(/Even 1\/0 AWG drops more than the 3 % target over a 30 m loop/);
+		// ASTM B258: 1/0 AWG is 105,600 cmil = 53.5 mm²
+		if (!r.ok) expect(r.reason).toMatch(/Even 1\/0 AWG \(53\.5 mm²\) drops more than the 3 % target over a 30 m loop/);
 	});
 
 	it('says clearly when the current is beyond the heaviest stocked cable', () => {
 		const r = powerWire({ currentA: 300, powerLengthM: 1, groundLengthM: 0.3 });
 		expect(r.ok).toBe(false);
-		if (!r.ok) expect(r.reason).toMatch(/300 A is more than the heaviest stocked cable \(1\/0 AWG, 245 A\)/);
+		if (!r.ok) expect(r.reason).toMatch(/300 A is more than the heaviest stocked cable \(1\/0 AWG \(53\.5 mm²\), 245 A\)/);
 	});
 
 	it.each([

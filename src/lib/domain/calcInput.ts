@@ -2,6 +2,13 @@ import { AMP_CLASS_EFFICIENCY, ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEM
 import { readLength, readOhms, type LengthUnit } from './units';
 import { DEFAULT_CIRCUIT, type ControlLine, type ESeries, type LadderCircuit } from './ladder';
 import { runLengthProblem } from './sizeRules';
+import { DEFAULT_MATERIAL, type CableMaterial } from './wire';
+import { MAX_AMPLIFIERS, type DistributionInput } from './distribution';
+import type { ZodType } from 'zod';
+import { MAX_DRIVERS, type DriverGroup } from './coilWiring';
+import type { ChargingInput } from './charging';
+import { enclosureInputSchema, type EnclosureInput } from './boxVolume';
+import { sealedInputSchema, type SealedInput } from './sealedBox';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per
 // field. The same readers run on the server (a GET form without JavaScript) and in the browser.
@@ -20,7 +27,7 @@ type NumberRule = { label: string; unit?: string; min?: number; above?: number; 
 export function readNumber(text: string | undefined, rule: NumberRule): number | string {
 	const typed = (text ?? '').trim();
 	// A unit is only read after a figure: "abc" stays "abc", never "ab" and a unit.
-	const t = typed.replace(/(?<=[\d.])\s*(%|a|v|w|°c|c|ω|ohms?)$/i, '');
+	const t = typed.replace(/(?<=[\d.])\s*(%|a|v|w|°c|c|ω|ohms?|hz|l)$/i, '');
 	const unit = rule.unit ? ` ${rule.unit}` : '';
 	if (t === '') return `Enter ${rule.label.toLowerCase()}${unit ? ` in${unit}` : ''}.`;
 	if (/^\d+,\d+$/.test(t)) return `Use a point for decimals: ${t.replace(',', '.')}.`;
@@ -69,7 +76,7 @@ export function readAmpCurrent(f: Fields<AmpFields>): Read<AmpFields, AmpCurrent
 
 // ---- Power wire and fuse ----
 
-export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct' | 'tempC' | 'ownFuseA';
+export type PowerFields = 'currentA' | 'powerLength' | 'groundLength' | 'volts' | 'maxDropPct' | 'tempC' | 'ownFuseA' | 'material';
 export const POWER_DEFAULTS: Record<PowerFields, string> = {
 	currentA: '',
 	powerLength: '',
@@ -77,8 +84,17 @@ export const POWER_DEFAULTS: Record<PowerFields, string> = {
 	volts: String(NOMINAL_VOLTS),
 	maxDropPct: String(ABYC_E11_CRITICAL_DROP_PCT),
 	tempC: String(DEFAULT_CONDUCTOR_TEMP_C),
-	ownFuseA: ''
+	ownFuseA: '',
+	material: DEFAULT_MATERIAL
 };
+
+/** The cable material chosen in a form: copper unless CCA is picked. */
+export function readMaterial(text: string | null | undefined): { material: CableMaterial } | { error: string } {
+	const t = (text ?? '').trim().toLowerCase();
+	if (t === '' || t === 'copper') return { material: 'copper' };
+	if (t === 'cca') return { material: 'cca' };
+	return { error: `Cable material "${(text ?? '').trim()}" is not one we stock: choose copper or CCA.` };
+}
 
 const length = (text: string | undefined, label: string, unit: LengthUnit, allowZero: boolean): number | string => {
 	const t = (text ?? '').trim();
@@ -93,7 +109,8 @@ const length = (text: string | undefined, label: string, unit: LengthUnit, allow
 
 /** Run lengths are typed in metres (unit "mm") or feet (unit "in"); a unit in the text wins. */
 export function readPowerWire(f: Fields<PowerFields>, unit: LengthUnit = 'mm'): Read<PowerFields, PowerWireInput> {
-	const { values, errors } = collect<PowerFields>({
+	const material = readMaterial(f.material);
+	const { values, errors } = collect<Exclude<PowerFields, 'material'>>({
 		currentA: () => readNumber(f.currentA, { label: 'Current', unit: 'A', above: 0, max: 2000 }),
 		powerLength: () => length(f.powerLength, 'Power run length', unit, false),
 		groundLength: () => length(f.groundLength, 'Ground lead length', unit, true),
@@ -103,14 +120,16 @@ export function readPowerWire(f: Fields<PowerFields>, unit: LengthUnit = 'mm'): 
 		// Left empty when the amplifiers' own fuses are not known.
 		ownFuseA: () => ((f.ownFuseA ?? '').trim() === '' ? 0 : readNumber(f.ownFuseA, { label: "Amplifiers' own fuses", unit: 'A', above: 0, max: 2000 }))
 	});
-	return done(errors, () => ({
+	const all: Partial<Record<PowerFields, string>> = 'error' in material ? { ...errors, material: material.error } : errors;
+	return done(all, () => ({
 		currentA: values.currentA,
 		powerLengthM: values.powerLength,
 		groundLengthM: values.groundLength,
 		volts: values.volts,
 		maxDropPct: values.maxDropPct,
 		tempC: values.tempC,
-		ownFuseA: values.ownFuseA || null
+		ownFuseA: values.ownFuseA || null,
+		material: 'material' in material ? material.material : DEFAULT_MATERIAL
 	}));
 }
 
@@ -267,41 +286,205 @@ export function buttonsText(line: ControlLine): string {
 	return line.buttons.map((b) => `${b.name} = ${b.ohms}`).join('\n');
 }
 
-// ---- Job sheet ----
+// ---- Several amplifiers on one run ----
 
-export type JobSheetFields = 'power' | 'ground' | 'remote' | 'speaker' | 'speakers' | 'cores';
-const RUN_FIELDS = ['power', 'ground', 'remote', 'speaker'] as const;
+export interface DistributionRow {
+	currentA: string;
+	fuseA: string;
+	branch: string;
+	ground: string;
+}
+export type DistributionFields = 'mainLength' | 'material' | 'remoteOut';
+export const DISTRIBUTION_DEFAULTS: Record<DistributionFields, string> = { mainLength: '', material: DEFAULT_MATERIAL, remoteOut: '' };
+export const emptyDistributionRow = (): DistributionRow => ({ currentA: '', fuseA: '', branch: '0.5', ground: '0.5' });
 
-export interface JobSheetQuery {
-	lengths: Partial<Record<(typeof RUN_FIELDS)[number], number>>;
-	speakers?: number;
-	cores?: number;
-	errors: Partial<Record<JobSheetFields, string>>;
+/** The distribution form: one row an amplifier (rows left wholly empty are skipped); errors keyed by field or "row1.currentA". */
+export function readDistribution(rows: readonly DistributionRow[], f: Fields<DistributionFields>, unit: LengthUnit = 'mm'): Read<string, DistributionInput> {
+	const errors: Record<string, string> = {};
+	const used = rows.filter((r) => r.currentA.trim() !== '' || r.fuseA.trim() !== '');
+	if (used.length === 0) errors['row1.currentA'] = 'Enter the current of at least one amplifier.';
+	if (used.length > MAX_AMPLIFIERS) errors.form = `At most ${MAX_AMPLIFIERS} amplifiers on one run.`;
+	const amps: { currentA: number; fuseA: number | null }[] = [];
+	const branches: number[] = [];
+	const grounds: number[] = [];
+	used.forEach((r, i) => {
+		const at = (k: keyof DistributionRow) => `row${i + 1}.${k}`;
+		const current = readNumber(r.currentA, { label: 'Current', unit: 'A', above: 0, max: 1000 });
+		const fuse = r.fuseA.trim() === '' ? null : readNumber(r.fuseA, { label: 'Own fuse', unit: 'A', above: 0, max: 1000 });
+		const branch = length(r.branch, 'Branch length', unit, false);
+		const ground = length(r.ground, 'Ground lead length', unit, true);
+		if (typeof current === 'string') errors[at('currentA')] = current;
+		if (typeof fuse === 'string') errors[at('fuseA')] = fuse;
+		if (typeof branch === 'string') errors[at('branch')] = branch;
+		if (typeof ground === 'string') errors[at('ground')] = ground;
+		if (typeof current === 'number' && typeof fuse !== 'string') amps.push({ currentA: current, fuseA: fuse });
+		if (typeof branch === 'number') branches.push(branch);
+		if (typeof ground === 'number') grounds.push(ground);
+	});
+	const main = length(f.mainLength, 'Main cable length', unit, false);
+	if (typeof main === 'string') errors.mainLength = main;
+	const material = readMaterial(f.material);
+	if ('error' in material) errors.material = material.error;
+	const remote = (f.remoteOut ?? '').trim() === '' ? null : readNumber(f.remoteOut, { label: "Head unit's remote output", unit: 'A', above: 0, max: 5 });
+	if (typeof remote === 'string') errors.remoteOut = remote;
+	return done(errors, () => ({
+		amps,
+		mainLengthM: main as number,
+		branchLengthsM: amps.length > 1 ? branches : [],
+		groundLengthsM: grounds,
+		material: 'material' in material ? material.material : DEFAULT_MATERIAL,
+		headUnitRemoteA: remote as number | null
+	}));
 }
 
-/** The job sheet's typed run lengths (metres, or feet for imperial, unless the text names its unit) and counts. */
-export function readJobSheetQuery(get: (name: JobSheetFields) => string | null, unit: LengthUnit): JobSheetQuery {
-	const out: JobSheetQuery = { lengths: {}, errors: {} };
-	for (const f of RUN_FIELDS) {
-		const text = (get(f) ?? '').trim();
-		if (!text) continue;
-		try {
-			const m = readLength('m', text, unit);
-			if (!(m >= 0) || m > 30) out.errors[f] = 'A run length is between 0 and 30 m (98 ft).';
-			else out.lengths[f] = m;
-		} catch (e) {
-			out.errors[f] = (e as Error).message;
-		}
+// ---- Subwoofer wiring ----
+
+export type CoilFields = 'count' | 'coils' | 'ohmsPerCoil' | 'bridged' | 'amp';
+export const COIL_DEFAULTS: Record<CoilFields, string> = { count: '2', coils: '2', ohmsPerCoil: '4', bridged: '', amp: '' };
+
+const ticked = (text: string | undefined) => text === 'on' || text === 'true' || text === 'yes';
+
+export function readCoilWiring(f: Fields<CoilFields>): Read<CoilFields, { drivers: DriverGroup[]; bridged: boolean; ampId: number | null }> {
+	const { values, errors } = collect<'count' | 'ohmsPerCoil' | 'coils' | 'amp'>({
+		count: () => readNumber(f.count, { label: 'Number of drivers', whole: true, min: 1, max: MAX_DRIVERS }),
+		coils: () => readNumber(f.coils, { label: 'Voice coils', whole: true, min: 1, max: 2 }),
+		ohmsPerCoil: () => readNumber(f.ohmsPerCoil, { label: 'Impedance per coil', unit: 'Ω', above: 0, max: 32 }),
+		amp: () => ((f.amp ?? '').trim() === '' ? 0 : readNumber(f.amp, { label: 'Amplifier', whole: true, min: 1, max: 2 ** 31 }))
+	});
+	return done(errors, () => ({
+		drivers: [{ count: values.count, coils: values.coils as 1 | 2, ohmsPerCoil: values.ohmsPerCoil }],
+		bridged: ticked(f.bridged),
+		ampId: values.amp || null
+	}));
+}
+
+// ---- Charging budget ----
+
+export type ChargingFields = 'alternatorA' | 'alternatorIdleA' | 'vehicleLoadA' | 'addedLoadA' | 'restingV' | 'runningV';
+export const CHARGING_DEFAULTS: Record<ChargingFields, string> = { alternatorA: '', alternatorIdleA: '', vehicleLoadA: '', addedLoadA: '', restingV: '', runningV: '' };
+
+/** The budget's figures, and the voltmeter readings at the battery when they were taken. */
+export interface ChargingQuery {
+	budget: ChargingInput;
+	restingV: number | null;
+	runningV: number | null;
+}
+
+// Left empty when not known or not measured.
+const optional = (text: string | undefined, rule: NumberRule): number | null | string => ((text ?? '').trim() === '' ? null : readNumber(text, rule));
+
+export function readCharging(f: Fields<ChargingFields>): Read<ChargingFields, ChargingQuery> {
+	const errors: Partial<Record<ChargingFields, string>> = {};
+	const got = <T>(key: ChargingFields, v: T | string): T => {
+		if (typeof v === 'string') errors[key] = v;
+		return v as T;
+	};
+	const alternatorA = got<number>('alternatorA', readNumber(f.alternatorA, { label: 'Alternator output at cruise', unit: 'A', above: 0, max: 500 }));
+	const alternatorIdleA = got<number | null>('alternatorIdleA', optional(f.alternatorIdleA, { label: 'Alternator output at idle', unit: 'A', min: 0, max: 500 }));
+	const vehicleLoadA = got<number>('vehicleLoadA', readNumber(f.vehicleLoadA, { label: "The vehicle's own load", unit: 'A', min: 0, max: 500 }));
+	const addedLoadA = got<number>('addedLoadA', readNumber(f.addedLoadA, { label: 'Added load', unit: 'A', min: 0, max: 1000 }));
+	const restingV = got<number | null>('restingV', optional(f.restingV, { label: 'Battery at rest', unit: 'V', above: 0, max: 20 }));
+	const runningV = got<number | null>('runningV', optional(f.runningV, { label: 'Battery running', unit: 'V', above: 0, max: 20 }));
+	if (!errors.alternatorA && !errors.alternatorIdleA && alternatorIdleA !== null && alternatorIdleA > alternatorA) {
+		errors.alternatorIdleA = "The alternator's output at idle cannot be more than at cruise.";
 	}
-	for (const [name, label, min, max] of [
-		['speakers', 'Speakers', 0, 64],
-		['cores', 'Cores per cable', 2, 24]
-	] as const) {
-		const text = get(name);
-		if (!text) continue;
-		const n = readNumber(text, { label, whole: true, min, max });
-		if (typeof n === 'string') out.errors[name] = n;
-		else out[name] = n;
+	return done(errors, () => ({ budget: { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA }, restingV, runningV }));
+}
+
+// ---- Box volume and port ----
+
+export type BoxFields = 'l' | 'w' | 'h' | 'wallMm' | 'driverL' | 'port' | 'diameterMm' | 'slotWidthMm' | 'slotHeightMm' | 'portLengthMm';
+export const BOX_DEFAULTS: Record<BoxFields, string> = {
+	l: '',
+	w: '',
+	h: '',
+	wallMm: '18',
+	driverL: '0',
+	port: 'none',
+	diameterMm: '',
+	slotWidthMm: '',
+	slotHeightMm: '',
+	portLengthMm: ''
+};
+
+/** A size in mm; "19.5 in" or "50 cm" are read in their own unit. */
+const size = (text: string | undefined, label: string): number | string => {
+	const t = (text ?? '').trim();
+	if (t === '') return `Enter the ${label.toLowerCase()} in mm.`;
+	try {
+		const mm = readLength('mm', t, 'mm');
+		return mm > 0 ? mm : `${label} must be more than 0 mm.`;
+	} catch (e) {
+		return `${label}: ${(e as Error).message}`;
 	}
-	return out;
+};
+
+/** The form's figures as the enclosure input; the schema then checks that they make a box. */
+export function readBox(f: Fields<BoxFields>): Read<BoxFields, EnclosureInput> {
+	const port = f.port === 'round' || f.port === 'slot' ? f.port : 'none';
+	const { values, errors } = collect<Exclude<BoxFields, 'port'>>({
+		l: () => size(f.l, 'Outside length'),
+		w: () => size(f.w, 'Outside width'),
+		h: () => size(f.h, 'Outside height'),
+		wallMm: () => size(f.wallMm, 'Wall thickness'),
+		driverL: () => ((f.driverL ?? '').trim() === '' ? 0 : readNumber(f.driverL, { label: 'Driver displacement', unit: 'L', min: 0, max: 200 })),
+		diameterMm: () => (port === 'round' ? size(f.diameterMm, 'Port diameter') : 0),
+		slotWidthMm: () => (port === 'slot' ? size(f.slotWidthMm, 'Slot width') : 0),
+		slotHeightMm: () => (port === 'slot' ? size(f.slotHeightMm, 'Slot height') : 0),
+		portLengthMm: () => (port === 'none' ? 0 : size(f.portLengthMm, 'Port length'))
+	});
+	if (Object.keys(errors).length) return { ok: false, errors };
+	const input: EnclosureInput = {
+		outside: { l: values.l, w: values.w, h: values.h },
+		wallMm: values.wallMm,
+		driverDisplacementL: values.driverL,
+		port:
+			port === 'round'
+				? { kind: 'round', diameterMm: values.diameterMm, lengthMm: values.portLengthMm }
+				: port === 'slot'
+					? { kind: 'slot', widthMm: values.slotWidthMm, heightMm: values.slotHeightMm, lengthMm: values.portLengthMm }
+					: undefined
+	};
+	return schemaRead(enclosureInputSchema, input, BOX_PATHS);
+}
+
+// Where a schema's complaint about the enclosure belongs on the form.
+const BOX_PATHS: Record<string, BoxFields> = {
+	'outside.l': 'l',
+	'outside.w': 'w',
+	'outside.h': 'h',
+	wallMm: 'wallMm',
+	driverDisplacementL: 'driverL',
+	'port.diameterMm': 'diameterMm',
+	'port.widthMm': 'slotWidthMm',
+	'port.heightMm': 'slotHeightMm',
+	'port.lengthMm': 'portLengthMm'
+};
+
+/** The figures checked by the domain's own schema, each complaint put on its form field. */
+function schemaRead<K extends string, T>(schema: ZodType<unknown, T>, input: T, paths: Record<string, K>): Read<K, T> {
+	const parsed = schema.safeParse(input);
+	if (parsed.success) return { ok: true, input };
+	const errors: Partial<Record<K, string>> = {};
+	for (const issue of parsed.error.issues) {
+		const field = paths[issue.path.join('.')] ?? (Object.values(paths)[0] as K);
+		errors[field] ??= issue.message;
+	}
+	return { ok: false, errors };
+}
+
+// ---- Sealed box ----
+
+export type SealedFields = 'fsHz' | 'qts' | 'vasL' | 'qtc';
+export const SEALED_DEFAULTS: Record<SealedFields, string> = { fsHz: '', qts: '', vasL: '', qtc: '0.707' };
+
+export function readSealed(f: Fields<SealedFields>): Read<SealedFields, SealedInput> {
+	const { values, errors } = collect<SealedFields>({
+		fsHz: () => readNumber(f.fsHz, { label: 'Fs', unit: 'Hz', above: 0, max: 500 }),
+		qts: () => readNumber(f.qts, { label: 'Qts', above: 0, max: 3 }),
+		vasL: () => readNumber(f.vasL, { label: 'Vas', unit: 'L', above: 0, max: 2000 }),
+		qtc: () => readNumber(f.qtc, { label: 'Qtc', above: 0, max: 3 })
+	});
+	if (Object.keys(errors).length) return { ok: false, errors };
+	return schemaRead(sealedInputSchema, { fsHz: values.fsHz, qts: values.qts, vasL: values.vasL, qtc: values.qtc }, { fsHz: 'fsHz', qts: 'qts', vasL: 'vasL', qtc: 'qtc' });
 }

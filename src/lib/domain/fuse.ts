@@ -1,4 +1,4 @@
-import { formatAwg } from './wire';
+import { CCA_CONDUCTIVITY_SHARE, DEFAULT_MATERIAL, formatAwg, type CableMaterial } from './wire';
 
 // ISO 8820-3 blade fuse ratings (from memory): the regular and mini types run 1 A to 40 A, the
 // maxi type on up to 120 A.
@@ -57,12 +57,23 @@ export const FUSE_CAUTIONS: readonly string[] = [
 	"Follow the vehicle maker's procedures, local codes and licensed practice."
 ];
 
-export function wireAmpacityA(awg: number): number {
+// CCA of a gauge carries copper's current times √(its conductivity share), so that it heats no more per
+// metre (I²R) than copper does: 0.79 for the ASTM B566 10 % class. No standard rates CCA for car
+// power cable; this is common practice, rounded down to a whole amp.
+export const CCA_AMPACITY_SHARE = Math.sqrt(CCA_CONDUCTIVITY_SHARE);
+
+export function wireAmpacityA(awg: number, material: CableMaterial = DEFAULT_MATERIAL): number {
 	const amps = CHASSIS_AMPACITY_A[awg];
 	if (amps === undefined) {
 		throw new RangeError(`No ampacity on record for ${formatAwg(awg)} AWG (table covers 4/0 to 22).`);
 	}
-	return amps;
+	return material === 'cca' ? Math.floor(amps * CCA_AMPACITY_SHARE) : amps;
+}
+
+/** Where the ampacity figure comes from, for the basis beside an answer. */
+export function ampacityBasis(material: CableMaterial): string {
+	const table = 'chassis-wiring ampacity, one conductor in free air';
+	return material === 'cca' ? `${table}, times ${CCA_AMPACITY_SHARE.toFixed(2)} for CCA so it heats no more than copper (common practice)` : table;
 }
 
 export const fuseKind = (ratingA: number): 'blade' | 'bolt-down' => (BLADE_FUSE_RATINGS_A.includes(ratingA) ? 'blade' : 'bolt-down');
@@ -91,9 +102,9 @@ export function fuseBasis(drawA: number, ownFuseA: number | null, fuseA: number)
  * The fuse for a cable: rated at least the need (headroom and the amplifiers' own fuses), rounded
  * up to a standard rating, and never more than the cable can carry.
  */
-export function mainFuse(drawA: number, awg: number, ownFuseA: number | null = null): MainFuseResult {
+export function mainFuse(drawA: number, awg: number, ownFuseA: number | null = null, material: CableMaterial = DEFAULT_MATERIAL): MainFuseResult {
 	const neededA = fuseNeededA(drawA, ownFuseA);
-	const ampacityA = wireAmpacityA(awg);
+	const ampacityA = wireAmpacityA(awg, material);
 	const gauge = formatAwg(awg);
 	const fuseA = standardFuseAtLeast(neededA);
 	if (fuseA === null) {
@@ -105,7 +116,7 @@ export function mainFuse(drawA: number, awg: number, ownFuseA: number | null = n
 			ampacityA,
 			neededA,
 			fuseA,
-			reason: `The fuse needs ${fuseA} A, more than ${gauge} AWG can carry (${ampacityA} A); use a heavier cable.`
+			reason: `The fuse needs ${fuseA} A, more than ${gauge} AWG${material === 'cca' ? ' CCA' : ''} can carry (${ampacityA} A); use a heavier cable.`
 		};
 	}
 	return { ok: true, fuseA, kind: fuseKind(fuseA), ampacityA, neededA, basis: fuseBasis(drawA, ownFuseA, fuseA) };

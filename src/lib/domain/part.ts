@@ -47,6 +47,23 @@ const mm = partSizeMm;
 
 const optionalMm = (what: string) => mm(what).nullable().default(null);
 
+/** A rated power per channel at one load, as the maker prints it; empty when not rated there. */
+const ratedWatts = (what: string) =>
+	z
+		.number({ error: `${what} must be a number of watts.` })
+		.positive(`${what} must be more than 0 W.`)
+		.max(10_000, `${what} over 10,000 W looks like a typo.`)
+		.nullable()
+		.default(null);
+
+const ohms = (what: string, max: number) =>
+	z
+		.number({ error: `${what} must be a number of ohms.` })
+		.positive(`${what} must be more than 0 Ω.`)
+		.max(max, `${what} over ${max} Ω looks like a typo.`)
+		.nullable()
+		.default(null);
+
 const common = {
 	sku,
 	name,
@@ -81,7 +98,16 @@ const amplifier = z.object({
 		.positive("The amplifier's fuse rating must be more than 0 A.")
 		.max(500, 'An amplifier fuse rating over 500 A looks like a typo.')
 		.nullable()
-		.default(null)
+		.default(null),
+	/** RMS watts per channel at each rated load, as printed by the maker. */
+	rms4OhmW: ratedWatts('RMS per channel at 4 Ω'),
+	rms2OhmW: ratedWatts('RMS per channel at 2 Ω'),
+	rms1OhmW: ratedWatts('RMS per channel at 1 Ω'),
+	/** The lowest load per channel the maker says the amplifier drives safely. */
+	minLoadOhm: ohms('Minimum load', 16),
+	bridgeable: z.boolean({ error: 'Bridgeable must be yes or no.' }).default(false),
+	/** The maker's bridged RMS figure, rated into 4 Ω bridged. */
+	bridgedRmsW: ratedWatts('Bridged RMS at 4 Ω')
 });
 
 const headUnit = z.object({
@@ -105,7 +131,12 @@ const speaker = z.object({
 		.positive('Impedance must be more than 0 Ω.')
 		.max(32, 'Impedance over 32 Ω looks like a typo.')
 		.nullable()
-		.default(null)
+		.default(null),
+	/** Single (1) or dual (2) voice coil; a dual-coil driver has two pairs of terminals. */
+	voiceCoils: z
+		.union([z.literal(1), z.literal(2)], { error: 'Voice coils must be 1 (single) or 2 (dual).' })
+		.default(1),
+	ohmsPerCoil: ohms('Impedance per voice coil', 32)
 });
 
 const enclosure = z.object({
@@ -146,11 +177,8 @@ export function amplifierEfficiency(part: Pick<Amplifier, 'ampClass' | 'efficien
 
 // ---- The catalogue form: every field is typed text ----
 
-/** Form field names; lengths take mm or inches ("3.5 in"), a bare number in the form's unit. */
-export const PART_FIELDS = [
-	'kind',
-	'sku',
-	'name',
+// An amplifier's form fields, in form order.
+const AMPLIFIER_FIELDS = [
 	'lengthMm',
 	'widthMm',
 	'heightMm',
@@ -159,19 +187,39 @@ export const PART_FIELDS = [
 	'ampClass',
 	'efficiency',
 	'fuseRatingA',
+	'rms4OhmW',
+	'rms2OhmW',
+	'rms1OhmW',
+	'minLoadOhm',
+	'bridgeable',
+	'bridgedRmsW'
+] as const;
+
+/** Form field names; lengths take mm or inches ("3.5 in"), a bare number in the form's unit. */
+export const PART_FIELDS = [
+	'kind',
+	'sku',
+	'name',
+	...AMPLIFIER_FIELDS,
 	'dinSize',
 	'chassisDepthMm',
 	'nominalSize',
 	'cutoutMm',
 	'mountingDepthMm',
 	'impedanceOhm',
+	'voiceCoils',
+	'ohmsPerCoil',
 	'notes'
 ] as const;
 export type PartField = (typeof PART_FIELDS)[number];
 export type PartFormValues = Record<PartField, string>;
 
 const LENGTH_FIELDS: ReadonlySet<PartField> = new Set(['lengthMm', 'widthMm', 'heightMm', 'chassisDepthMm', 'cutoutMm', 'mountingDepthMm']);
-const NUMBER_FIELDS: ReadonlySet<PartField> = new Set(['channels', 'rmsWattsPerChannel', 'efficiency', 'fuseRatingA', 'dinSize', 'impedanceOhm']);
+/** Yes/no fields: the form sends "yes" or "no". */
+const YES_NO_FIELDS: ReadonlySet<PartField> = new Set(['bridgeable']);
+const TEXT_FIELDS: ReadonlySet<PartField> = new Set(['kind', 'sku', 'name', 'ampClass', 'nominalSize', 'notes']);
+/** Every other field is a plain number: watts, ohms, amps, counts. */
+const NUMBER_FIELDS: ReadonlySet<PartField> = new Set(PART_FIELDS.filter((f) => !LENGTH_FIELDS.has(f) && !YES_NO_FIELDS.has(f) && !TEXT_FIELDS.has(f)));
 
 const NUMBER = /^[+-]?(\d+(\.\d+)?|\.\d+)$/;
 
@@ -180,6 +228,8 @@ export function emptyPartForm(kind: PartKind = 'amplifier'): PartFormValues {
 	values.kind = kind;
 	values.ampClass = 'D';
 	values.dinSize = '1';
+	values.bridgeable = 'no';
+	values.voiceCoils = '1';
 	return values;
 }
 
@@ -192,7 +242,11 @@ export function partFormValues(part: PartData, unit: LengthUnit = 'mm'): PartFor
 		if (!(PART_FIELDS as readonly string[]).includes(key) || value === null || value === undefined) continue;
 		const field = key as PartField;
 		values[field] =
-			LENGTH_FIELDS.has(field) && typeof value === 'number'
+			typeof value === 'boolean'
+				? value
+					? 'yes'
+					: 'no'
+				: LENGTH_FIELDS.has(field) && typeof value === 'number'
 				? unit === 'mm'
 					? trimmed(value, 3)
 					: trimmed(value / MM_PER_INCH, 4)
@@ -212,7 +266,11 @@ export function readPartForm(values: Partial<Record<string, string>>, unit: Leng
 	const used: readonly PartField[] = (PART_KINDS as readonly string[]).includes(kind) ? [...COMMON_FIELDS, ...KIND_FIELDS[kind as PartKind]] : PART_FIELDS;
 	for (const field of used) {
 		const text = (values[field] ?? '').trim();
-		if (LENGTH_FIELDS.has(field) || NUMBER_FIELDS.has(field)) {
+		if (YES_NO_FIELDS.has(field)) {
+			if (text === 'yes' || text === 'on' || text === 'true') raw[field] = true;
+			else if (text === 'no' || text === '' || text === 'false') raw[field] = false;
+			else errors[field] = `${FIELD_LABELS[field]} must be yes or no.`;
+		} else if (LENGTH_FIELDS.has(field) || NUMBER_FIELDS.has(field)) {
 			if (text === '') continue;
 			if (LENGTH_FIELDS.has(field)) {
 				try {
@@ -254,12 +312,20 @@ const FIELD_LABELS: Readonly<Record<PartField | 'form', string>> = {
 	ampClass: 'Amplifier class',
 	efficiency: 'Efficiency',
 	fuseRatingA: 'Own fuses (A)',
+	rms4OhmW: 'RMS per channel at 4 Ω',
+	rms2OhmW: 'RMS per channel at 2 Ω',
+	rms1OhmW: 'RMS per channel at 1 Ω',
+	minLoadOhm: 'Minimum load per channel',
+	bridgeable: 'Bridgeable',
+	bridgedRmsW: 'Bridged RMS at 4 Ω',
 	dinSize: 'DIN size',
 	chassisDepthMm: 'Chassis depth',
 	nominalSize: 'Nominal size',
 	cutoutMm: 'Cut-out diameter',
 	mountingDepthMm: 'Mounting depth',
 	impedanceOhm: 'Impedance',
+	voiceCoils: 'Voice coils',
+	ohmsPerCoil: 'Impedance per voice coil',
 	notes: 'Notes'
 };
 
@@ -289,11 +355,27 @@ export function partFieldsFromForm(entries: Iterable<[string, FormDataEntryValue
 
 /** Which form fields a kind uses, in form order. */
 export const KIND_FIELDS: Readonly<Record<PartKind, readonly PartField[]>> = {
-	amplifier: ['lengthMm', 'widthMm', 'heightMm', 'channels', 'rmsWattsPerChannel', 'ampClass', 'efficiency', 'fuseRatingA'],
+	amplifier: AMPLIFIER_FIELDS,
 	'head-unit': ['dinSize', 'chassisDepthMm', 'lengthMm', 'widthMm', 'heightMm'],
-	speaker: ['nominalSize', 'cutoutMm', 'mountingDepthMm', 'impedanceOhm'],
+	speaker: ['nominalSize', 'cutoutMm', 'mountingDepthMm', 'impedanceOhm', 'voiceCoils', 'ohmsPerCoil'],
 	enclosure: ['lengthMm', 'widthMm', 'heightMm']
 };
+
+/** The rated loads an amplifier's figures are given at, highest first: RMS watts per channel at each. */
+export function ratedLoads(part: Pick<Amplifier, 'rms4OhmW' | 'rms2OhmW' | 'rms1OhmW'>): { ohms: number; watts: number }[] {
+	const rows: { ohms: number; watts: number | null }[] = [
+		{ ohms: 4, watts: part.rms4OhmW },
+		{ ohms: 2, watts: part.rms2OhmW },
+		{ ohms: 1, watts: part.rms1OhmW }
+	];
+	return rows.filter((r): r is { ohms: number; watts: number } => r.watts !== null);
+}
+
+/** A speaker's coils: the recorded figures, else one coil at its nominal impedance; null when neither is known. */
+export function speakerCoils(part: Pick<Speaker, 'voiceCoils' | 'ohmsPerCoil' | 'impedanceOhm'>): { coils: 1 | 2; ohmsPerCoil: number } | null {
+	const perCoil = part.ohmsPerCoil ?? (part.voiceCoils === 1 ? part.impedanceOhm : null);
+	return perCoil === null ? null : { coils: part.voiceCoils, ohmsPerCoil: perCoil };
+}
 
 /** The catalogue's one-line description: "260 × 180 × 55 mm, 2 × 75 W". */
 export function partSummary(part: PartData): string {
@@ -305,7 +387,12 @@ export function partSummary(part: PartData): string {
 		case 'head-unit':
 			return `${part.dinSize === 1 ? 'Single' : 'Double'} DIN, ${trimmed(part.chassisDepthMm, 1)} mm chassis depth`;
 		case 'speaker':
-			return [part.nominalSize, `${trimmed(part.cutoutMm, 1)} mm cut-out`, `${trimmed(part.mountingDepthMm, 1)} mm deep`, part.impedanceOhm ? `${part.impedanceOhm} Ω` : null]
+			return [
+				part.nominalSize,
+				`${trimmed(part.cutoutMm, 1)} mm cut-out`,
+				`${trimmed(part.mountingDepthMm, 1)} mm deep`,
+				part.voiceCoils === 2 ? `dual ${part.ohmsPerCoil ?? '?'} Ω coils` : part.impedanceOhm ? `${part.impedanceOhm} Ω` : null
+			]
 				.filter(Boolean)
 				.join(', ');
 		case 'enclosure':

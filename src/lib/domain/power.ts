@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { parseInput } from './validate';
-import { awgWire, formatAwg, STOCKED_POWER_GAUGES } from './wire';
-import { mainFuse, wireAmpacityA } from './fuse';
+import { awgWire, CABLE_MATERIALS, conductivityShare, DEFAULT_MATERIAL, formatAwg, gaugeLabel, materialBasis, STOCKED_POWER_GAUGES, type CableMaterial } from './wire';
+import { ampacityBasis, mainFuse, wireAmpacityA } from './fuse';
 import { mToFt } from './units';
 
 export type AmpClass = 'AB' | 'D';
@@ -43,20 +43,27 @@ export const ABYC_MIN_CIRCULAR_MILS: Readonly<Record<number, number>> = {
 	18: 1_537
 };
 
-/** ABYC E-11: CM = K × I × L / E, with L the round trip in feet and E the allowed drop in volts. */
-export function abycCircularMils(currentA: number, roundTripFt: number, dropV: number): number {
+/**
+ * ABYC E-11: CM = K × I × L / E, with L the round trip in feet and E the allowed drop in volts. K is
+ * the copper constant; for another material it is divided by the material's share of copper's conductivity.
+ */
+export function abycCircularMils(currentA: number, roundTripFt: number, dropV: number, material: CableMaterial = DEFAULT_MATERIAL): number {
 	if (!(currentA >= 0) || !(roundTripFt >= 0) || !(dropV > 0)) throw new RangeError('Current, length and allowed drop must be positive numbers.');
-	return (ABYC_COPPER_K * currentA * roundTripFt) / dropV;
+	return ((ABYC_COPPER_K / conductivityShare(material)) * currentA * roundTripFt) / dropV;
 }
 
 /** The basis a wire or current figure was worked on, in words for the page beside the answer. */
-export function electricalBasis(volts: number, extra: { maxDropPct?: number; tempC?: number } = {}): string {
+export function electricalBasis(volts: number, extra: { maxDropPct?: number; tempC?: number; material?: CableMaterial } = {}): string {
 	const parts = [`${volts} V ${volts === NOMINAL_VOLTS ? 'nominal (the ABYC E-11 basis)' : 'as stated'}`];
 	if (volts !== CHARGING_VOLTS) parts.push(`about ${CHARGING_VOLTS} V with the engine running`);
-	if (extra.maxDropPct !== undefined) parts.push(`${extra.maxDropPct} % allowed drop, ABYC E-11 conductor formula CM = 10.75 × I × L ÷ E (L the round trip in feet)`);
-	if (extra.tempC !== undefined) parts.push(`copper resistance at ${extra.tempC} °C conductor temperature (IEC 60028)`);
+	const k = extra.material === 'cca' ? `${(ABYC_COPPER_K / conductivityShare('cca')).toFixed(2)} (copper's 10.75 ÷ ${conductivityShare('cca')})` : '10.75';
+	if (extra.maxDropPct !== undefined) parts.push(`${extra.maxDropPct} % allowed drop, ABYC E-11 conductor formula CM = ${k} × I × L ÷ E (L the round trip in feet)`);
+	if (extra.material !== undefined) parts.push(`cable: ${materialBasis(extra.material)}; ${ampacityBasis(extra.material)}`);
+	if (extra.tempC !== undefined) parts.push(`resistance at ${extra.tempC} °C conductor temperature (IEC 60028${extra.material === 'cca' ? ', IEC 60889 for the aluminium core' : ''})`);
 	return parts.join('; ');
 }
+
+export const materialSchema = z.enum(CABLE_MATERIALS, { error: 'Cable material is copper or cca (copper-clad aluminium).' }).default(DEFAULT_MATERIAL);
 
 // Every figure has a ceiling well past any car, so nothing downstream meets an infinite or absurd value.
 const positive = (label: string, unit: string, max: number) =>
@@ -96,7 +103,8 @@ export const powerWireInputSchema = z.object({
 		.number({ error: 'Cable temperature must be a number of °C.' })
 		.min(-40, 'Cable temperature below −40 °C is out of range.')
 		.max(150, 'Cable temperature above 150 °C is out of range.')
-		.default(DEFAULT_CONDUCTOR_TEMP_C)
+		.default(DEFAULT_CONDUCTOR_TEMP_C),
+	material: materialSchema
 });
 export type PowerWireInput = z.input<typeof powerWireInputSchema>;
 
@@ -113,17 +121,20 @@ export function voltageDrop(
 	currentA: number,
 	loopLengthM: number,
 	awg: number,
-	tempC = 20
+	tempC = 20,
+	material: CableMaterial = DEFAULT_MATERIAL
 ): { resistanceOhms: number; dropV: number } {
 	if (!(currentA >= 0)) throw new RangeError('Current must be a number of amps, 0 or more.');
 	if (!(loopLengthM >= 0)) throw new RangeError('Loop length must be a number of metres, 0 or more.');
-	const resistanceOhms = (awgWire(awg, tempC).ohmsPerKm * loopLengthM) / 1000;
+	const resistanceOhms = (awgWire(awg, tempC, material).ohmsPerKm * loopLengthM) / 1000;
 	return { resistanceOhms, dropV: currentA * resistanceOhms };
 }
 
 export interface WireCandidate {
 	awg: string;
 	gauge: number;
+	/** "4 AWG (21.2 mm²)". */
+	label: string;
 	resistanceOhms: number;
 	dropV: number;
 	dropPct: number;
@@ -145,6 +156,7 @@ export interface WireBasis {
 	/** What ABYC E-11's formula asks for, circular mils. */
 	requiredCircularMils: number;
 	ownFuseA: number | null;
+	material: CableMaterial;
 	text: string;
 }
 
@@ -153,6 +165,8 @@ export type PowerWireResult =
 			ok: true;
 			awg: string;
 			gauge: number;
+			label: string;
+			material: CableMaterial;
 			resistanceOhms: number;
 			dropV: number;
 			dropPct: number;
@@ -172,10 +186,10 @@ export type PowerWireResult =
  * Candidates are listed thinnest first.
  */
 export function powerWire(input: PowerWireInput): PowerWireResult {
-	const { currentA, powerLengthM, groundLengthM, volts, maxDropPct, tempC, ownFuseA } = parseInput(powerWireInputSchema, input);
+	const { currentA, powerLengthM, groundLengthM, volts, maxDropPct, tempC, ownFuseA, material } = parseInput(powerWireInputSchema, input);
 	const loopM = powerLengthM + groundLengthM;
 	const roundTripFt = mToFt(loopM);
-	const requiredCircularMils = abycCircularMils(currentA, roundTripFt, (volts * maxDropPct) / 100);
+	const requiredCircularMils = abycCircularMils(currentA, roundTripFt, (volts * maxDropPct) / 100, material);
 	const basis: WireBasis = {
 		volts,
 		maxDropPct,
@@ -183,20 +197,22 @@ export function powerWire(input: PowerWireInput): PowerWireResult {
 		roundTripFt,
 		requiredCircularMils,
 		ownFuseA,
-		text: electricalBasis(volts, { maxDropPct, tempC })
+		material,
+		text: electricalBasis(volts, { maxDropPct, tempC, material })
 	};
 	const candidates = [...STOCKED_POWER_GAUGES]
 		.sort((a, b) => b - a)
 		.map((gauge): WireCandidate => {
-			const { resistanceOhms, dropV } = voltageDrop(currentA, loopM, gauge, tempC);
+			const { resistanceOhms, dropV } = voltageDrop(currentA, loopM, gauge, tempC, material);
 			const dropPct = (dropV / volts) * 100;
 			const circularMils = ABYC_MIN_CIRCULAR_MILS[gauge];
 			const meetsAbyc = circularMils >= requiredCircularMils;
-			const ampacityA = wireAmpacityA(gauge);
-			const fuse = mainFuse(currentA, gauge, ownFuseA);
+			const ampacityA = wireAmpacityA(gauge, material);
+			const fuse = mainFuse(currentA, gauge, ownFuseA, material);
 			return {
 				awg: formatAwg(gauge),
 				gauge,
+				label: gaugeLabel(gauge),
 				resistanceOhms,
 				dropV,
 				dropPct,
@@ -212,24 +228,24 @@ export function powerWire(input: PowerWireInput): PowerWireResult {
 	const chosen = candidates.find((c) => c.meetsDrop && c.carriesCurrent && c.fuseA !== null);
 	const byDrop = candidates.find((c) => c.meetsDrop);
 	if (chosen && chosen.fuseA !== null) {
-		const { awg, gauge, resistanceOhms, dropV, dropPct, ampacityA, fuseA } = chosen;
+		const { awg, gauge, label, resistanceOhms, dropV, dropPct, ampacityA, fuseA } = chosen;
 		const upsized =
 			byDrop && byDrop.gauge !== gauge
 				? {
 						fromAwg: byDrop.awg,
-						reason: `${byDrop.awg} AWG keeps the drop within ${maxDropPct} %, but the ${fuseA} A fuse the load needs is more than it can carry (${byDrop.ampacityA} A), so the cable is ${awg} AWG.`
+						reason: `${byDrop.label} keeps the drop within ${maxDropPct} %, but the ${fuseA} A fuse the load needs is more than it can carry (${byDrop.ampacityA} A), so the cable is ${label}.`
 					}
 				: null;
-		const fuse = mainFuse(currentA, gauge, ownFuseA);
+		const fuse = mainFuse(currentA, gauge, ownFuseA, material);
 		const fuseBasis = fuse.ok ? fuse.basis : '';
-		return { ok: true, awg, gauge, resistanceOhms, dropV, dropPct, ampacityA, fuseA, fuseBasis, upsized, basis, candidates };
+		return { ok: true, awg, gauge, label, material, resistanceOhms, dropV, dropPct, ampacityA, fuseA, fuseBasis, upsized, basis, candidates };
 	}
 	const heaviest = candidates[candidates.length - 1];
-	const heaviestFuse = mainFuse(currentA, heaviest.gauge, ownFuseA);
+	const heaviestFuse = mainFuse(currentA, heaviest.gauge, ownFuseA, material);
 	const reason = !heaviest.carriesCurrent
-		? `${round1(currentA)} A is more than the heaviest stocked cable (${heaviest.awg} AWG, ${heaviest.ampacityA} A) can carry; split the load over separate runs.`
+		? `${round1(currentA)} A is more than the heaviest stocked cable (${heaviest.label}${material === 'cca' ? ' CCA' : ''}, ${heaviest.ampacityA} A) can carry; split the load over separate runs.`
 		: !heaviest.meetsDrop
-			? `Even ${heaviest.awg} AWG drops more than the ${maxDropPct} % target over a ${round1(loopM)} m loop (${round1(heaviest.dropPct)} % at ${tempC} °C; ABYC E-11 asks for ${Math.round(requiredCircularMils).toLocaleString('en')} circular mils); shorten the run or use heavier cable.`
+			? `Even ${heaviest.label} drops more than the ${maxDropPct} % target over a ${round1(loopM)} m loop (${round1(heaviest.dropPct)} % at ${tempC} °C; ABYC E-11 asks for ${Math.round(requiredCircularMils).toLocaleString('en')} circular mils); shorten the run or use heavier cable.`
 			: heaviestFuse.ok
 				? `No stocked cable pairs with a standard fuse for ${round1(currentA)} A; use a heavier cable.`
 				: heaviestFuse.reason;

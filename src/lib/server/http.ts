@@ -2,6 +2,7 @@ import { error, isHttpError, json } from '@sveltejs/kit';
 import type { ZodType } from 'zod';
 import { EditConflictError, ServiceError, fieldMessages } from './errors';
 import { DATABASE_DOWN_MESSAGE, noteDatabaseError } from './db/availability';
+import { requireRole } from './auth/guard';
 
 /** Runs an API handler body and answers refusals as JSON 4xx with a message a person understands. */
 export async function apiCall(body: () => Promise<Response>): Promise<Response> {
@@ -68,4 +69,17 @@ export function asHttpError(err: unknown): never {
 	if (err instanceof ServiceError) error(err.status, err.message);
 	if (noteDatabaseError(err)) error(503, DATABASE_DOWN_MESSAGE);
 	throw err;
+}
+
+/**
+ * A calculator endpoint: any signed-in person may ask; the body is checked against the calculator's
+ * schema (400 with a message per field) and the answer is JSON.
+ */
+export function calcPost<T>(schema: ZodType<T>, answer: (input: T) => unknown): (event: { locals: App.Locals; request: Request }) => Promise<Response> {
+	return ({ locals, request }) =>
+		apiCall(async () => {
+			requireRole(locals, 'viewer');
+			const input = await readJson(request, schema);
+			return json(await answer(input));
+		});
 }

@@ -18,3 +18,16 @@ export function fieldsFrom<K extends string>(params: URLSearchParams, defaults: 
 	}
 	return out;
 }
+
+/**
+ * Where a calculator's figures go onto a job sheet: the vehicle's sheet when the calculator was
+ * opened for a vehicle, else the vehicle picker that forwards them.
+ */
+export function jobSheetHref(figures: Record<string, string | readonly string[] | undefined>, vehicle: string | null): string {
+	const p = new URLSearchParams();
+	for (const [k, v] of Object.entries(figures)) {
+		for (const item of typeof v === 'string' ? [v] : (v ?? [])) if (item.trim() !== '') p.append(k, item.trim());
+	}
+	const q = p.size ? `?${p}` : '';
+	return vehicle ? `/vehicles/${encodeURIComponent(vehicle)}/job-sheet${q}` : `/job-sheet${q}`;
+}

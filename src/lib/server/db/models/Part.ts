@@ -1,7 +1,10 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import { PART_KINDS, type PartKind } from '../../../domain/part';
 
-/** A product in the shop's catalogue; `specs` holds the kind's own figures as JSON. */
+/**
+ * A product in the shop's catalogue; `specs` holds the kind's own figures as JSON (an amplifier's rated
+ * power at each load, minimum load and bridging; a speaker's voice coils), read back through the part schema.
+ */
 export class Part extends Model<InferAttributes<Part>, InferCreationAttributes<Part>> {
 	declare id: CreationOptional<number>;
 	declare kind: PartKind;

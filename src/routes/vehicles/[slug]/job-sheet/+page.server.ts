@@ -7,7 +7,7 @@ import { listParts, partsByIds } from '$lib/server/services/parts';
 import { measurementOrigins, placeReaders } from '$lib/server/services/evidence';
 import { trustSummary } from '$lib/server/services/trust';
 import { jobSheet } from '$lib/domain/jobSheet';
-import { readJobSheetQuery } from '$lib/domain/calcInput';
+import { readJobSheetQuery, subwooferDrivers } from '$lib/domain/jobSheetQuery';
 import { BODY_STYLE_NAMES, BATTERY_LOCATION_NAMES, type BodyStyle } from '$lib/domain/content/schema';
 
 export const load: PageServerLoad = async ({ locals, params, url }) => {
@@ -17,7 +17,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	try {
 		const vehicle = await requireVehicle(params.slug);
 		const rev = await requirePageRevision(vehicle, user);
-		const partIds = q.getAll('part').flatMap((v) => v.split(',')).map(Number);
+		const partIds = [...q.getAll('part').flatMap((v) => v.split(',')), q.get('subPart') ?? ''].filter(Boolean).map(Number);
 		const [parts, catalogue, trust, evidence] = await Promise.all([
 			partsByIds(partIds),
 			listParts(),
@@ -25,14 +25,30 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			measurementOrigins(rev, placeReaders(rev.content))
 		]);
 
-		const { lengths, speakers, cores, errors } = readJobSheetQuery((name) => q.get(name), unit);
+		const read = readJobSheetQuery(q, unit, rev.content.identity);
+		const { lengths, speakers, cores, errors } = read;
+		const subDrivers = read.subwoofers ? subwooferDrivers(read.subwoofers, parts) : null;
+		if (typeof subDrivers === 'string') errors.subOhms = subDrivers;
+		// The subwoofer chosen only as a subwoofer is not another part to mount or cable.
+		const chosenIds = new Set(q.getAll('part').flatMap((v) => v.split(',')).map(Number));
+		const sheetParts = parts.filter((p) => chosenIds.has(p.id));
 
 		const sheet = jobSheet({
 			content: rev.content,
-			parts,
+			parts: sheetParts,
+			subwoofers:
+				read.subwoofers && subDrivers && typeof subDrivers !== 'string'
+					? { drivers: subDrivers, ampKey: read.subwoofers.ampKey, bridged: read.subwoofers.bridged, wiring: read.subwoofers.wiring }
+					: null,
+			vehicleLoadA: read.vehicleLoadA ?? null,
+			typedAmps: read.typedAmps,
+			box: read.box,
+			material: read.material,
+			headUnitRemoteA: read.remoteOutA ?? null,
 			powerRunId: q.get('run'),
 			powerM: lengths.power ?? null,
-			groundM: lengths.ground ?? null,
+			groundM: read.grounds ?? null,
+			branchM: read.branches ?? null,
 			remoteM: lengths.remote ?? null,
 			speakerM: lengths.speaker ?? null,
 			speakers: speakers ?? null,
@@ -57,16 +73,29 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 				speakers: c.speakers.locations,
 				removal: c.removal
 			},
-			parts,
+			parts: sheetParts,
 			catalogue: catalogue.map((p) => ({ id: p.id, kind: p.kind, sku: p.sku, name: p.name })),
 			sheet,
 			evidence,
 			trust,
 			form: {
-				parts: parts.map((p) => String(p.id)),
+				parts: sheetParts.map((p) => String(p.id)),
 				run: sheet.powerRun.id ?? '',
 				power: q.get('power') ?? '',
 				ground: q.get('ground') ?? '',
+				branch: q.get('branch') ?? '',
+				material: read.material,
+				remoteOut: q.get('remoteOut') ?? '',
+				ampRows: read.ampRows,
+				subPart: q.get('subPart') ?? '',
+				subCount: q.get('subCount') ?? '',
+				subCoils: q.get('subCoils') ?? '',
+				subOhms: q.get('subOhms') ?? '',
+				subAmp: q.get('subAmp') ?? '',
+				bridged: q.get('bridged') === 'on',
+				wiring: q.get('wiring') ?? '',
+				vehicleLoad: q.get('vehicleLoad') ?? '',
+				box: read.box,
 				remote: q.get('remote') ?? '',
 				speaker: q.get('speaker') ?? '',
 				speakers: q.get('speakers') ?? '',
@@ -76,6 +105,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 				speakerAt: q.get('speakerAt') ?? '',
 				unit
 			},
+			customer: read.customer,
+			years: { from: rev.content.identity.yearFrom, to: rev.content.identity.yearTo },
 			errors,
 			units: locals.units,
 			printedAt: new Date().toISOString()
