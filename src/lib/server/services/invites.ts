@@ -54,7 +54,7 @@ export async function inviteByEmail(input: unknown, admin: SessionUser, now = ne
 	});
 	const shop = await shopSettings();
 	try {
-		await sendMail({ to: email, ...inviteMail({ shopName: shop.shopName, inviterName: admin.name, role, link: `${config.origin}/invite/${token}`, expiresAt }) });
+		await sendMail({ to: email, ...inviteMail({ shopName: shop.shopName, inviterName: admin.name, role, link: `${config.origin}/invite/${token}`, expiresAt, timeZone: shop.timeZone }) });
 	} catch (err) {
 		await row.update({ revokedAt: new Date() });
 		if (err instanceof MailNotSent) throw new ServiceError(`${err.message}. Nothing was sent; try again.`, 503);

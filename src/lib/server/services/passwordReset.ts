@@ -57,7 +57,7 @@ async function mailResetLink(email: string, now: Date): Promise<void> {
 		await AccountToken.create({ kind: 'reset', userId: user.id, email: null, role: null, invitedBy: null, tokenHash, expiresAt, createdAt: now }, { transaction });
 	});
 	const shop = await shopSettings();
-	await sendMail({ to: user.email, ...resetMail({ shopName: shop.shopName, name: user.name, link: `${config.origin}/reset/${token}`, expiresAt }) });
+	await sendMail({ to: user.email, ...resetMail({ shopName: shop.shopName, name: user.name, link: `${config.origin}/reset/${token}`, expiresAt, timeZone: shop.timeZone }) });
 }
 
 export const RESET_UNUSABLE = 'This reset link has expired, was replaced by a newer one, or was already used. Ask for a new link.';

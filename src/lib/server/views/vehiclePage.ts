@@ -5,6 +5,7 @@ import { pageRevision } from '../services/visibility';
 import { isWatching } from '../services/watch';
 import { trustSummary } from '../services/trust';
 import { canEditVehicle } from '../services/revisions';
+import { listSuggestions } from '../services/suggestions';
 import { deliverBody, vehicleBody } from '../render/vehicleBody';
 
 type VehiclePageEvent = Pick<RequestEvent<{ slug: string }>, 'locals' | 'params' | 'url' | 'isDataRequest'>;
@@ -16,10 +17,11 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 	if (!found) error(404, 'No vehicle page at this address.');
 	if ('redirectTo' in found) redirect(301, `/vehicles/${found.redirectTo}`);
 	const { vehicle } = found;
-	const [{ revision, newerAwaitingReview }, watching, trust] = await Promise.all([
+	const [{ revision, newerAwaitingReview }, watching, trust, suggestions] = await Promise.all([
 		pageRevision(vehicle, user),
 		isWatching(user.id, vehicle.id),
-		trustSummary(vehicle, locals.units)
+		trustSummary(vehicle, locals.units),
+		listSuggestions(user, { vehicleId: vehicle.id, status: 'open' })
 	]);
 	if (!revision) {
 		error(404, newerAwaitingReview ? 'This new page is awaiting sign-off by a moderator.' : 'This vehicle page has no saved revision yet.');
@@ -39,6 +41,7 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 		watching,
 		trust,
 		newerAwaitingReview,
+		suggestions,
 		units: locals.units,
 		flash: Number.isInteger(saved) && saved > 0 ? { revisionId: saved, merged: url.searchParams.get('merged') === '1' } : null
 	};

@@ -6,6 +6,7 @@ import * as rateLimits from './2026-12-01T15-00-00_rate_limits';
 import * as revisionPhotos from './2026-12-01T16-00-00_revision_photos';
 import * as revisionOrigins from './2026-12-05T02-00-00_revision_origins';
 import * as endedSessions from './2026-12-05T03-00-00_ended_sessions';
+import * as suggestions from './2026-12-05T06-00-00_suggestions';
 
 /** Every migration, oldest first. Add new ones at the end (see DEVELOPERS.md). */
-export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos, revisionOrigins, endedSessions];
+export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos, revisionOrigins, endedSessions, suggestions];
