@@ -118,7 +118,7 @@ async function uploadPhoto(who: Identity, slug: string): Promise<{ id: string; r
 
 async function hide(slug: string, revisionId: number) {
 	const res = await people.get('moderator')!.post(`/vehicles/${slug}/history?/hide`, {
-		form: { revisionId: String(revisionId), hidden: 'true', reason: 'Customer details' },
+		form: { revisionId: String(revisionId), hidden: 'true', reason: 'Customer details', confirmed: 'yes' },
 		maxRedirects: 0
 	});
 	expect(res.status()).toBeLessThan(400);
