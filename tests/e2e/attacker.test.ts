@@ -170,6 +170,7 @@ function concrete(id: string, slug: string): string {
 		.replace('/parts/[id]', '/parts/1')
 		.replace('/users/[id]', '/users/1')
 		.replace('/admin/outbox/[id]', '/admin/outbox/1')
+		.replace('/suggestions/[id]', '/suggestions/1')
 		.replace('[token]', randomBytes(32).toString('base64url'))
 		.replace('[vin]', '1M8GDM9AXKP042788')
 		.replace('/photos/[id]/[rendition]', `/photos/${randomBytes(32).toString('hex')}/thumb`)

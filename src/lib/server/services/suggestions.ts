@@ -125,6 +125,8 @@ export async function suggestionDetail(id: number, vehicleId: number, reader: Se
 	if (row.vehicleId !== vehicleId) throw new ServiceError('No suggested change with that number on this page.', 404);
 	const base = await revisionById(Number(row.baseRevisionId));
 	if (!base) throw new ServiceError('The revision this change started from is missing.', 404);
+	// A base hidden since (or not signed off for this reader) is never shown through its suggestion.
+	if (!(await mayRead(base, reader))) throw new ServiceError('The revision this change started from was hidden by a moderator, so its changes are not shown.', 403);
 	const [item] = await itemsOf([row]);
 	const suggested = validateContent(JSON.parse(row.content));
 	return { ...item, ...contentChanges(base.content, suggested, units) };
