@@ -13,7 +13,9 @@ const { freshPage } = browserSession(PHONE);
 async function editorOpen(page: Page) {
 	await signIn(page, 'editor');
 	await page.goto(`${BASE}/vehicles/${SLUG}/edit`, { waitUntil: 'networkidle' });
+	// No draft kept from the tests before: the form opens on the page as saved.
 	await page.evaluate(() => localStorage.clear());
+	await page.reload({ waitUntil: 'networkidle' });
 }
 
 async function typeWork(page: Page, height: string, note: string) {

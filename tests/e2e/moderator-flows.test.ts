@@ -68,9 +68,11 @@ describe('restore and hide ask first, on a phone', () => {
 	it('refuses a restore posted without the confirmation', async () => {
 		const page = await freshPage();
 		await signIn(page, 'moderator');
-		const res = await page.request.post(`${BASE}/vehicles/${SLUG}/history?/restore`, { form: { revisionId: '1' }, headers: { origin: BASE } });
-		expect(res.status()).toBe(400);
-		expect(await res.text()).toContain('Confirm first');
+		// Posted as the page's own script posts a form, so the refusal comes back as data.
+		const res = await page.request.post(`${BASE}/vehicles/${SLUG}/history?/restore`, { form: { revisionId: '1' }, headers: { origin: BASE, accept: 'application/json', 'x-sveltekit-action': 'true' } });
+		const answer = await res.json();
+		expect(answer).toMatchObject({ type: 'failure', status: 400 });
+		expect(answer.data).toContain('Confirm first');
 		await page.close();
 	});
 
@@ -135,12 +137,13 @@ describe('lists read as cards on a phone', () => {
 			const cell = [...document.querySelectorAll('td[data-label="E-mail"] .email')][0] as HTMLElement;
 			const range = document.createRange();
 			range.selectNodeContents(cell);
-			return { rects: range.getClientRects().length, text: cell.textContent, words: getComputedStyle(cell).wordBreak };
+			const tops = new Set([...range.getClientRects()].map((r) => Math.round(r.top)));
+			return { lines: tops.size, text: cell.textContent, words: getComputedStyle(cell).wordBreak };
 		});
 		expect(lines.text).toMatch(/@kickpanel\.test$/);
 		expect(lines.words).toBe('normal');
-		// "viewer@kickpanel.test" fits on one line of a 390 px card, or at most breaks at its @ and dot.
-		expect(lines.rects).toBeLessThanOrEqual(3);
+		// A sample address fits on one line of a 390 px card, or at most breaks at its @ and dot.
+		expect(lines.lines).toBeLessThanOrEqual(3);
 		await page.close();
 	});
 });

@@ -24,8 +24,11 @@ describe('search filters on a phone', () => {
 		await page.getByText('Filters').first().click();
 		expect(await rowCount(page)).toBe(1);
 		for (let n = 2; n <= 6; n++) {
-			await Promise.all([page.waitForURL(/\/search\?/), page.getByRole('button', { name: '+ Add a condition' }).click()]);
-			await expect.poll(() => rowCount(page)).toBe(n);
+			await Promise.all([
+				page.waitForURL((url) => url.searchParams.getAll('measure').length === n),
+				page.getByRole('button', { name: '+ Add a condition' }).click()
+			]);
+			await expect.poll(() => rowCount(page), { timeout: 15_000 }).toBe(n);
 		}
 		expect(await page.getByRole('button', { name: '+ Add a condition' }).count()).toBe(0);
 		expect(new URL(page.url()).searchParams.getAll('measure')).toHaveLength(6);
@@ -35,8 +38,11 @@ describe('search filters on a phone', () => {
 		await page.fill('#value-0', '1');
 		await page.selectOption('#measure-4', 'dash-depth');
 		await page.fill('#value-4', '1');
-		await Promise.all([page.waitForURL(/\/search\?/), page.getByRole('button', { name: 'Remove condition 5' }).click()]);
-		await expect.poll(() => rowCount(page)).toBe(5);
+		await Promise.all([
+			page.waitForURL((url) => url.searchParams.getAll('measure').length === 5),
+			page.getByRole('button', { name: 'Remove condition 5' }).click()
+		]);
+		await expect.poll(() => rowCount(page), { timeout: 15_000 }).toBe(5);
 		const url = new URL(page.url());
 		expect(url.searchParams.getAll('measure')).toEqual(['driver-seat-height', '', '', '', '']);
 		expect(url.searchParams.getAll('value')[0]).toBe('1');

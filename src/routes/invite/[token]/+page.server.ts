@@ -14,7 +14,11 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 /** The same event, posting the new person's e-mail and password to the sign-in, which sets the session cookie. */
 function signInAs(event: RequestEvent, email: string, password: string): RequestEvent {
 	const body = new URLSearchParams({ providerId: 'credentials', email, password, redirectTo: '/' });
-	const request = new Request(event.request.url, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: event.request.headers.get('cookie') ?? '' }, body });
+	// The sign-in builds its addresses from the request's host headers, so they go along.
+	const headers = new Headers(event.request.headers);
+	headers.set('content-type', 'application/x-www-form-urlencoded');
+	headers.delete('content-length');
+	const request = new Request(event.request.url, { method: 'POST', headers, body });
 	return { ...event, request };
 }
 
