@@ -9,14 +9,17 @@ export type ConditionRow = { measure: string; op: string; value: string };
 
 const BLANK: ConditionRow = { measure: '', op: 'gte', value: '' };
 
-/** The rows as listed in the address, at least one (blank) so the form always has a row to fill. */
+/**
+ * The rows as listed in the address, at least one (blank) so the form always has a row to fill. `rows`
+ * says how many the form shows: a change in it is a change of address even when only blank rows differ.
+ */
 export function conditionRows(params: URLSearchParams): ConditionRow[] {
 	const measures = params.getAll('measure');
 	const ops = params.getAll('op');
 	const values = params.getAll('value');
-	const n = Math.max(measures.length, values.length);
-	const rows = Array.from({ length: n }, (_, i) => ({ measure: measures[i] ?? '', op: ops[i] || 'gte', value: values[i] ?? '' }));
-	return rows.length ? rows : [{ ...BLANK }];
+	const shown = Math.min(MAX_CONDITION_ROWS, Math.max(0, Math.trunc(Number(params.get('rows'))) || 0));
+	const n = Math.max(measures.length, values.length, shown, 1);
+	return Array.from({ length: n }, (_, i) => ({ measure: measures[i] ?? '', op: ops[i] || 'gte', value: values[i] ?? '' }));
 }
 
 /**
@@ -32,11 +35,12 @@ export function tidiedRows(params: URLSearchParams): string | null {
 	if (drop !== null && Number.isInteger(at) && at >= 0 && at < rows.length) rows = rows.filter((_, i) => i !== at);
 	if (add && rows.length < MAX_CONDITION_ROWS) rows.push({ ...BLANK });
 	const next = new URLSearchParams();
-	for (const [key, value] of params) if (!['measure', 'op', 'value', 'drop', 'add', 'page'].includes(key)) next.append(key, value);
+	for (const [key, value] of params) if (!['measure', 'op', 'value', 'drop', 'add', 'page', 'rows'].includes(key)) next.append(key, value);
 	for (const row of rows) {
 		next.append('measure', row.measure);
 		next.append('op', row.op);
 		next.append('value', row.value);
 	}
+	next.set('rows', String(Math.max(rows.length, 1)));
 	return next.toString();
 }
