@@ -25,6 +25,9 @@ export const init: ServerInit = async () => {
 	});
 };
 
+// Forms whose refusal, even signed out, comes back with what was typed.
+const KEEPS_TYPED_WORK = /^\/vehicles\/[^/]+\/edit$/;
+
 // Pages anyone may open without signing in; everything else needs an account.
 const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite', '/setup/'];
 
@@ -42,7 +45,8 @@ const loadUser: Handle = async ({ event, resolve }) => {
 			});
 		}
 		if (event.request.method === 'GET') redirect(303, `/signin?next=${encodeURIComponent(path + event.url.search)}`);
-		return new Response('Sign in to continue.', { status: 401 });
+		// The editor's own action answers a signed-out save with everything typed (it checks the role itself).
+		if (!KEEPS_TYPED_WORK.test(path)) return new Response('Sign in to continue.', { status: 401 });
 	}
 	return resolve(event, {
 		transformPageChunk: ({ html }) => (event.locals.fragments ? spliceFragments(html, event.locals.fragments) : html)

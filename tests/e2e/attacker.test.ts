@@ -124,7 +124,7 @@ async function uploadPhoto(who: Identity, slug: string): Promise<{ id: string; r
 
 async function hide(slug: string, revisionId: number) {
 	const res = await people.get('moderator')!.post(`/vehicles/${slug}/history?/hide`, {
-		form: { revisionId: String(revisionId), hidden: 'true', reason: 'Customer details' },
+		form: { revisionId: String(revisionId), hidden: 'true', reason: 'Customer details', confirmed: 'yes' },
 		maxRedirects: 0
 	});
 	expect(res.status()).toBeLessThan(400);
@@ -176,6 +176,7 @@ function concrete(id: string, slug: string): string {
 		.replace('/parts/[id]', '/parts/1')
 		.replace('/users/[id]', '/users/1')
 		.replace('/admin/outbox/[id]', '/admin/outbox/1')
+		.replace('/suggestions/[id]', '/suggestions/1')
 		.replace('[token]', randomBytes(32).toString('base64url'))
 		.replace('[vin]', '1M8GDM9AXKP042788')
 		.replace('/photos/[id]/[rendition]', `/photos/${randomBytes(32).toString('hex')}/thumb`)

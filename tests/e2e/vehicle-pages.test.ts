@@ -52,7 +52,12 @@ describe('a writer edits, a moderator puts it right', () => {
 	it('lets a moderator restore the earlier revision at desktop width', async () => {
 		const page = await pageAs('moderator', DESKTOP);
 		await page.goto(`${BASE}/vehicles/${SLUG}/history`, { waitUntil: 'networkidle' });
-		await page.click('button:has-text("Restore this revision")');
+		await page.click('a:has-text("Restore this revision")');
+		// Nothing happens on the first tap: the dialog asks.
+		const dialog = page.locator('dialog[open]');
+		await dialog.waitFor();
+		expect(await dialog.textContent()).toMatch(/Restore revision #\d+\?/);
+		await dialog.locator('button:has-text("Yes, restore")').click();
 		await page.getByText(/Restored revision \d+ as new revision \d+/).waitFor();
 		await screenshot(page, 'history-moderator-desktop');
 		await page.goto(`${BASE}/vehicles/${SLUG}`);

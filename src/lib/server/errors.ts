@@ -5,7 +5,7 @@ import type { MergeConflict } from '../domain/content/merge';
 export class ServiceError extends Error {
 	constructor(
 		message: string,
-		readonly status: 400 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503 = 400,
+		readonly status: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503 = 400,
 		readonly fieldErrors?: Record<string, string>
 	) {
 		super(message);
@@ -23,7 +23,9 @@ export class EditConflictError extends ServiceError {
 	constructor(
 		readonly conflicts: MergeConflict[],
 		readonly latestRevisionId: number,
-		readonly merged: unknown
+		readonly merged: unknown,
+		/** Who saved the newest revision meanwhile, and when (ISO). */
+		readonly meanwhile: { by: string; at: string } | null = null
 	) {
 		super(
 			`Someone else saved this page while you were editing, and changed ${conflicts.length === 1 ? 'a field' : `${conflicts.length} fields`} you changed too. Choose a value for each, then save again.`,

@@ -1,3 +1,4 @@
+import { redirect } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
 import { hasRole, requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
@@ -5,12 +6,16 @@ import { searchIndex } from '$lib/server/search';
 import { lookupVin, newPageHref } from '$lib/server/vin/lookup';
 import { parseSearchFilters, type SearchFilters } from '$lib/domain/search/filters';
 import { vinShape } from '$lib/domain/search/query';
+import { conditionRows, tidiedRows } from '$lib/domain/search/conditionRows';
 
 const PAGE_SIZE = 20;
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	const user = requireRole(locals, 'viewer');
 	const params = url.searchParams;
+	// "Add a condition" and "Remove" send the form: go on to the same search with the rows changed.
+	const tidied = tidiedRows(params);
+	if (tidied !== null) redirect(303, `/search?${tidied}`);
 	const values = {
 		q: params.get('q') ?? '',
 		make: params.get('make') ?? '',
@@ -18,7 +23,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		body: params.get('body') ?? '',
 		photos: ['1', 'on', 'true'].includes(params.get('photos') ?? ''),
 		unit: params.get('unit') ?? (locals.units === 'imperial' ? 'in' : 'mm'),
-		conditions: params.getAll('measure').map((measure, i) => ({ measure, op: params.getAll('op')[i] ?? 'gte', value: params.getAll('value')[i] ?? '' }))
+		conditions: conditionRows(params)
 	};
 	const index = searchIndex();
 	const makes = await index.makes().catch(asHttpError);

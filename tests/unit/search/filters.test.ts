@@ -58,8 +58,10 @@ describe('parseSearchFilters', () => {
 		}
 	});
 
-	it('limits the number of conditions', () => {
-		const rows = Array.from({ length: 5 }, () => 'measure=dash-depth&op=gte&value=100').join('&');
-		expect(parse(rows)).toMatchObject({ ok: false, message: 'At most 4 measurement conditions at a time.' });
+	it('takes up to six conditions, as many as the form has rows, and refuses a seventh', () => {
+		const rows = (n: number) => Array.from({ length: n }, (_, i) => `measure=dash-depth&op=gte&value=${100 + i}`).join('&');
+		const six = parse(rows(6));
+		expect(six.ok && six.filters.conditions.map((c) => c.mm)).toEqual([100, 101, 102, 103, 104, 105]);
+		expect(parse(rows(7))).toMatchObject({ ok: false, message: 'At most 6 measurement conditions at a time.' });
 	});
 });

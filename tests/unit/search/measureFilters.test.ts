@@ -111,6 +111,28 @@ describe('several conditions hold on one and the same seat space', () => {
 	});
 });
 
+describe('seat height', () => {
+	// Ash has a passenger space with no height measured; Beech one 120 mm high (invented sample figures).
+	const engine = engineWith([
+		page('Ash', (c) => (c.seats.spaces = [space('a', 'passenger', 400, 300, null)])),
+		page('Beech', (c) => (c.seats.spaces = [space('b', 'passenger', 400, 300, 120)]))
+	]);
+
+	it('leaves out a seat with no height measured, for at most and at least alike', () => {
+		expect(models(engine, 'measure=passenger-seat-height&op=lte&value=2000')).toEqual(['Beech']);
+		expect(models(engine, 'measure=passenger-seat-height&op=gte&value=1')).toEqual(['Beech']);
+		// Joined with a condition the unmeasured space meets, still out.
+		expect(models(engine, 'measure=passenger-seat-length&op=gte&value=400&measure=passenger-seat-height&op=lte&value=2000')).toEqual(['Beech']);
+	});
+
+	it('takes six conditions at once, all on one space', () => {
+		// 400 × 300 × 120 mm meets 399–401, 299–301 and 119–121 on the same space.
+		const six = 'measure=passenger-seat-length&op=gte&value=399&measure=passenger-seat-length&op=lte&value=401&measure=passenger-seat-width&op=gte&value=299&measure=passenger-seat-width&op=lte&value=301&measure=passenger-seat-height&op=gte&value=119&measure=passenger-seat-height&op=lte&value=121';
+		expect(models(engine, six)).toEqual(['Beech']);
+		expect(models(engine, six.replace('value=121', 'value=119.9'))).toEqual([]);
+	});
+});
+
 describe('boot measurements', () => {
 	// invented boots: a 36 in opening is 914.4 mm (international inch, exact)
 	const engine = engineWith([

@@ -1,3 +1,4 @@
+import { formatDay } from '../../domain/shopTime';
 import { formatFieldValue } from '../../domain/content/fieldDiff';
 import { SECTION_KEYS, SECTION_NAMES, VEHICLE_FIELDS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
 import { fieldName, type FieldTree } from '../../domain/content/fieldTree';
@@ -57,10 +58,8 @@ export function sectionIsEmpty(content: VehicleContent, key: SectionKey): boolea
 
 export const SECTIONS = SECTION_KEYS.map((key) => ({ key, title: SECTION_NAMES[key] }));
 
-const DATE = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-
-/** The same text on the server and in the browser, whatever either's time zone. */
-export const shortDate = (iso: string) => DATE.format(new Date(iso));
+/** The day in the shop's time zone: the same text on the server and in the browser, whatever either's own zone. */
+export const shortDate = (iso: string, zone: string) => formatDay(iso, zone);
 
 /** Sizes in one unit, e.g. "410 × 300 × 95 mm"; "?" stands for a side not measured. */
 export function dimensions(mm: readonly (number | null)[], units: UnitSystem): string {

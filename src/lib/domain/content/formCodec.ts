@@ -303,4 +303,8 @@ export interface EditorValues {
 	/** Conflicts still to settle: shown, and posted back as JSON with the save. */
 	conflicts: ConflictView[];
 	conflictsJson: string;
+	/** Who saved the revision the conflicts are against, and when (ISO). */
+	meanwhile?: { by: string; at: string } | null;
+	/** The page was locked for moderators while this was typed: it may still be suggested. */
+	offerSuggestion?: boolean;
 }

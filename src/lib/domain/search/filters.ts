@@ -4,9 +4,11 @@ import { inToMm, mmToIn } from '../units';
 import { MAX_MEASURED_MM } from '../sizeRules';
 import { COMPARISON_NAMES, MEASUREMENTS, measurementByKey, toMicrometres, type MeasureCondition } from './measurements';
 import { YEAR_MAX, YEAR_MIN } from './query';
+import { MAX_CONDITION_ROWS } from './conditionRows';
 
 export const QUERY_MAX = 200;
-export const MAX_CONDITIONS = 4;
+/** Measured-space conditions one search may carry: as many as the form has rows. */
+export const MAX_CONDITIONS = MAX_CONDITION_ROWS;
 
 export type SearchFilters = {
 	q: string;

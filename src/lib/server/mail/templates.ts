@@ -1,4 +1,5 @@
 // Every e-mail Kickpanel sends, as plain text and as simple HTML saying the same thing.
+import { formatWhen } from '../../domain/shopTime';
 
 export type MailBody = { subject: string; text: string; html: string };
 
@@ -13,9 +14,8 @@ function escapeHtml(s: string): string {
 	return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
 }
 
-function utc(d: Date): string {
-	return d.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
-}
+/** Times in a mail read in the shop's zone, with its short name. */
+const at = (d: Date, zone?: string): string => formatWhen(d, zone);
 
 function page(title: string, inner: string, footer: string): string {
 	return `<!doctype html><html><head><meta charset="utf-8"><title>${escapeHtml(title)}</title></head>
@@ -32,7 +32,7 @@ function button(href: string, label: string): string {
 <p style="font-size:13px;color:#544e45">Or paste this address into your browser:<br><span style="word-break:break-all">${escapeHtml(href)}</span></p>`;
 }
 
-export function inviteMail(input: { shopName: string; inviterName: string; role: string; link: string; expiresAt: Date }): MailBody {
+export function inviteMail(input: { shopName: string; inviterName: string; role: string; link: string; expiresAt: Date; timeZone?: string }): MailBody {
 	const can = ROLE_WORDS[input.role] ?? 'use the shop wiki';
 	const subject = `${input.inviterName} set up a Kickpanel account for you at ${input.shopName}`;
 	const text = [
@@ -44,7 +44,7 @@ export function inviteMail(input: { shopName: string; inviterName: string; role:
 		`Choose your name and a password here:`,
 		input.link,
 		``,
-		`The link works once and stops working at ${utc(input.expiresAt)}.`,
+		`The link works once and stops working at ${at(input.expiresAt, input.timeZone)}.`,
 		`If you were not expecting this, ignore it: no account exists until the link is used.`
 	].join('\n');
 	const html = page(
@@ -53,13 +53,13 @@ export function inviteMail(input: { shopName: string; inviterName: string; role:
 <p>${escapeHtml(input.inviterName)} has invited you to ${escapeHtml(input.shopName)}'s Kickpanel, the shop's vehicle fitment wiki.
 Your role will be <strong>${escapeHtml(input.role)}</strong>: you can ${escapeHtml(can)}.</p>
 ${button(input.link, 'Set up my account')}
-<p>The link works once and stops working at ${escapeHtml(utc(input.expiresAt))}.</p>`,
+<p>The link works once and stops working at ${escapeHtml(at(input.expiresAt, input.timeZone))}.</p>`,
 		'If you were not expecting this, ignore it: no account exists until the link is used.'
 	);
 	return { subject, text, html };
 }
 
-export function resetMail(input: { shopName: string; name: string; link: string; expiresAt: Date }): MailBody {
+export function resetMail(input: { shopName: string; name: string; link: string; expiresAt: Date; timeZone?: string }): MailBody {
 	const subject = `Reset your Kickpanel password`;
 	const text = [
 		`Hello ${input.name},`,
@@ -68,7 +68,7 @@ export function resetMail(input: { shopName: string; name: string; link: string;
 		`Choose a new password here:`,
 		input.link,
 		``,
-		`The link works once and stops working at ${utc(input.expiresAt)}. Setting a new password signs you out everywhere.`,
+		`The link works once and stops working at ${at(input.expiresAt, input.timeZone)}. Setting a new password signs you out everywhere.`,
 		`If you did not ask for this, ignore this message: your password stays as it is.`
 	].join('\n');
 	const html = page(
@@ -76,7 +76,7 @@ export function resetMail(input: { shopName: string; name: string; link: string;
 		`<p>Hello ${escapeHtml(input.name)},</p>
 <p>Someone asked to reset the password of your account at ${escapeHtml(input.shopName)}'s Kickpanel.</p>
 ${button(input.link, 'Choose a new password')}
-<p>The link works once and stops working at ${escapeHtml(utc(input.expiresAt))}. Setting a new password signs you out everywhere.</p>`,
+<p>The link works once and stops working at ${escapeHtml(at(input.expiresAt, input.timeZone))}. Setting a new password signs you out everywhere.</p>`,
 		'If you did not ask for this, ignore this message: your password stays as it is.'
 	);
 	return { subject, text, html };
@@ -91,6 +91,8 @@ export type ChangeLine = {
 	summary: string | null;
 	when: Date;
 	isNewPage: boolean;
+	/** The shop's zone the time is shown in. */
+	timeZone?: string;
 };
 
 const didWhat = (c: ChangeLine) => (c.isNewPage ? 'started the page for' : 'updated');
@@ -98,7 +100,7 @@ const noteText = (c: ChangeLine) => (c.summary === null ? '(change note hidden b
 
 function changeText(c: ChangeLine): string {
 	return [
-		`${c.editorName} ${didWhat(c)} ${c.vehicleTitle} — ${utc(c.when)}`,
+		`${c.editorName} ${didWhat(c)} ${c.vehicleTitle} — ${at(c.when, c.timeZone)}`,
 		`  Change note: ${noteText(c)}`,
 		`  ${c.compareLink ? `Show what changed: ${c.compareLink}` : `Open the page: ${c.pageLink}`}`
 	].join('\n');
@@ -109,7 +111,7 @@ function changeHtml(c: ChangeLine): string {
 	const link = c.compareLink
 		? `<a href="${escapeHtml(c.compareLink)}" style="color:#964d20">Show what changed</a>`
 		: `<a href="${escapeHtml(c.pageLink)}" style="color:#964d20">Open the page</a>`;
-	return `<li style="margin-bottom:12px">${escapeHtml(c.editorName)} ${didWhat(c)} <a href="${escapeHtml(c.pageLink)}" style="color:#1c1a17;font-weight:600">${escapeHtml(c.vehicleTitle)}</a> — ${escapeHtml(utc(c.when))}<br>Change note: ${note}<br>${link}</li>`;
+	return `<li style="margin-bottom:12px">${escapeHtml(c.editorName)} ${didWhat(c)} <a href="${escapeHtml(c.pageLink)}" style="color:#1c1a17;font-weight:600">${escapeHtml(c.vehicleTitle)}</a> — ${escapeHtml(at(c.when, c.timeZone))}<br>Change note: ${note}<br>${link}</li>`;
 }
 
 function noticeFooterText(accountLink: string, followingLink: string): string {
@@ -155,6 +157,33 @@ export function digestMail(input: { recipientName: string; changes: ChangeLine[]
 		subject,
 		`<p>Hello ${escapeHtml(input.recipientName)},</p><p>Since your last round-up:</p><ul style="padding-left:18px">${input.changes.map(changeHtml).join('\n')}</ul>`,
 		noticeFooterHtml(input.accountLink, input.followingLink)
+	);
+	return { subject, text, html };
+}
+
+/** A writer hears what a moderator did with the change they suggested for a locked page. */
+export function suggestionAnsweredMail(input: {
+	recipientName: string;
+	moderatorName: string;
+	vehicleTitle: string;
+	outcome: 'applied' | 'declined';
+	note: string;
+	link: string;
+	when: Date;
+	timeZone?: string;
+}): MailBody {
+	const did = input.outcome === 'applied' ? 'applied' : 'declined';
+	const subject = `${input.moderatorName} ${did} your suggested change to ${input.vehicleTitle}`;
+	const result = input.outcome === 'applied' ? 'It is now part of the page.' : 'The page stays as it was.';
+	const note = input.note ? `Note from ${input.moderatorName}: ${input.note}` : `${input.moderatorName} left no note.`;
+	const text = [`Hello ${input.recipientName},`, ``, `${subject} — ${at(input.when, input.timeZone)}.`, result, note, ``, `Your suggestion: ${input.link}`].join('\n');
+	const html = page(
+		subject,
+		`<p>Hello ${escapeHtml(input.recipientName)},</p>
+<p>${escapeHtml(subject)} — ${escapeHtml(at(input.when, input.timeZone))}. ${escapeHtml(result)}</p>
+<p>${escapeHtml(note)}</p>
+${button(input.link, 'Open your suggestion')}`,
+		'You get this because you suggested a change to a page locked for moderators.'
 	);
 	return { subject, text, html };
 }

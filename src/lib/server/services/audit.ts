@@ -19,7 +19,9 @@ export type AuditAction =
 	| 'setting.change'
 	| 'part.create'
 	| 'part.update'
-	| 'part.delete';
+	| 'part.delete'
+	| 'suggestion.apply'
+	| 'suggestion.decline';
 
 export async function recordAudit(
 	entry: { actorId: number | null; action: AuditAction; targetType: string; targetId: string | number; details?: object },

@@ -6,6 +6,7 @@ import { ROLES, roleAtLeast, type Role } from '../../domain/roles';
 import { blockNotice, type EditBlock } from '../../domain/block';
 import type { SessionUser } from '../../domain/sessionUser';
 import { recordAudit } from './audit';
+import { shopSettings } from './settings';
 import { ServiceError, fieldMessages } from '../errors';
 import { announceAccountChange } from '../events';
 
@@ -38,7 +39,7 @@ export async function activeBlockFor(userId: number, now = new Date()): Promise<
 /** Saves check this themselves too, so a blocked author is refused even by a route that forgot the guard. */
 export async function refuseBlockedAuthor(userId: number, now = new Date()): Promise<void> {
 	const block = await activeBlockFor(userId, now);
-	if (block) throw new ServiceError(blockNotice(block), 403);
+	if (block) throw new ServiceError(blockNotice(block, (await shopSettings()).timeZone), 403);
 }
 
 const RANK: Record<Role, number> = Object.fromEntries(ROLES.map((r, i) => [r, i])) as Record<Role, number>;

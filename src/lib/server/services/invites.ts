@@ -52,7 +52,7 @@ export async function inviteByEmail(input: unknown, admin: SessionUser, now = ne
 		);
 		await recordAudit({ actorId: admin.id, action: 'user.invite', targetType: 'invite', targetId: created.id, details: { email, role, replaced } }, transaction);
 		// The link and its mail land together: a mail server that is down delays the mail, it never loses it.
-		return queueMail({ to: email, ...inviteMail({ shopName: shop.shopName, inviterName: admin.name, role, link: `${config.origin}/invite/${token}`, expiresAt }) }, transaction);
+		return queueMail({ to: email, ...inviteMail({ shopName: shop.shopName, inviterName: admin.name, role, link: `${config.origin}/invite/${token}`, expiresAt, timeZone: shop.timeZone }) }, transaction);
 	});
 	const { sent } = await deliverQueuedMail({ ids: [mailId] });
 	return { email, role, expiresAt, sent: sent.includes(mailId) };

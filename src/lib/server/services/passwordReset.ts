@@ -57,7 +57,7 @@ async function mailResetLink(email: string, now: Date): Promise<void> {
 	const mailId = await db().transaction(async (transaction) => {
 		await revokeOpenTokens('reset', { userId: user.id }, now, transaction);
 		await AccountToken.create({ kind: 'reset', userId: user.id, email: null, role: null, invitedBy: null, tokenHash, expiresAt, createdAt: now }, { transaction });
-		return queueMail({ to: user.email, ...resetMail({ shopName: shop.shopName, name: user.name, link: `${config.origin}/reset/${token}`, expiresAt }) }, transaction);
+		return queueMail({ to: user.email, ...resetMail({ shopName: shop.shopName, name: user.name, link: `${config.origin}/reset/${token}`, expiresAt, timeZone: shop.timeZone }) }, transaction);
 	});
 	await deliverQueuedMail({ ids: [mailId] });
 }

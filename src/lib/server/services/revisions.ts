@@ -19,6 +19,8 @@ import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 import { mayReadRevision, readsHidden, type Reader, type ReadingRules } from '../../domain/visibility';
 import { namingColumns, refuseTakenName, settlePageName } from './pageName';
 import { readingRules, signedOffSql } from './readingRules';
+import { shopSettings } from './settings';
+import { formatWhen } from '../../domain/shopTime';
 
 export type StoredRevision = {
 	id: number;
@@ -224,7 +226,13 @@ export type SaveResult = { revisionId: number; merged: boolean; slug: string };
  * Saves an edit made on top of `baseRevisionId`. When someone else saved in between, the two edits are merged
  * field by field; a field both changed differently is refused as a conflict, with everything the editor typed kept.
  */
-export async function saveRevision(vehicleId: number, input: SaveInput, author: SessionUser): Promise<SaveResult> {
+export async function saveRevision(
+	vehicleId: number,
+	input: SaveInput,
+	author: SessionUser,
+	/** More writes that belong to this save, in its transaction (a suggestion marked applied). */
+	alongside?: (saved: SaveResult, transaction: Transaction) => Promise<void>
+): Promise<SaveResult> {
 	await refuseBlockedAuthor(author.id);
 	const yours = validateContent(input.content);
 	const result = await db().transaction(async (transaction) => {
@@ -245,13 +253,17 @@ export async function saveRevision(vehicleId: number, input: SaveInput, author: 
 			// A base the author may not read is refused like one that does not exist: a merge would show its values.
 			if (!base || base.vehicleId !== vehicle.id || !mayReadRevision(base, author, await readingRules())) throw new ServiceError('The revision you started from is not part of this page.', 400);
 			const outcome = mergeContent(base.content, latest.content, yours);
-			if (outcome.conflicts.length) throw new EditConflictError(outcome.conflicts, latest.id, outcome.merged);
+			if (outcome.conflicts.length) {
+				throw new EditConflictError(outcome.conflicts, latest.id, outcome.merged, { by: latest.authorName, at: latest.createdAt.toISOString() });
+			}
 			next = validateContent(outcome.merged);
 			merged = true;
 		}
 		if (canonicalJson(next) === canonicalJson(latest.content)) throw new NoChangeError();
 		const row = await insertRevision(vehicle, latest, next, { authorId: author.id, authorRole: author.role, summary: input.summary.trim() }, transaction);
-		return { revisionId: Number(row.id), merged, slug: vehicle.slug };
+		const saved = { revisionId: Number(row.id), merged, slug: vehicle.slug };
+		if (alongside) await alongside(saved, transaction);
+		return saved;
 	});
 	await announceRevision({ kind: 'save', vehicleId, revisionId: result.revisionId, authorId: author.id });
 	return result;
@@ -268,8 +280,7 @@ export async function restoreRevision(vehicleId: number, revisionId: number, act
 		if (target.hidden) throw new ServiceError('That revision is hidden; unhide it before restoring it.', 409);
 		const latest = await revisionById(Number(vehicle.latestRevisionId), transaction);
 		if (latest && latest.sha256 === target.sha256) throw new ServiceError('The page already matches that revision.', 400);
-		const when = target.createdAt.toISOString().slice(0, 16).replace('T', ' ');
-		const summary = `Restored revision ${target.id} by ${target.authorName} (${when} UTC)`;
+		const summary = `Restored revision ${target.id} by ${target.authorName} (${formatWhen(target.createdAt, (await shopSettings()).timeZone)})`;
 		const row = await insertRevision(vehicle, latest, target.content, { authorId: actor.id, authorRole: actor.role, summary, restoresRevisionId: target.id }, transaction);
 		await recordAudit(
 			{ actorId: actor.id, action: 'revision.restore', targetType: 'vehicle', targetId: vehicle.id, details: { restored: target.id, newRevision: Number(row.id) } },
@@ -440,16 +451,19 @@ export async function compareRevisions(
 	if (!mayReadRevision(from, viewer, rules) || !mayReadRevision(to, viewer, rules)) {
 		throw new ServiceError('Both revisions must belong to this page.', 404);
 	}
-	const fromPhotos = new Set(from.content.photos.map((p) => p.id));
-	const toPhotos = new Set(to.content.photos.map((p) => p.id));
+	return { from, to, ...contentChanges(from.content, to.content, units) };
+}
+
+/** Fields, notes and photos that differ between two contents of a page, as the compare screen lists them. */
+export function contentChanges(before: VehicleContent, after: VehicleContent, units: 'metric' | 'imperial') {
+	const beforePhotos = new Set(before.photos.map((p) => p.id));
+	const afterPhotos = new Set(after.photos.map((p) => p.id));
 	return {
-		from,
-		to,
-		changes: fieldChanges(from.content, to.content, { units }),
-		notes: notesChanges(from.content, to.content),
+		changes: fieldChanges(before, after, { units }),
+		notes: notesChanges(before, after),
 		photos: {
-			added: to.content.photos.filter((p) => !fromPhotos.has(p.id)),
-			removed: from.content.photos.filter((p) => !toPhotos.has(p.id))
+			added: after.photos.filter((p) => !beforePhotos.has(p.id)),
+			removed: before.photos.filter((p) => !afterPhotos.has(p.id))
 		}
 	};
 }

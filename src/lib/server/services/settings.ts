@@ -1,9 +1,22 @@
 import { Setting } from '../db/models';
+import { DEFAULT_TIME_ZONE, timeZoneSchema, usableZone } from '../../domain/shopTime';
+import { roleAtLeast } from '../../domain/roles';
+import type { SessionUser } from '../../domain/sessionUser';
+import { db } from '../db';
+import { ServiceError } from '../errors';
+import { recordAudit } from './audit';
 
 /** `reviewBeforeShowSince`: changes saved before review was switched on stay visible without a review. */
-export type ShopSettings = { shopName: string; sampleData: boolean; reviewBeforeShow: boolean; reviewBeforeShowSince: string | null };
+export type ShopSettings = {
+	shopName: string;
+	sampleData: boolean;
+	reviewBeforeShow: boolean;
+	reviewBeforeShowSince: string | null;
+	/** IANA zone every date and time is shown in. */
+	timeZone: string;
+};
 
-const DEFAULTS: ShopSettings = { shopName: 'Kickpanel', sampleData: false, reviewBeforeShow: false, reviewBeforeShowSince: null };
+const DEFAULTS: ShopSettings = { shopName: 'Kickpanel', sampleData: false, reviewBeforeShow: false, reviewBeforeShowSince: null, timeZone: DEFAULT_TIME_ZONE };
 let cached: { at: number; value: ShopSettings } | null = null;
 const TTL_MS = 5_000;
 
@@ -16,6 +29,7 @@ export async function shopSettings(): Promise<ShopSettings> {
 		if (row.name === 'sampleData') value.sampleData = row.value === 'true';
 		if (row.name === 'reviewBeforeShow') value.reviewBeforeShow = row.value === 'true';
 		if (row.name === 'reviewBeforeShowSince') value.reviewBeforeShowSince = row.value || null;
+		if (row.name === 'timeZone') value.timeZone = usableZone(row.value);
 	}
 	cached = { at: Date.now(), value };
 	return value;
@@ -29,4 +43,18 @@ export async function saveSetting(name: keyof ShopSettings, value: string | bool
 /** After settings were written in a caller's own transaction. */
 export function forgetShopSettings(): void {
 	cached = null;
+}
+
+/** The shop's time zone: an IANA name this server knows (a ZodError names the problem), written with its audit entry. */
+export async function setShopTimeZone(zone: unknown, actor: SessionUser): Promise<string> {
+	if (!roleAtLeast(actor.role, 'admin')) throw new ServiceError('Changing shop settings needs the admin role.', 403);
+	const next = timeZoneSchema.parse(zone);
+	const current = await shopSettings();
+	if (current.timeZone === next) return next;
+	await db().transaction(async (transaction) => {
+		await Setting.upsert({ name: 'timeZone', value: next }, { transaction });
+		await recordAudit({ actorId: actor.id, action: 'setting.change', targetType: 'setting', targetId: 'timeZone', details: { from: current.timeZone, to: next } }, transaction);
+	});
+	forgetShopSettings();
+	return next;
 }

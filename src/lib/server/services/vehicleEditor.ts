@@ -12,18 +12,40 @@ import { EditConflictError, NoChangeError, ServiceError } from '../errors';
 import { vehicleBySlug, type VehicleSummary } from './vehicles';
 import { canEditVehicle, revisionById, saveRevision } from './revisions';
 import { mayRead } from './visibility';
+import { suggestChange } from './suggestions';
 
 const PROTECTED = 'This page is locked for moderators: only moderators can edit it.';
 const PROTECTED_MEANWHILE =
-	'A moderator locked this page while you were editing, so only moderators can save it now. Nothing was saved; everything you typed is still below: copy it, or ask a moderator to make the change.';
+	'A moderator locked this page while you were editing, so only moderators can save it now. Nothing was saved; everything you typed is still below: press “Suggest this change” to keep it for a moderator to apply.';
 
-/** The page this person may edit at this address; an address renamed while they were editing still finds it. */
-export async function editableVehicle(slug: string, user: SessionUser, saving = false): Promise<VehicleSummary> {
+/** A save refused because the page was locked for moderators after the editor opened. */
+export class LockedMeanwhileError extends ServiceError {
+	constructor() {
+		super(PROTECTED_MEANWHILE, 403);
+	}
+}
+
+async function pageAt(slug: string): Promise<VehicleSummary> {
 	let found = await vehicleBySlug(slug);
 	if (found && 'redirectTo' in found) found = await vehicleBySlug(found.redirectTo);
 	if (!found || !('vehicle' in found)) throw new ServiceError('No vehicle page at this address.', 404);
-	if (!canEditVehicle(user, found.vehicle)) throw new ServiceError(saving ? PROTECTED_MEANWHILE : PROTECTED, 403);
 	return found.vehicle;
+}
+
+/** The page this person may edit at this address; an address renamed while they were editing still finds it. */
+export async function editableVehicle(slug: string, user: SessionUser, saving = false): Promise<VehicleSummary> {
+	const vehicle = await pageAt(slug);
+	if (!canEditVehicle(user, vehicle)) throw saving ? new LockedMeanwhileError() : new ServiceError(PROTECTED, 403);
+	return vehicle;
+}
+
+/**
+ * The page the editor opens on, and what its button does: save a revision, or, on a page locked for
+ * moderators, suggest the change for a moderator to apply.
+ */
+export async function editorVehicle(slug: string, user: SessionUser): Promise<{ vehicle: VehicleSummary; mode: 'save' | 'suggest' }> {
+	const vehicle = await pageAt(slug);
+	return { vehicle, mode: canEditVehicle(user, vehicle) ? 'save' : 'suggest' };
 }
 
 /** What the editor opens with: the current revision as form text, in the person's length unit. */
@@ -84,12 +106,15 @@ function valuesOf(post: ReturnType<typeof readPost>, draft: ContentDraft, over: 
  */
 export function editorValuesAfter(posted: FormData, refusal: unknown): EditorValues {
 	const post = readPost(posted);
-	if (!(refusal instanceof EditConflictError)) return valuesOf(post, draftFromEntries(post.entries));
+	if (!(refusal instanceof EditConflictError)) {
+		return valuesOf(post, draftFromEntries(post.entries), { offerSuggestion: refusal instanceof LockedMeanwhileError });
+	}
 	const merged = parseContent(refusal.merged);
 	return valuesOf(post, merged.success ? formFromContent(merged.data, post.unit) : draftFromEntries(post.entries), {
 		baseRevisionId: refusal.latestRevisionId,
 		conflicts: conflictViews(refusal.conflicts, systemOf(post.unit)),
-		conflictsJson: JSON.stringify(refusal.conflicts)
+		conflictsJson: JSON.stringify(refusal.conflicts),
+		meanwhile: refusal.meanwhile
 	});
 }
 
@@ -103,19 +128,43 @@ export type EditorOutcome =
  * Refusals are ServiceErrors with field errors under the form's input names.
  */
 export async function submitEditor(vehicle: VehicleSummary, posted: FormData, author: SessionUser): Promise<EditorOutcome> {
+	return pressed(posted, 'Save revision', async (post) => {
+		const { built, content } = await contentOfPost(vehicle, post, posted, author);
+		return { saved: await underInputs(built, () => saveRevision(vehicle.id, { baseRevisionId: post.baseRevisionId, content, summary: post.summary }, author)) };
+	});
+}
+
+export type SuggestOutcome = { suggested: { id: number; slug: string } } | { suggested: null; values: EditorValues; errors: Record<string, string>; message: string };
+
+/** "Suggest this change" on a page locked for moderators: the typed content is kept for a moderator, not saved. */
+export async function submitSuggestion(vehicle: VehicleSummary, posted: FormData, author: SessionUser): Promise<SuggestOutcome> {
+	return pressed(posted, 'Suggest this change', async (post) => {
+		const { built, content } = await contentOfPost(vehicle, post, posted, author);
+		const kept = await underInputs(built, () => suggestChange(vehicle, { baseRevisionId: post.baseRevisionId, content, summary: post.summary }, author));
+		return { suggested: { id: kept.id, slug: vehicle.slug } };
+	});
+}
+
+type Post = ReturnType<typeof readPost>;
+
+/** Adding a row or switching units (without scripts) changes only the draft; the main button does `then`. */
+async function pressed<T>(posted: FormData, button: string, then: (post: Post) => Promise<T>): Promise<T | { saved: null; suggested: null; values: EditorValues; errors: Record<string, string>; message: string }> {
 	const post = readPost(posted);
 	const intent = readIntent(posted.get('intent'));
-	if (intent.kind !== 'save') {
-		const draft = draftFromEntries(post.entries);
-		const unit = applyIntent(draft, intent, post.unit);
-		return {
-			saved: null,
-			values: valuesOf(post, draft, { unit }),
-			errors: {},
-			message: intent.kind === 'stay' ? 'Not saved yet: press Save revision when you are done.' : ''
-		};
-	}
+	if (intent.kind === 'save') return then(post);
+	const draft = draftFromEntries(post.entries);
+	const unit = applyIntent(draft, intent, post.unit);
+	return {
+		saved: null,
+		suggested: null,
+		values: valuesOf(post, draft, { unit }),
+		errors: {},
+		message: intent.kind === 'stay' ? `Not saved yet: press ${button} when you are done.` : ''
+	};
+}
 
+/** The posted form as page content on top of its base revision, with "theirs" taken where the editor chose it. */
+async function contentOfPost(vehicle: VehicleSummary, post: Post, posted: FormData, author: SessionUser) {
 	const { baseRevisionId } = post;
 	const base = Number.isInteger(baseRevisionId) && baseRevisionId > 0 ? await revisionById(baseRevisionId) : null;
 	if (!base || base.vehicleId !== vehicle.id || !(await mayRead(base, author))) {
@@ -130,9 +179,13 @@ export async function submitEditor(vehicle: VehicleSummary, posted: FormData, au
 	const content = takeTheirs.length
 		? applyResolution(built.content, takeTheirs, Object.fromEntries(takeTheirs.map((c) => [c.path, 'theirs' as const])))
 		: built.content;
+	return { built, content };
+}
 
+/** A service's refusal with its field errors moved under the form's input names. */
+async function underInputs<T>(built: { formPath(path: string): string }, write: () => Promise<T>): Promise<T> {
 	try {
-		return { saved: await saveRevision(vehicle.id, { baseRevisionId, content, summary: post.summary }, author) };
+		return await write();
 	} catch (err) {
 		if (err instanceof EditConflictError) throw err;
 		if (err instanceof NoChangeError) throw new ServiceError('No change: the page already says all of this, so nothing was saved.', 400);

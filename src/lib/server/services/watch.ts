@@ -12,6 +12,7 @@ import { vehicleById, type VehicleSummary } from './vehicles';
 import { mayRead, pageRevision } from './visibility';
 import { mayReadRevision, readsUnsignedOff } from '../../domain/visibility';
 import { readingRules } from './readingRules';
+import { shopSettings } from './settings';
 import { ServiceError } from '../errors';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 
@@ -145,7 +146,7 @@ function links(vehicle: VehicleSummary, revisionId: number, parentId: number | n
 
 /** A notice tells of a change only a person who may read it now; others' notices are dropped when due. */
 async function changeLine(notice: PendingNotice, recipient: Pick<User, 'role'>): Promise<ChangeLine | null> {
-	const [revision, vehicle] = await Promise.all([revisionById(Number(notice.revisionId)), vehicleById(notice.vehicleId)]);
+	const [revision, vehicle, shop] = await Promise.all([revisionById(Number(notice.revisionId)), vehicleById(notice.vehicleId), shopSettings()]);
 	if (!revision || !vehicle || !(await mayRead(revision, recipient))) return null;
 	return {
 		vehicleTitle: vehicle.title,
@@ -153,7 +154,8 @@ async function changeLine(notice: PendingNotice, recipient: Pick<User, 'role'>):
 		editorName: revision.authorName,
 		summary: revision.hidden ? null : revision.summary,
 		when: revision.createdAt,
-		isNewPage: revision.parentId === null
+		isNewPage: revision.parentId === null,
+		timeZone: shop.timeZone
 	};
 }
 

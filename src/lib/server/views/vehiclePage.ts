@@ -8,6 +8,7 @@ import { canEditVehicle } from '../services/revisions';
 import { vehicleSlug } from '../../domain/slug';
 import { deliverBody } from '../render/vehicleBody';
 import { partsFor, readingPage } from '../render/readingPage';
+import { listSuggestions } from '../services/suggestions';
 
 type VehiclePageEvent = Pick<RequestEvent<{ slug: string }>, 'locals' | 'params' | 'url' | 'isDataRequest'>;
 
@@ -25,7 +26,11 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 		error(404, 'No vehicle page at this address.');
 	}
 	const { vehicle } = page;
-	const [{ revision, newerAwaitingReview }, watching] = await Promise.all([readableHead(page, user), isWatching(user.id, vehicle.id)]);
+	const [{ revision, newerAwaitingReview }, watching, suggestions] = await Promise.all([
+		readableHead(page, user),
+		isWatching(user.id, vehicle.id),
+		listSuggestions(user, { vehicleId: vehicle.id, status: 'open' })
+	]);
 	const parts = revision && (revision.id === page.latest?.id ? page.parts : await partsFor(revision, locals.units));
 	if (!revision || !parts) {
 		error(404, newerAwaitingReview ? 'This new page is awaiting sign-off by a moderator.' : 'This vehicle page has no saved revision yet.');
@@ -46,6 +51,7 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 		newerAwaitingReview,
 		// A rename waiting for sign-off: lists, search and the address keep the signed-off name until then.
 		listedAs: vehicleSlug(parts.identity) === vehicle.slug ? null : vehicle.title,
+		suggestions,
 		units: locals.units,
 		flash: Number.isInteger(saved) && saved > 0 ? { revisionId: saved, merged: url.searchParams.get('merged') === '1' } : null
 	};

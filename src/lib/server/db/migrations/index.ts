@@ -8,7 +8,8 @@ import * as revisionOrigins from './2026-12-05T02-00-00_revision_origins';
 import * as endedSessions from './2026-12-05T03-00-00_ended_sessions';
 import * as renderedPages from './2026-12-05T06-00-00_rendered_pages';
 import * as loadFigures from './2026-12-05T06-00-00_load_figures';
+import * as suggestions from './2026-12-05T06-00-00_suggestions';
 import * as mailQueue from './2026-12-05T06-10-00_mail_queue';
 
 /** Every migration, oldest first. Add new ones at the end (see DEVELOPERS.md). */
-export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos, revisionOrigins, endedSessions, renderedPages, loadFigures, mailQueue];
+export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos, revisionOrigins, endedSessions, renderedPages, loadFigures, suggestions, mailQueue];

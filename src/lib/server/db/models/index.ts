@@ -15,10 +15,12 @@ import { initConfirmation, Confirmation } from './Confirmation';
 import { initPhoto, Photo } from './Photo';
 import { initRenderedNotes, RenderedNotesRow } from './RenderedNotes';
 import { initEndedSession, EndedSession } from './EndedSession';
+import { initSuggestion, Suggestion } from './Suggestion';
 
 export { User, Make, VehicleModel, Vehicle, VehicleSlug, Revision, AuditLog, Setting, Part, Confirmation };
 export { AccountToken, Watch, NotificationPreference, PendingNotice, Block };
-export { Photo, RenderedNotesRow, EndedSession };
+export { Photo, RenderedNotesRow, EndedSession, Suggestion };
+export type { SuggestionStatus } from './Suggestion';
 export type { Role, UserStatus } from './User';
 export { ROLES } from './User';
 export type { Protection } from './Vehicle';
@@ -43,6 +45,7 @@ export function initModels(sequelize: Sequelize) {
 	initPhoto(sequelize);
 	initRenderedNotes(sequelize);
 	initEndedSession(sequelize);
+	initSuggestion(sequelize);
 
 	Make.hasMany(VehicleModel, { foreignKey: 'makeId', as: 'models' });
 	VehicleModel.belongsTo(Make, { foreignKey: 'makeId', as: 'make' });
@@ -63,5 +66,8 @@ export function initModels(sequelize: Sequelize) {
 	Confirmation.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 	Confirmation.belongsTo(Vehicle, { foreignKey: 'vehicleId', as: 'vehicle' });
 	Photo.belongsTo(User, { foreignKey: 'uploaderId', as: 'uploader' });
+	Suggestion.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+	Suggestion.belongsTo(User, { foreignKey: 'answeredBy', as: 'answerer' });
+	Suggestion.belongsTo(Vehicle, { foreignKey: 'vehicleId', as: 'vehicle' });
 	Revision.hasOne(RenderedNotesRow, { sourceKey: 'sha256', foreignKey: 'sha256', as: 'renderedNotes', constraints: false });
 }

@@ -1,3 +1,4 @@
+import { redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
@@ -5,7 +6,11 @@ import { formAction } from '$lib/server/forms';
 import { requireVehicle } from '$lib/server/services/vehicles';
 import { restoreRevision, setProtection, setRevisionHidden } from '$lib/server/services/revisions';
 
-const revisionRef = z.object({ revisionId: z.coerce.number().int().positive('Pick a revision.') });
+// Restore and hide change what everyone reads: the post carries the answer to "are you sure?".
+const revisionRef = z.object({
+	revisionId: z.coerce.number().int().positive('Pick a revision.'),
+	confirmed: z.literal('yes', { error: 'Confirm first: open the revision’s Restore or Hide again and answer the question.' })
+});
 const hideForm = revisionRef.extend({
 	hidden: z.enum(['true', 'false']),
 	reason: z.string().trim().max(300, 'Keep the reason under 300 characters.').default('')
@@ -19,7 +24,8 @@ export const actions: Actions = {
 			const { revisionId } = revisionRef.parse(Object.fromEntries(posted));
 			const vehicle = await requireVehicle(params.slug);
 			const saved = await restoreRevision(vehicle.id, revisionId, user);
-			return { message: `Restored revision ${revisionId} as new revision ${saved.revisionId}.` };
+			// To the history, from the compare screen and the confirmation page too, which says what happened.
+			redirect(303, `/vehicles/${saved.slug}/history?restored=${saved.revisionId}&of=${revisionId}`);
 		});
 	},
 	hide: async ({ locals, request }) => {

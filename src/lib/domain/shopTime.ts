@@ -1,0 +1,76 @@
+import { z } from 'zod';
+
+// Every date and time a person reads is in the shop's own time zone (a shop setting), with the zone's short
+// name beside it, so "14:05 CEST" on a screen, a mail and a printed sheet mean the same moment.
+
+export const DEFAULT_TIME_ZONE = 'UTC';
+
+/** IANA zones this runtime knows; "UTC" is accepted by name even where the list leaves it out. */
+export function knownTimeZones(): string[] {
+	const zones = Intl.supportedValuesOf('timeZone');
+	return zones.includes('UTC') ? zones : ['UTC', ...zones];
+}
+
+export const timeZoneSchema = z
+	.string({ error: 'Pick the shop’s time zone from the list.' })
+	.trim()
+	.min(1, 'Pick the shop’s time zone from the list.')
+	.refine((zone) => knownTimeZones().includes(zone), { error: 'That is not a time zone this server knows: pick one from the list, for example Europe/Berlin or America/Chicago.' });
+
+/** A zone to format with: an unknown or missing one reads as UTC rather than failing a page. */
+export function usableZone(zone: string | null | undefined): string {
+	if (!zone) return DEFAULT_TIME_ZONE;
+	try {
+		new Intl.DateTimeFormat('en', { timeZone: zone });
+		return zone;
+	} catch {
+		return DEFAULT_TIME_ZONE;
+	}
+}
+
+// English locales whose short names are letters ("CEST", "EDT", "AEST", "IST", "NZST"); else "GMT+5:45".
+const NAME_LOCALES = ['en-US', 'en-GB', 'en-AU', 'en-NZ', 'en-IN', 'en-CA'];
+const formatters = new Map<string, Intl.DateTimeFormat>();
+function formatter(locale: string, zone: string, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+	const key = `${locale}|${zone}|${JSON.stringify(options)}`;
+	let f = formatters.get(key);
+	if (!f) formatters.set(key, (f = new Intl.DateTimeFormat(locale, { ...options, timeZone: zone })));
+	return f;
+}
+
+/** The zone's short name at that moment: summer and winter names differ. */
+export function zoneShortName(at: Date, zone: string): string {
+	let fallback = '';
+	for (const locale of NAME_LOCALES) {
+		const name = formatter(locale, zone, { timeZoneName: 'short' }).formatToParts(at).find((p) => p.type === 'timeZoneName')?.value ?? '';
+		if (/^[A-Z]{2,5}$/.test(name)) return name;
+		fallback ||= name;
+	}
+	return fallback || zone;
+}
+
+const asDate = (at: string | Date) => (typeof at === 'string' ? new Date(at) : at);
+
+function parts(at: Date, zone: string): Record<string, string> {
+	const out: Record<string, string> = {};
+	for (const p of formatter('en-CA', zone, { year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).formatToParts(at)) {
+		out[p.type] = p.value;
+	}
+	return out;
+}
+
+/** "2026-07-01 14:00 CEST": the date and time in the shop's zone, with its short name. */
+export function formatWhen(at: string | Date, zone: string = DEFAULT_TIME_ZONE): string {
+	const d = asDate(at);
+	if (Number.isNaN(d.getTime())) return '';
+	const z = usableZone(zone);
+	const p = parts(d, z);
+	return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute} ${zoneShortName(d, z)}`;
+}
+
+/** "1 Jul 2026": the day in the shop's zone, for lines that need no time. */
+export function formatDay(at: string | Date, zone: string = DEFAULT_TIME_ZONE): string {
+	const d = asDate(at);
+	if (Number.isNaN(d.getTime())) return '';
+	return formatter('en-GB', usableZone(zone), { day: 'numeric', month: 'short', year: 'numeric' }).format(d);
+}
