@@ -1,0 +1,104 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { AxeBuilder } from '@axe-core/playwright';
+import type { APIRequestContext, Page } from 'playwright-core';
+import { BASE, browserSession, DESKTOP, PHONE, signIn } from './browser';
+import { roleAtLeast, type Role } from '../../src/lib/domain/roles';
+
+// Every main screen, at phone and desk width, for each role, checked by the axe-core engine with
+// all of its rules (best practices included): no violation of any impact is allowed.
+
+const { freshPage } = browserSession(DESKTOP);
+
+type Screen = { name: string; path: (slug: string, revisions: number[]) => string; role: Role };
+const SCREENS: Screen[] = [
+	{ name: 'home', path: () => '/', role: 'viewer' },
+	{ name: 'search', path: () => '/search?q=seat', role: 'viewer' },
+	{ name: 'vehicle page', path: (s) => `/vehicles/${s}`, role: 'viewer' },
+	{ name: 'job sheet', path: (s) => `/vehicles/${s}/job-sheet`, role: 'viewer' },
+	{ name: 'history', path: (s) => `/vehicles/${s}/history`, role: 'viewer' },
+	{ name: 'compare', path: (s, r) => `/vehicles/${s}/compare?from=${r[1]}&to=${r[0]}`, role: 'viewer' },
+	{ name: 'editor', path: (s) => `/vehicles/${s}/edit`, role: 'editor' },
+	{ name: 'fit check', path: (s) => `/fit?vehicle=${s}`, role: 'viewer' },
+	{ name: 'calculators', path: () => '/calc', role: 'viewer' },
+	{ name: 'power wire calculator', path: () => '/calc/power-wire', role: 'viewer' },
+	{ name: 'shop log', path: () => '/shop-log', role: 'viewer' },
+	{ name: 'following', path: () => '/following', role: 'viewer' },
+	{ name: 'pauses', path: () => '/admin/pauses', role: 'moderator' },
+	{ name: 'staff', path: () => '/admin/users', role: 'admin' },
+	{ name: 'shop settings', path: () => '/admin/settings', role: 'admin' },
+	{ name: 'audit', path: () => '/admin/audit', role: 'admin' },
+];
+const ROLES: Role[] = ['viewer', 'editor', 'moderator', 'admin'];
+const WIDTHS = { phone: PHONE, desk: DESKTOP };
+
+let slug = '';
+let revisions: number[] = [];
+
+/** A sample page with two readable revisions, giving it a second one (a photo) when it has only one. */
+async function pageWithHistory(request: APIRequestContext): Promise<void> {
+	const list = await (await request.get(`${BASE}/api/vehicles?pageSize=50`)).json();
+	for (const item of list.items as { slug: string }[]) {
+		const page = await (await request.get(`${BASE}/api/vehicles/${item.slug}`)).json();
+		if (page.protection !== 'none') continue;
+		const items = async () => ((await (await request.get(`${BASE}/api/vehicles/${item.slug}/revisions`)).json()).items as { id: number }[]).map((r) => r.id);
+		if ((await items()).length < 2) {
+			const photo = Buffer.from(
+				'iVBORw0KGgoAAAANSUhEUgAAABAAAAAQCAIAAACQkWg2AAAAGklEQVR4nGNgoBAwUqhv1IBRA0YNGDUAAgAAAP//AwBd+gAQ9AnX2QAAAABJRU5ErkJggg==',
+				'base64'
+			);
+			const res = await request.post(`${BASE}/api/vehicles/${item.slug}/photos`, {
+				headers: { origin: BASE },
+				multipart: { file: { name: 'grommet.png', mimeType: 'image/png', buffer: photo }, section: 'firewall', alt: 'Firewall grommet (sample photo)' }
+			});
+			expect(res.status()).toBe(201);
+		}
+		slug = item.slug;
+		revisions = await items();
+		return;
+	}
+	throw new Error('no unprotected sample page');
+}
+
+async function violations(page: Page): Promise<string[]> {
+	const result = await new AxeBuilder({ page }).analyze();
+	return result.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 4).join(' | ')}`);
+}
+
+beforeAll(async () => {
+	const page = await freshPage();
+	await signIn(page, 'editor');
+	await pageWithHistory(page.request);
+	await page.close();
+});
+
+describe('screens anyone can use', () => {
+	for (const [width, viewport] of Object.entries(WIDTHS)) {
+		it(`sign-in page at ${width} width has no violations`, async () => {
+			const page = await freshPage(viewport);
+			await page.goto(`${BASE}/signin`, { waitUntil: 'networkidle' });
+			expect(await violations(page)).toEqual([]);
+			await page.close();
+		});
+
+		for (const role of ROLES) {
+			it(
+				`every main screen for the ${role} at ${width} width has no violations`,
+				async () => {
+					const page = await freshPage(viewport);
+					await signIn(page, role);
+					const found: Record<string, string[]> = {};
+					for (const screen of SCREENS.filter((s) => roleAtLeast(role, s.role))) {
+						const address = screen.path(slug, revisions);
+						const res = await page.goto(`${BASE}${address}`, { waitUntil: 'networkidle' });
+						expect(res?.status(), address).toBe(200);
+						const problems = await violations(page);
+						if (problems.length) found[`${screen.name} ${address}`] = problems;
+					}
+					expect(found).toEqual({});
+					await page.close();
+				},
+				300_000
+			);
+		}
+	}
+});
