@@ -1,4 +1,5 @@
 import type { SubmitFunction } from '@sveltejs/kit';
+import { page } from '$app/state';
 import { keepPost } from './outbox';
 
 // For a form whose post may wait on the phone (a trust mark): with no network, or when the
@@ -8,7 +9,9 @@ import { keepPost } from './outbox';
 export function keepingOffline(slug: string, label: (form: FormData) => string, onkept: () => void): SubmitFunction {
 	const keep = async (action: URL, formData: FormData) => {
 		const fields = [...formData].filter((entry): entry is [string, string] => typeof entry[1] === 'string');
-		await keepPost({ action: `${action.pathname}${action.search}`, fields, label: label(formData), slug });
+		const by = (page.data.user as { id?: number } | null | undefined)?.id;
+		if (by === undefined) return;
+		await keepPost({ action: `${action.pathname}${action.search}`, fields, label: label(formData), slug, by });
 		onkept();
 	};
 	return ({ action, formData, cancel }) => {

@@ -13,8 +13,9 @@ export async function keepPost(post: Omit<WaitingPost, 'id' | 'madeAt' | 'refusa
 	announce();
 }
 
-export async function waitingPosts(): Promise<WaitingPost[]> {
-	return (await phoneStore()).getAll('outbox');
+/** The signed-in person's posts still on the phone. */
+export async function waitingPosts(signedIn: number): Promise<WaitingPost[]> {
+	return (await (await phoneStore()).getAll('outbox')).filter((p) => p.by === signedIn);
 }
 
 export async function dismissPost(id: number): Promise<void> {
@@ -45,13 +46,13 @@ async function send(post: WaitingPost): Promise<{ outcome: Outcome; message?: st
 
 let sending: Promise<number> | null = null;
 
-/** Sends every waiting post once, oldest first; returns how many went through. */
-export function sendWaiting(): Promise<number> {
+/** Sends every waiting post of the signed-in person once, oldest first; returns how many went through. */
+export function sendWaiting(signedIn: number): Promise<number> {
 	sending ??= (async () => {
 		const db = await phoneStore();
 		let sent = 0;
 		for (const post of await db.getAll('outbox')) {
-			if (post.refusal || post.id === undefined) continue;
+			if (post.refusal || post.id === undefined || post.by !== signedIn) continue;
 			const { outcome, message } = await send(post);
 			if (outcome === 'unreachable') break;
 			if (outcome === 'sent') {

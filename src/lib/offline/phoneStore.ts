@@ -14,6 +14,8 @@ export type WaitingPost = {
 	/** What it is, in words: "Flag on Driver seat space, height". */
 	label: string;
 	slug: string;
+	/** Who made it: it is sent only while that person is signed in on this phone. */
+	by: number;
 	madeAt: string;
 	/** Set when the server refused it: the person sees why. */
 	refusal?: string;
