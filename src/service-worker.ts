@@ -14,6 +14,7 @@ const worker = self as unknown as ServiceWorkerGlobalScope;
 const SHELL = `${SHELF.shellPrefix}${version}`;
 const SHELL_FILES = new Set(shellFiles([...build, ...files]));
 const IMMUTABLE = /^\/_app\/immutable\//;
+const DATA_SUFFIX = '/__data.json';
 
 worker.addEventListener('install', (event) => {
 	event.waitUntil(
@@ -43,21 +44,18 @@ async function shellFile(request: Request): Promise<Response> {
 	return response;
 }
 
+/** Keeps a page just read (on the pinned shelf when it is pinned): `copy` is its answer, or null to fetch it. */
+async function keepRead(address: string, kept: NonNullable<ReturnType<typeof keptView>>, copy: Response | null): Promise<void> {
+	const pinned = await isOnShelf(SHELF.pinned, address);
+	const companions = kept.view === 'page' ? companionsOf(kept.slug, pinned) : [];
+	await keepPage(pinned ? SHELF.pinned : SHELF.recent, address, copy, companions);
+}
+
 async function page(event: FetchEvent, url: URL): Promise<Response> {
 	const kept = keptView(url.pathname);
 	try {
 		const response = await fetch(event.request);
-		if (kept && worthKeeping(response)) {
-			const address = url.pathname;
-			const copy = response.clone();
-			event.waitUntil(
-				(async () => {
-					const pinned = await isOnShelf(SHELF.pinned, address);
-					const companions = kept.view === 'page' ? companionsOf(kept.slug, pinned) : [];
-					await keepPage(pinned ? SHELF.pinned : SHELF.recent, address, copy, companions);
-				})()
-			);
-		}
+		if (kept && worthKeeping(response)) event.waitUntil(keepRead(url.pathname, kept, response.clone()).catch(() => {}));
 		return response;
 	} catch {
 		const copy = await keptCopy(url.pathname);
@@ -87,4 +85,10 @@ worker.addEventListener('fetch', (event) => {
 	if (SHELL_FILES.has(url.pathname) || IMMUTABLE.test(url.pathname)) event.respondWith(shellFile(request));
 	else if (request.mode === 'navigate') event.respondWith(page(event, url));
 	else if (isPhotoAddress(url.pathname)) event.respondWith(photo(request, url));
+	else if (url.pathname.endsWith(DATA_SUFFIX)) {
+		// A page reached by a link inside the app arrives as data: the phone keeps the whole page beside it.
+		const address = url.pathname.slice(0, -DATA_SUFFIX.length);
+		const kept = keptView(address);
+		if (kept?.view === 'page') event.waitUntil(keepRead(address, kept, null).catch(() => {}));
+	}
 });

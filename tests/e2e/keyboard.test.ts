@@ -8,7 +8,7 @@ import { BASE, browserSession, DESKTOP, signIn } from './browser';
 const { freshPage } = browserSession(DESKTOP);
 
 /** Presses Tab until the focused element matches `selector`; fails when it is never reached. */
-async function tabTo(page: Page, selector: string, most = 120): Promise<void> {
+async function tabTo(page: Page, selector: string, most = 400): Promise<void> {
 	for (let i = 0; i < most; i++) {
 		await page.keyboard.press('Tab');
 		if (await page.evaluate((s) => document.activeElement?.matches(s) ?? false, selector)) return;
@@ -23,7 +23,7 @@ describe('a keyboard path through the main screens', () => {
 		await page.goto(`${BASE}/`, { waitUntil: 'networkidle' });
 		await tabTo(page, 'input[type="search"][name="q"]');
 		await page.keyboard.type('tarn');
-		await page.keyboard.press('Escape');
+		await page.getByRole('option').first().waitFor();
 		await Promise.all([page.waitForURL(/\/search\?/), page.keyboard.press('Enter')]);
 		await tabTo(page, 'main a[href^="/vehicles/"]');
 		await Promise.all([page.waitForURL(/\/vehicles\/[a-z0-9-]+$/), page.keyboard.press('Enter')]);
@@ -59,7 +59,7 @@ describe('a keyboard path through the main screens', () => {
 		await Promise.all([page.waitForURL(new RegExp(`/vehicles/${slug}(\\?|$)`), { timeout: 20_000 }), page.keyboard.press('Enter')]);
 		await page.getByText(/Saved revision \d+/).waitFor();
 		await page.close();
-	});
+	}, 180_000);
 
 	it('picks two revisions in history and shows what changed', async () => {
 		const page = await freshPage();
