@@ -61,6 +61,14 @@ async function keptOnPhone(page: Page, address: string, photos: number): Promise
 }
 
 describe('reading vehicle pages with no signal', () => {
+	it('lets the page start its own service worker and no other', async () => {
+		const csp = (await fetch(`${BASE}/signin`)).headers.get('content-security-policy') ?? '';
+		expect(csp).toContain("worker-src 'self';");
+		const worker = await fetch(`${BASE}/service-worker.js`);
+		expect(worker.status).toBe(200);
+		expect(worker.headers.get('content-type')).toMatch(/javascript/);
+	});
+
 	it('keeps an opened page and a pinned page with their photos, and sends a flag made offline when the network returns', async () => {
 		const page = await freshPage(PHONE);
 		await signIn(page, 'editor');
