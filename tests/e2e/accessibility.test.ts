@@ -100,7 +100,7 @@ describe('screens anyone can use', () => {
 		}
 		expect(found).toEqual({});
 		await page.close();
-	});
+	}, 300_000);
 
 	for (const role of ROLES) {
 		it(
