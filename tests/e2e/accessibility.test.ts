@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { AxeBuilder } from '@axe-core/playwright';
+import sharp from 'sharp';
 import type { APIRequestContext, Page } from 'playwright-core';
 import { BASE, browserSession, DESKTOP, PHONE, signIn } from './browser';
 import { roleAtLeast, type Role } from '../../src/lib/domain/roles';
@@ -44,13 +45,10 @@ async function pageWithHistory(request: APIRequestContext): Promise<void> {
 		if (page.protection !== 'none') continue;
 		const items = async () => ((await (await request.get(`${BASE}/api/vehicles/${item.slug}/revisions`)).json()).items as { id: number }[]).map((r) => r.id);
 		if ((await items()).length < 2) {
-			const photo = Buffer.from(
-				'iVBORw0KGgoAAAANSUhEUgAAABAAAAAQCAIAAACQkWg2AAAAGklEQVR4nGNgoBAwUqhv1IBRA0YNGDUAAgAAAP//AwBd+gAQ9AnX2QAAAABJRU5ErkJggg==',
-				'base64'
-			);
+			const photo = await sharp({ create: { width: 800, height: 600, channels: 3, background: { r: 110, g: 100, b: 90 } } }).jpeg().toBuffer();
 			const res = await request.post(`${BASE}/api/vehicles/${item.slug}/photos`, {
 				headers: { origin: BASE },
-				multipart: { file: { name: 'grommet.png', mimeType: 'image/png', buffer: photo }, section: 'firewall', alt: 'Firewall grommet (sample photo)' }
+				multipart: { file: { name: 'grommet.jpg', mimeType: 'image/jpeg', buffer: photo }, section: 'firewall', alt: 'Firewall grommet (sample photo)' }
 			});
 			expect(res.status()).toBe(201);
 		}
