@@ -21,6 +21,9 @@ const config = {
 				'img-src': ['self', 'data:', 'blob:'],
 				'font-src': ['self'],
 				'connect-src': ['self'],
+				// The service worker that keeps pages for reading with no signal.
+				'worker-src': ['self'],
+				'manifest-src': ['self'],
 				'object-src': ['none'],
 				'base-uri': ['self'],
 				'form-action': ['self'],
