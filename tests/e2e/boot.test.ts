@@ -21,11 +21,11 @@ describe('will this box go in my boot', () => {
 		await signIn(page, 'viewer');
 		await page.goto(`${BASE}/fit?vehicle=${VEHICLE_SLUG}`);
 		await page.locator('button:has-text("Check fit")').waitFor({ state: 'detached' });
-		const twin = await partValue(page, 'AG-E212');
-		await page.selectOption('#fit-part', await partValue(page, 'AG-E10'));
+		const twin = await partValue(page, 'SMPL-E212');
+		await page.selectOption('#fit-part', await partValue(page, 'SMPL-E10'));
 		const boot = page.getByTestId('boot-fit');
 		await boot.waitFor();
-		// AG-E10 is 420 × 380 × 360 mm: 470 − 360 − 10 = 100 mm under the shelf, and it passes the opening (by hand)
+		// SMPL-E10 is 420 × 380 × 360 mm: 470 − 360 − 10 = 100 mm under the shelf, and it passes the opening (by hand)
 		expect(await boot.locator('[data-verdict]').first().getAttribute('data-verdict')).toBe('fits');
 		expect(await page.getByTestId('boot-fit-reason').textContent()).toMatch(/Fits in the boot/);
 		// the twin 12 in box (480 mm tall) stands 20 mm too tall under the 470 mm shelf: 470 − 480 − 10 (by hand)

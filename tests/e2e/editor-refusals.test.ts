@@ -4,7 +4,7 @@ import { BASE, browserSession, openBrowser, PHONE, screenshot, signIn } from './
 
 // A sample page no other end-to-end file edits. Every refused save must come back to the form with
 // everything typed and a message that says what happened.
-const SLUG = 'brenmoor-quaymark-2018-2024-van';
+const SLUG = 'brenmoor-zennock-2018-2024-van';
 const HEIGHT = '#f-seats-spaces-0-heightMm';
 const NOTE = '#summary';
 

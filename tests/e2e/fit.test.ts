@@ -9,7 +9,7 @@ import { fitVerdict } from '../../src/lib/domain/fit';
 // The sample shop (content-seed/): invented vehicles and parts.
 const VEHICLE = 'Veldra Tarn 2009–2013 · Sedan';
 const VEHICLE_SLUG = 'veldra-tarn-2009-2013-sedan';
-const PART = /^AG-4D · /;
+const PART = /^SMPL-4D · /;
 
 const { freshPage } = browserSession(PHONE);
 
@@ -110,7 +110,7 @@ describe('will it fit, at the counter', () => {
 		const page = await freshPage(DESKTOP);
 		await signIn(page, 'viewer');
 		await page.goto(`${BASE}/parts?kind=amplifier`);
-		await page.getByRole('link', { name: /AG-4D compact four-channel/ }).click();
+		await page.getByRole('link', { name: /SMPL-4D compact four-channel/ }).click();
 		const rows = page.getByTestId('reverse-rows');
 		await rows.waitFor();
 		expect(await rows.textContent()).toContain('Veldra Tarn 2009–2013');

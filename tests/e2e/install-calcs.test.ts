@@ -16,9 +16,9 @@ describe('install calculators on a phone', () => {
 		const ohms = async () => page.getByTestId('wiring-option').evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-ohms'))));
 		await expect.poll(ohms).toEqual([1, 4, 4, 16]);
 		expect(await page.getByTestId('wiring-diagram').count()).toBe(4);
-		const mono = await page.locator('#cw-amp option').evaluateAll((els) => (els as HTMLOptionElement[]).find((o) => o.text.startsWith('AG-1D · '))?.value);
+		const mono = await page.locator('#cw-amp option').evaluateAll((els) => (els as HTMLOptionElement[]).find((o) => o.text.startsWith('SMPL-1D · '))?.value);
 		await page.selectOption('#cw-amp', mono!);
-		// The sample AG-1D is rated (invented) 800 W at 1 Ω and 300 W at 4 Ω, stable to 1 Ω.
+		// The sample SMPL-1D is rated (invented) 800 W at 1 Ω and 300 W at 4 Ω, stable to 1 Ω.
 		await expect.poll(() => page.getByTestId('load-check').first().textContent()).toMatch(/800 W RMS/);
 		expect(await page.getByTestId('load-check').last().textContent()).toMatch(/No rated figure at or above 16 Ω/);
 		expect(new URL(page.url()).searchParams.get('amp')).toBe(mono);

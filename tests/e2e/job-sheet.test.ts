@@ -106,30 +106,30 @@ describe('the job sheet, on a phone', () => {
 		await signIn(page, 'viewer');
 		await page.goto(SHEET);
 		await openForm(page);
-		await tick(page, 'AG-4D');
-		await tick(page, 'AG-1D');
-		await page.selectOption('#js-sub-part', { label: 'AG-W10D Ashgrove AG-W10D 10 in dual-coil subwoofer' });
+		await tick(page, 'SMPL-4D');
+		await tick(page, 'SMPL-1D');
+		await page.selectOption('#js-sub-part', { label: 'SMPL-W10D Samplewick SMPL-W10D 10 in dual-coil subwoofer' });
 		await page.fill('#js-vehicle-load', '25');
 		await Promise.all([page.waitForURL((u) => u.searchParams.get('vehicleLoad') === '25'), page.click('button:has-text("Update the sheet")')]);
 
-		// by hand at 12 V: AG-4D 4 × 60 W at 85 % = 23.53 A, AG-1D 500 W at 88 % = 47.35 A (sample catalogue figures).
+		// by hand at 12 V: SMPL-4D 4 × 60 W at 85 % = 23.53 A, SMPL-1D 500 W at 88 % = 47.35 A (sample catalogue figures).
 		// Main 4.8 m, branches and grounds 0.5 m (assumed): the main takes 4.8 / 5.8 of 3 % = 2.48 %:
 		// 10.75 × 70.88 × 15.75 ft / 0.298 V = 40,280 cmil → 2 AWG (62,450; 33.6 mm²); fuse ≥ max(88.6, 25 + 60) → 100 A.
 		expect(await text(page, 'job-main')).toMatch(/^2 AWG \(33\.6 mm²\)/);
 		expect(await text(page, 'job-main-fuse')).toMatch(/^100 A/);
-		// Branches get the 1.55 % left over 1 m: AG-4D 4,472 cmil → 12 AWG, 30 A; AG-1D 8,998 cmil → 10 AWG, but its
+		// Branches get the 1.55 % left over 1 m: SMPL-4D 4,472 cmil → 12 AWG, 30 A; SMPL-1D 8,998 cmil → 10 AWG, but its
 		// 60 A fuse is more than 10 AWG carries (55 A, handbook chassis table), so 8 AWG.
 		const branches = page.getByTestId('job-branch');
 		expect(await branches.count()).toBe(2);
 		const power = await text(page, 'job-power');
-		expect(power).toMatch(/Branch to AG-4D 30 A blade fuse at the block, 12 AWG \(3\.31 mm²\)/);
-		expect(power).toMatch(/Branch to AG-1D 60 A blade fuse at the block, 8 AWG \(8\.37 mm²\)/);
+		expect(power).toMatch(/Branch to SMPL-4D 30 A blade fuse at the block, 12 AWG \(3\.31 mm²\)/);
+		expect(power).toMatch(/Branch to SMPL-1D 60 A blade fuse at the block, 8 AWG \(8\.37 mm²\)/);
 		const grounds = await text(page, 'job-grounds');
-		expect(grounds).toMatch(/AG-4D 12 AWG \(3\.31 mm²\)/);
-		expect(grounds).toMatch(/AG-1D 8 AWG \(8\.37 mm²\)/);
+		expect(grounds).toMatch(/SMPL-4D 12 AWG \(3\.31 mm²\)/);
+		expect(grounds).toMatch(/SMPL-1D 8 AWG \(8\.37 mm²\)/);
 		// 2 amplifiers × 0.1 A (from memory) = 0.2 A, within the assumed 0.3 A head-unit output (common practice)
 		expect(await text(page, 'job-remote')).toMatch(/within the head unit's remote output/);
-		// Ohm's law: two 4 Ω coils in parallel = 2 Ω, at or above AG-1D's 1 Ω minimum; rated 500 W at 2 Ω (catalogue)
+		// Ohm's law: two 4 Ω coils in parallel = 2 Ω, at or above SMPL-1D's 1 Ω minimum; rated 500 W at 2 Ω (catalogue)
 		expect(await text(page, 'job-final-load')).toMatch(/the amplifier sees 2 Ω ✓ stable/);
 		expect(await text(page, 'job-load')).toMatch(/Rated 500 W RMS at 2 Ω/);
 		// 25 A + 70.88 A = 95.9 A: 14.1 A spare of 110 A at cruise, 30.9 A short of 65 A at idle

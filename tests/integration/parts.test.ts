@@ -43,9 +43,9 @@ describe('parts catalogue', () => {
 		for (const p of sample) await createPart(samplePartInput(p), admin);
 		const all = await listParts();
 		expect(all).toHaveLength(sample.length);
-		const micro = all.find((p) => p.sku === 'AG-4D-MICRO');
+		const micro = all.find((p) => p.sku === 'SMPL-4D-MICRO');
 		expect(micro).toMatchObject({ kind: 'amplifier', lengthMm: 150, widthMm: 90, heightMm: 38, channels: 4, ampClass: 'D', efficiency: 0.82 });
-		const unit = all.find((p) => p.sku === 'AG-H2S');
+		const unit = all.find((p) => p.sku === 'SMPL-H2S');
 		expect(unit).toMatchObject({ kind: 'head-unit', dinSize: 2, chassisDepthMm: 95 });
 	});
 
@@ -53,7 +53,7 @@ describe('parts catalogue', () => {
 		const speakers = await listParts({ kind: 'speaker' });
 		expect(speakers.length).toBe(sample.filter((p) => p.kind === 'speaker').length);
 		expect(speakers.every((p) => p.kind === 'speaker')).toBe(true);
-		expect((await listParts({ q: 'micro' })).map((p) => p.sku)).toEqual(['AG-4D-MICRO']);
+		expect((await listParts({ q: 'micro' })).map((p) => p.sku)).toEqual(['SMPL-4D-MICRO']);
 		// "%" is matched literally, not as a wildcard
 		expect(await listParts({ q: '%' })).toEqual([]);
 	});

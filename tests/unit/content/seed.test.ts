@@ -134,7 +134,7 @@ describe('seed parts', () => {
 		expect(parts.length).toBeGreaterThanOrEqual(10);
 		expect(new Set(parts.map((p) => p.kind))).toEqual(new Set(['amplifier', 'head-unit', 'speaker', 'enclosure']));
 		expect(new Set(parts.map((p) => p.sku)).size).toBe(parts.length);
-		for (const p of parts) expect(p.name).toMatch(/^Ashgrove /);
+		for (const p of parts) expect(p.name).toMatch(/^Samplewick /);
 	});
 
 	it('gives amplifiers a box, channels, power and a class efficiency', () => {

@@ -80,7 +80,7 @@ describe('vinShape', () => {
 	});
 
 	it('does not take words for a VIN', () => {
-		expect(vinShape('brenmoor quaymark')).toBeNull();
+		expect(vinShape('brenmoor zennock')).toBeNull();
 		expect(vinShape('veldra tarn 2012 rear')).toBeNull();
 		expect(vinShape('occupant sensor mat')).toBeNull();
 		expect(vinShape('2012')).toBeNull();

@@ -8,7 +8,9 @@ import { config } from '../config';
 import type { DecoderAnswer } from './client';
 
 /**
- * Invented VIN beginnings (manufacturer code plus model characters) for the fictional sample makes.
+ * Illustrative VIN beginnings (manufacturer code plus model characters) for the fictional sample makes. They
+ * are not allocated to these makes: their first characters may fall in blocks that belong to real
+ * manufacturers, so they are labelled illustrative in the sample-data guide and decode only here.
  * Several match the VIN patterns on the sample pages; a few sample pages record no pattern, so they are
  * found through the decoded make and model; one make has no page at all, to show the "create it" path.
  */
@@ -20,7 +22,7 @@ export const FAKE_CATALOGUE: readonly { prefix: string; make: string; model: str
 	{ prefix: 'KV7BL', make: 'Korvane', model: 'Bristle', body: 'suv' },
 	{ prefix: 'KV7PN', make: 'Korvane', model: 'Pennick', body: 'pickup' },
 	{ prefix: 'BM4SW', make: 'Brenmoor', model: 'Sallow', body: 'wagon' },
-	{ prefix: 'BM9KV', make: 'Brenmoor', model: 'Quaymark', body: 'van' },
+	{ prefix: 'BM9KV', make: 'Brenmoor', model: 'Zennock', body: 'van' },
 	{ prefix: 'BM2A', make: 'Brenmoor', model: 'Arrand', body: 'sedan' },
 	{ prefix: 'HV3C', make: 'Halvik', model: 'Corrin', body: 'coupe' },
 	{ prefix: 'HV8ST', make: 'Halvik', model: 'Stennet', body: 'sedan' },
