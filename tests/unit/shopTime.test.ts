@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDay, formatWhen, knownTimeZones, timeZoneSchema, usableZone, zoneShortName } from '../../src/lib/domain/shopTime';
+import { formatDay, formatWhen, knownTimeZones, nextDay, startOfDay, timeZoneSchema, usableZone, zoneShortName } from '../../src/lib/domain/shopTime';
 
 // Offsets below follow the tz database's rules as published: the EU's summer time runs from the last
 // Sunday of March to the last Sunday of October at 01:00 UTC (Directive 2000/84/EC); the US's from the
@@ -45,6 +45,29 @@ describe('dates and times in the shop’s zone', () => {
 	it('names the zone as it is at that moment', () => {
 		expect(zoneShortName(new Date('2026-01-15T12:00:00Z'), 'Australia/Sydney')).toBe('AEDT');
 		expect(zoneShortName(new Date('2026-07-15T12:00:00Z'), 'Australia/Sydney')).toBe('AEST');
+	});
+});
+
+describe('where a day starts in the shop’s zone', () => {
+	it('starts a summer day in Berlin at 22:00 UTC the evening before', () => {
+		// Directive 2000/84/EC: summer time (CEST, UTC+2) runs from the last Sunday of March to the last Sunday of October
+		expect(startOfDay('2026-07-01', 'Europe/Berlin').toISOString()).toBe('2026-06-30T22:00:00.000Z');
+		// Winter (CET, UTC+1)
+		expect(startOfDay('2026-01-15', 'Europe/Berlin').toISOString()).toBe('2026-01-14T23:00:00.000Z');
+	});
+
+	it('starts a winter day in New York at 05:00 UTC, and Kathmandu’s at 18:15 UTC the day before', () => {
+		// Energy Policy Act of 2005: standard time (EST, UTC−5) from the first Sunday of November to the second Sunday of March
+		expect(startOfDay('2026-01-15', 'America/New_York').toISOString()).toBe('2026-01-15T05:00:00.000Z');
+		// Nepal Standard Time is UTC+5:45 all year (from memory)
+		expect(startOfDay('2026-03-01', 'Asia/Kathmandu').toISOString()).toBe('2026-02-28T18:15:00.000Z');
+	});
+
+	it('finds the start of the day on which the clocks change', () => {
+		// 2026-03-29 is the last Sunday of March: Berlin is still on CET (UTC+1) at midnight
+		expect(startOfDay('2026-03-29', 'Europe/Berlin').toISOString()).toBe('2026-03-28T23:00:00.000Z');
+		expect(nextDay('2026-02-28')).toBe('2026-03-01');
+		expect(nextDay('2028-02-28')).toBe('2028-02-29');
 	});
 });
 

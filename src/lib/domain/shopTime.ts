@@ -74,3 +74,23 @@ export function formatDay(at: string | Date, zone: string = DEFAULT_TIME_ZONE): 
 	if (Number.isNaN(d.getTime())) return '';
 	return formatter('en-GB', usableZone(zone), { day: 'numeric', month: 'short', year: 'numeric' }).format(d);
 }
+
+/** The moment a calendar day ("2026-07-01") starts in the zone: 00:00 there, as an instant. */
+export function startOfDay(day: string, zone: string = DEFAULT_TIME_ZONE): Date {
+	const [y, m, d] = day.split('-').map(Number);
+	const z = usableZone(zone);
+	const wall = Date.UTC(y, m - 1, d);
+	let at = wall;
+	// Move by the zone's offset until 00:00 local is reached (twice covers an offset that changes that night).
+	for (let i = 0; i < 3; i++) {
+		const p = parts(new Date(at), z);
+		at += wall - Date.UTC(Number(p.year), Number(p.month) - 1, Number(p.day), Number(p.hour), Number(p.minute));
+	}
+	return new Date(at);
+}
+
+/** The calendar day after `day`, both as YYYY-MM-DD. */
+export function nextDay(day: string): string {
+	const [y, m, d] = day.split('-').map(Number);
+	return new Date(Date.UTC(y, m - 1, d + 1)).toISOString().slice(0, 10);
+}

@@ -1,3 +1,4 @@
+import { nextDay, startOfDay } from '../../domain/shopTime';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
 import { AuditLog, Make, User, Vehicle, VehicleModel } from '../db/models';
@@ -39,7 +40,7 @@ export async function recordAudit(
 	);
 }
 
-/** Filters of the audit page, read from the URL so a search can be shared. Days are UTC. */
+/** Filters of the audit page, read from the URL so a search can be shared. Days are the shop's (its time zone). */
 export const auditFilterSchema = z
 	.object({
 		person: z.coerce.number().int().positive('Pick a person from the list.').optional(),
@@ -117,13 +118,14 @@ async function targetLabels(rows: AuditLog[]): Promise<(row: AuditLog, details: 
 	};
 }
 
-/** Newest first; a person matches as the one who acted or the one acted upon. */
-export async function listAudit(filter: AuditFilter): Promise<{ items: AuditEntry[]; total: number; page: number; pageSize: number }> {
+/** Newest first; a person matches as the one who acted or the one acted upon. Days are counted in `zone` (the shop's). */
+export async function listAudit(filter: AuditFilter, zone = 'UTC'): Promise<{ items: AuditEntry[]; total: number; page: number; pageSize: number }> {
 	const where: WhereOptions[] = [];
 	if (filter.person) where.push({ [Op.or]: [{ actorId: filter.person }, { targetType: 'user', targetId: String(filter.person) }] });
 	if (filter.action) where.push({ action: filter.action });
-	if (filter.from) where.push({ createdAt: { [Op.gte]: new Date(`${filter.from}T00:00:00.000Z`) } });
-	if (filter.to) where.push({ createdAt: { [Op.lt]: new Date(new Date(`${filter.to}T00:00:00.000Z`).getTime() + 24 * 60 * 60 * 1000) } });
+	// Days are the shop's: a day runs from its midnight to the next in the shop's time zone.
+	if (filter.from) where.push({ createdAt: { [Op.gte]: startOfDay(filter.from, zone) } });
+	if (filter.to) where.push({ createdAt: { [Op.lt]: startOfDay(nextDay(filter.to), zone) } });
 	const { rows, count } = await AuditLog.findAndCountAll({
 		where: { [Op.and]: where },
 		include: [{ model: User, as: 'actor', attributes: ['id', 'name'] }],

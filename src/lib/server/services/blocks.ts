@@ -7,6 +7,7 @@ import { blockNotice, type EditBlock } from '../../domain/block';
 import type { SessionUser } from '../../domain/sessionUser';
 import { recordAudit } from './audit';
 import { shopSettings } from './settings';
+import { startOfDay } from '../../domain/shopTime';
 import { ServiceError, fieldMessages } from '../errors';
 import { announceAccountChange } from '../events';
 
@@ -22,9 +23,9 @@ export const blockSchema = z.object({
 	until: z.iso.date({ error: 'Pick the day the pause ends.' })
 });
 
-/** An end date means the block lifts at 00:00 UTC on that day. */
-export function blockEnd(day: string): Date {
-	return new Date(`${day}T00:00:00.000Z`);
+/** A pause ends as the chosen day begins in the shop's time zone. */
+export function blockEnd(day: string, zone: string): Date {
+	return startOfDay(day, zone);
 }
 
 export async function activeBlockFor(userId: number, now = new Date()): Promise<(EditBlock & { id: number; byId: number }) | null> {
@@ -59,7 +60,7 @@ export async function blockUser(targetId: number, input: unknown, actor: Session
 		const fields = fieldMessages(parsed.error);
 		throw new ServiceError(Object.values(fields)[0] ?? 'Check the form.', 400, fields);
 	}
-	const until = blockEnd(parsed.data.until);
+	const until = blockEnd(parsed.data.until, (await shopSettings()).timeZone);
 	if (until.getTime() <= now.getTime()) throw new ServiceError('Pick an end day after today.', 400, { until: 'Pick an end day after today.' });
 	if (until.getTime() - now.getTime() > LONGEST_BLOCK_DAYS * DAY_MS) {
 		throw new ServiceError('A pause lasts at most five years; disable the account instead.', 400, { until: 'Pick a day within five years.' });

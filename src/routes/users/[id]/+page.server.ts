@@ -1,3 +1,5 @@
+import { shopSettings } from '$lib/server/services/settings';
+import { formatWhen } from '$lib/domain/shopTime';
 import { error } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { hasRole, requireRole } from '$lib/server/auth/guard';
@@ -43,7 +45,7 @@ export const actions: Actions = {
 			request,
 			async (posted) => {
 				const pause = await blockUser(personId(params.id), Object.fromEntries(posted), moderator);
-				return { message: `Editing paused until ${pause.until.slice(0, 10)}.` };
+				return { message: `Editing paused until ${formatWhen(pause.until, (await shopSettings()).timeZone)}.` };
 			},
 			{ values: ['reason', 'until'] }
 		);
