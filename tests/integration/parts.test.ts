@@ -83,10 +83,10 @@ describe('parts catalogue', () => {
 	});
 
 	it('answers a duplicate SKU on its field, whatever the letter case', async () => {
-		const err = await createPart({ ...amp, sku: 'ag-4d' }, moderator).catch((e) => e);
+		const err = await createPart({ ...amp, sku: 'smpl-4d' }, moderator).catch((e) => e);
 		expect(err).toBeInstanceOf(ServiceError);
 		expect(err.status).toBe(409);
-		expect(err.fieldErrors).toEqual({ sku: 'Another part already has the SKU "ag-4d".' });
+		expect(err.fieldErrors).toEqual({ sku: 'Another part already has the SKU "smpl-4d".' });
 	});
 
 	it('answers bad input with a message per field', async () => {

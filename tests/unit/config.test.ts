@@ -5,7 +5,12 @@ import { authSecret, ConfigError, readConfig } from '../../src/lib/server/config
 describe('settings from the environment', () => {
 	it('falls back to the documented defaults when nothing is set', () => {
 		const settings = readConfig({});
-		expect(settings.db).toEqual({ host: '127.0.0.1', port: 3307, name: 'kickpanel', user: 'kickpanel', password: 'kickpanel-local', poolMax: 10 });
+		expect(settings.db).toEqual({ host: '127.0.0.1', port: 3307, name: 'kickpanel', user: 'kickpanel', password: 'kickpanel-local', poolMax: 10, replica: null });
+		// No replica unless DB_REPLICA_PORT is set; logs at info; metrics on loopback 9464.
+		expect(settings.logLevel).toBe('info');
+		expect(settings.metricsPort).toBe(9464);
+		expect(readConfig({ DB_REPLICA_PORT: '3328' }).db.replica).toEqual({ host: '127.0.0.1', port: 3328 });
+		expect(readConfig({ METRICS_PORT: 'off' }).metricsPort).toBeNull();
 		expect(settings.auth).toMatchObject({ maxFailuresPerAccount: 5, maxFailuresPerAddress: 20, lockoutSeconds: 900, trustHost: false });
 		expect(settings.photos).toEqual({ maxBytes: 15_728_640, maxPixels: 60_000_000 });
 		expect(settings.s3).toMatchObject({ endpoint: 'http://127.0.0.1:4569', bucket: 'kickpanel-photos', region: 'us-east-1', forcePathStyle: true });
