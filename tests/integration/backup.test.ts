@@ -2,10 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import mariadb from 'mariadb';
 import sharp from 'sharp';
 import { QueryTypes } from 'sequelize';
-import { closeDb, freshDatabase } from '../helpers/database';
+import { closeDb, emptyDatabase, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
 import { seatSpace } from '../helpers/places';
 import { db } from '../../src/lib/server/db';
@@ -43,19 +42,6 @@ async function snapshot(): Promise<Record<string, unknown[]>> {
 	return out;
 }
 
-async function emptyDatabase(name: string): Promise<void> {
-	const base = config.db.name.replace(/_backup_src$/, '');
-	const dbName = `${base}_${name}`;
-	const conn = await mariadb.createConnection({ host: config.db.host, port: config.db.port, user: config.db.user, password: config.db.password });
-	try {
-		await conn.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
-		await conn.query(`CREATE DATABASE \`${dbName}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-	} finally {
-		await conn.end();
-	}
-	await closeDb();
-	config.db.name = dbName;
-}
 
 beforeAll(async () => {
 	await freshDatabase('backup_src');

@@ -1,10 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawn, spawnSync } from 'node:child_process';
 import { rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { json } from '@sveltejs/kit';
 import { QueryTypes } from 'sequelize';
 import { closeDb, freshDatabase } from '../helpers/database';
+import { freePort } from '../helpers/ports';
 import { makeUser } from '../helpers/users';
 import { db } from '../../src/lib/server/db';
 import { config } from '../../src/lib/server/config';
@@ -24,13 +24,6 @@ const DATA_DIR = `.data/faults-mariadb-${process.pid}`;
 let port = 0;
 let moderator: SessionUser;
 
-async function freePort(): Promise<number> {
-	const server = createServer();
-	await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-	const p = (server.address() as { port: number }).port;
-	await new Promise<void>((resolve) => server.close(() => resolve()));
-	return p;
-}
 
 function database(command: 'start' | 'stop'): void {
 	const run = spawnSync('bash', ['scripts/db.sh', command], {

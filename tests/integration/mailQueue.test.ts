@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createServer, type Server } from 'node:net';
 import { QueryTypes } from 'sequelize';
 import { closeDb, freshDatabase } from '../helpers/database';
+import { freePort } from '../helpers/ports';
 import { makeUser } from '../helpers/users';
 import { linkToken, startTestOutbox, type TestOutbox } from '../helpers/mail';
 import { db } from '../../src/lib/server/db';
@@ -20,14 +20,6 @@ let admin: SessionUser;
 let livePort = 0;
 let deadPort = 0;
 
-/** A port nothing listens on: taken, then closed again. */
-async function closedPort(): Promise<number> {
-	const server: Server = createServer();
-	await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-	const port = (server.address() as { port: number }).port;
-	await new Promise<void>((resolve) => server.close(() => resolve()));
-	return port;
-}
 
 const queued = () =>
 	db().query<{ id: number; recipient: string; attempts: number; sent_at: Date | null; last_error: string | null; message_id: string }>(
@@ -39,7 +31,7 @@ beforeAll(async () => {
 	await freshDatabase('mailqueue');
 	outbox = await startTestOutbox();
 	livePort = config.mail.port;
-	deadPort = await closedPort();
+	deadPort = await freePort();
 	admin = await makeUser('admin', 'Owner Sample');
 });
 afterAll(async () => {

@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
 import { rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { QueryTypes } from 'sequelize';
 import { closeDb, freshDatabase } from '../helpers/database';
+import { freePort } from '../helpers/ports';
 import { makeUser } from '../helpers/users';
 import { db } from '../../src/lib/server/db';
 import { config } from '../../src/lib/server/config';
@@ -22,13 +22,6 @@ let primary = 0;
 let replica = 0;
 let editor: SessionUser;
 
-async function freePort(): Promise<number> {
-	const server = createServer();
-	await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-	const p = (server.address() as { port: number }).port;
-	await new Promise<void>((resolve) => server.close(() => resolve()));
-	return p;
-}
 
 function cluster(...args: string[]): void {
 	const run = spawnSync('bash', ['scripts/cluster.sh', ...args], {
