@@ -155,6 +155,24 @@ describe('the boot index for the reverse question', () => {
 		);
 	});
 
+	it('agrees with enclosureFit when margins land exactly on zero or on the tight line', () => {
+		// two routes to one rule: whole-millimetre figures in a narrow band, so many margins are exactly 0 or exactly tightMm
+		const mm = fc.option(fc.integer({ min: 300, max: 330 }), { freq: 8 });
+		const row = fc.record({ space: fc.record({ l: mm, lTop: mm, w: mm, archW: mm, h: mm }), opening: fc.record({ w: mm, h: mm }) });
+		const boxSide = fc.integer({ min: 280, max: 320 });
+		fc.assert(
+			fc.property(fc.array(row, { maxLength: 60 }), boxSide, boxSide, boxSide, fc.option(boxSide), fc.integer({ min: 0, max: 12 }), fc.integer({ min: 1, max: 12 }), (boots, l, w, h, lTop, c, t) => {
+				const box = { l, w, h, lTop };
+				const got = new BootSpaceIndex(boots).query(box, c, t);
+				const want = boots.map((b) => enclosureFit(box, b.space, b.opening, { clearanceMm: c, tightMm: t }).verdict);
+				const rows = want.flatMap((v, i) => (v === 'fits' || v === 'tight' ? [i] : []));
+				expect(Array.from(got.rows)).toEqual(rows);
+				expect(Array.from(got.tight)).toEqual(rows.map((i) => (want[i] === 'tight' ? 1 : 0)));
+			}),
+			{ numRuns: 300 }
+		);
+	});
+
 	it('decides an exact fit at the micrometre like the single check', () => {
 		// 304.8 mm box under a 314.8 mm shelf with 10 mm clearance: margin 0, tight (hand-worked)
 		const index = new BootSpaceIndex([{ space: { l: 900, lTop: null, w: 1000, archW: null, h: 314.8 }, opening: { w: 1000, h: 600 } }]);

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { margin, type FitVerdict } from './fit';
+import { FIT_RESOLUTION_MM, margin, type FitVerdict } from './fit';
 import { parseInput } from './validate';
 import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, partSizeMm } from './sizeRules';
 import { formatLength, type UnitSystem } from './units';
@@ -269,6 +269,15 @@ export class BootSpaceIndex {
 	readonly h: Float64Array;
 	readonly ow: Float64Array;
 	readonly oh: Float64Array;
+	// Worked once per row when it is set, so a query is a few subtractions a row over one packed
+	// array: per row the opening's shorter and longer side (NaN when any
+	// figure a fit needs is missing, so the row never matches), the height, the floor depth
+	// (NO_FLOOR_MM when only the top depth is measured), the depth at the top of the floor, how much
+	// depth the seat back takes per millimetre of height, and the width across the floor (between
+	// the arches when they are narrower).
+	private readonly packed: Float64Array;
+	private scratchRows = new Int32Array(0);
+	private scratchTight = new Uint8Array(0);
 
 	constructor(boots: readonly { space: BootSpace; opening: LoadOpening }[]) {
 		const n = boots.length;
@@ -280,6 +289,7 @@ export class BootSpaceIndex {
 		this.h = new Float64Array(n);
 		this.ow = new Float64Array(n);
 		this.oh = new Float64Array(n);
+		this.packed = new Float64Array(n * STRIDE);
 		boots.forEach((b, i) => this.set(i, b));
 	}
 
@@ -293,6 +303,24 @@ export class BootSpaceIndex {
 		this.h[row] = v(b.space.h);
 		this.ow[row] = v(b.opening.w);
 		this.oh[row] = v(b.opening.h);
+		const l = this.l[row];
+		const lTop = this.lTop[row];
+		const H = this.h[row];
+		const wide = this.w[row];
+		const arch = this.archW[row];
+		const across = wide === wide ? (arch === arch && arch < wide ? arch : wide) : arch;
+		const depth0 = l === l ? l : lTop;
+		const usable = [this.ow[row], this.oh[row], H, across, depth0].every((x) => x === x);
+		const p = this.packed;
+		const at = row * STRIDE;
+		p[at] = usable ? Math.min(this.ow[row], this.oh[row]) : NaN;
+		p[at + 1] = usable ? Math.max(this.ow[row], this.oh[row]) : NaN;
+		p[at + 2] = H;
+		p[at + 3] = l === l ? l : NO_FLOOR_MM;
+		p[at + 4] = depth0;
+		// A seat back leaning in: the depth at height y is l − (l − lTop)·y/H (never more than l).
+		p[at + 5] = l === l && lTop === lTop && l > lTop ? (l - lTop) / H : 0;
+		p[at + 6] = across;
 	}
 
 	query(box: EnclosureBox, clearanceMm = DEFAULT_CLEARANCE_MM, tightMm = DEFAULT_TIGHT_MM): BootMatches {
@@ -304,31 +332,44 @@ export class BootSpaceIndex {
 		const sides = [deep, b.w, b.h].sort((x, y) => x - y);
 		const s1 = sides[0];
 		const s2 = sides[1];
-		const rows = new Int32Array(this.size);
-		const tight = new Uint8Array(this.size);
+		// One scratch pair per index (queries run one at a time on the event loop); the answer is a copy.
+		if (this.scratchRows.length < this.size) {
+			this.scratchRows = new Int32Array(this.size);
+			this.scratchTight = new Uint8Array(this.size);
+		}
+		const rows = this.scratchRows;
+		const tight = this.scratchTight;
+		const p = this.packed;
+		const bh = b.h;
+		const bl = b.l;
+		const bw = b.w;
+		const n = this.size;
 		let k = 0;
-		for (let i = 0; i < this.size; i++) {
-			const ow = this.ow[i];
-			const oh = this.oh[i];
-			const o1 = ow < oh ? ow : oh;
-			const o2 = ow < oh ? oh : ow;
-			const opening = Math.min(o1 - s1, o2 - s2);
-			const H = this.h[i];
-			const wide = this.w[i];
-			const arch = this.archW[i];
-			const across = wide === wide ? (arch === arch && arch < wide ? arch : wide) : arch;
-			const straight = Math.min(depthRoom(this.l[i], this.lTop[i], H, b.h, b.l, top, c), across - b.w - c);
-			const turned = Math.min(depthRoom(this.l[i], this.lTop[i], H, b.h, b.w, b.w, c), across - deep - c);
-			const m = Math.min(opening, straight > turned ? straight : turned, H - b.h - c);
-			// NaN (a figure not measured) fails every comparison, so such a row never matches.
-			if (m >= -FIT_SLACK_MM) {
-				const exact = Math.abs(m) < FIT_SLACK_MM * 2 || Math.abs(m - tightMm) < FIT_SLACK_MM * 2;
-				const verdict = exact ? this.verdictAt(i, b, c, tightMm) : m < tightMm ? 'tight' : 'fits';
-				if (verdict === 'fits' || verdict === 'tight') {
-					rows[k] = i;
-					tight[k++] = verdict === 'tight' ? 1 : 0;
-				}
+		for (let i = 0, at = 0; i < n; i++, at += STRIDE) {
+			// Branch-free minimum and maximum (see lo and hi): with figures in random order a
+			// compare-and-branch per side mispredicts often enough to cost more than the arithmetic.
+			// An unusable row has NaN opening sides, and NaN runs through to m, which fails the test.
+			const gate = lo(lo(p[at] - s1, p[at + 1] - s2), p[at + 2] - bh - c);
+			const floor = p[at + 3] - c;
+			const up = p[at + 4] - p[at + 5] * bh - c;
+			const room = p[at + 6] - c;
+			const straight = lo(lo(floor - bl, up - top), room - bw);
+			const turned = lo(lo(floor - bw, up - bw), room - deep);
+			const m = lo(gate, hi(straight, turned));
+			// enclosureFit rounds margins to the whole micrometre, so a box goes in when m ≥ −½ µm and
+			// is tight below tightMm − ½ µm. Only a margin within rounding error of either line
+			// (never a figure in whole or tenth millimetres) is passed to the full check.
+			if (Math.abs(m - GOES_IN_MM) < ROUNDING_BAND_MM || Math.abs(m - (tightMm + GOES_IN_MM)) < ROUNDING_BAND_MM) {
+				const verdict = this.verdictAt(i, b, c, tightMm);
+				if (verdict !== 'fits' && verdict !== 'tight') continue;
+				rows[k] = i;
+				tight[k++] = verdict === 'tight' ? 1 : 0;
+				continue;
 			}
+			// Written every row, kept by moving k on only when the box goes in (NaN never does).
+			rows[k] = i;
+			tight[k] = m < tightMm + GOES_IN_MM ? 1 : 0;
+			k += m >= GOES_IN_MM ? 1 : 0;
 		}
 		return { rows: rows.slice(0, k), tight: tight.slice(0, k) };
 	}
@@ -342,28 +383,28 @@ export class BootSpaceIndex {
 		};
 	}
 
-	// On a margin within a micrometre or two of a boundary the full check (whole micrometres) decides.
+	// On a margin within rounding error of a boundary the full check (whole micrometres) decides.
 	private verdictAt(row: number, b: EnclosureBox, c: number, tightMm: number): FitVerdict {
 		const { space, opening } = this.boot(row);
 		return checkedEnclosureFit(b, space, opening, c, tightMm).verdict;
 	}
 }
 
-const FIT_SLACK_MM = 0.001;
+const STRIDE = 8;
+// Half a micrometre below zero: the line enclosureFit's rounded margins draw between going in and not.
+const GOES_IN_MM = -FIT_RESOLUTION_MM / 2;
+// Double-precision error of the packed arithmetic on boot figures, with a wide allowance.
+const ROUNDING_BAND_MM = 1e-6;
+// The floor depth when only the top depth is measured: longer than any boot, finite so lo and hi
+// stay exact enough (far inside ROUNDING_BAND_MM) for millimetre figures.
+const NO_FLOOR_MM = 1e7;
 
-/** Depth room for a box side `bottom` deep at the floor and `top` deep at its top edge; NaN when no depth is measured. */
-function depthRoom(l: number, lTop: number, H: number, boxH: number, bottom: number, top: number, c: number): number {
-	let atTop = l;
-	if (lTop === lTop) {
-		if (l !== l) atTop = lTop;
-		else if (H !== H) atTop = l < lTop ? l : lTop;
-		else {
-			const t = l - ((l - lTop) * (boxH < H ? boxH : H)) / H;
-			atTop = l < t ? l : t;
-		}
-	}
-	const floor = l === l ? l - bottom - c : Infinity;
-	const up = atTop === atTop ? atTop - top - c : Infinity;
-	const m = floor < up ? floor : up;
-	return m === Infinity ? NaN : m;
+// min and max of two finite numbers (NaN in, NaN out) without a branch; the rounding error for
+// millimetre figures is far inside ROUNDING_BAND_MM.
+function lo(a: number, b: number): number {
+	return (a + b - Math.abs(a - b)) * 0.5;
 }
+function hi(a: number, b: number): number {
+	return (a + b + Math.abs(a - b)) * 0.5;
+}
+
