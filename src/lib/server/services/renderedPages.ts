@@ -45,7 +45,7 @@ type Row = {
 };
 
 // Every join is on a primary key, the page on its unique slug.
-const PAGE_SQL = `SELECT v.id, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, v.body, v.latest_revision_id AS latestRevisionId,
+export const PAGE_SQL = `SELECT v.id, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, v.body, v.latest_revision_id AS latestRevisionId,
 		v.protection, mk.name AS make, mo.name AS model,
 		r.id AS revisionId, r.sha256, r.summary, r.hidden, r.reviewed_at AS reviewedAt, r.created_at AS createdAt, u.name AS authorName,
 		rp.parts

@@ -10,6 +10,7 @@ import * as renderedPages from './2026-12-05T06-00-00_rendered_pages';
 import * as loadFigures from './2026-12-05T06-00-00_load_figures';
 import * as suggestions from './2026-12-05T06-00-00_suggestions';
 import * as mailQueue from './2026-12-05T06-10-00_mail_queue';
+import * as renderedPagesKey from './2026-12-05T09-00-00_rendered_pages_key';
 
 /** Every migration, oldest first. Add new ones at the end (see DEVELOPERS.md). */
-export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos, revisionOrigins, endedSessions, renderedPages, loadFigures, suggestions, mailQueue];
+export const migrations = [foundation, partsAndTrust, accountsWatchReview, photos, rateLimits, revisionPhotos, revisionOrigins, endedSessions, renderedPages, loadFigures, suggestions, mailQueue, renderedPagesKey];
