@@ -54,6 +54,20 @@ describe('charging budget', () => {
 		expect(b.upgrade.every((u) => u.dropPct! < 3)).toBe(true);
 	});
 
+	it('sizes CCA charging cables heavier than copper and says so in the basis', () => {
+		// Handbook of Electronic Tables and Formulas, chassis wiring: 4 AWG 135 A, 2 AWG 181 A. CCA carries
+		// copper's current × √0.629 (ASTM B566 10 % class conductivity share; the square root is common practice):
+		// 4 AWG 135 × 0.793 = 107 A < 110 A, 2 AWG 181 × 0.793 = 143 A ≥ 110 A — hand-worked.
+		const b = chargingBudget({ alternatorA: 110, vehicleLoadA: 25, addedLoadA: 22, material: 'cca' });
+		expect(b.upgrade.map((u) => [u.awg, u.material])).toEqual([
+			['2', 'cca'],
+			['2', 'cca'],
+			['2', 'cca']
+		]);
+		expect(b.basis).toMatch(/copper-clad aluminium/);
+		expect(chargingBudget({ alternatorA: 110, vehicleLoadA: 25, addedLoadA: 22 }).basis).toMatch(/copper \(OFC\)/);
+	});
+
 	it('says when no stocked cable carries the output', () => {
 		// Chassis wiring 0 AWG carries 245 A, the heaviest stocked gauge.
 		const b = chargingBudget({ alternatorA: 300, vehicleLoadA: 30, addedLoadA: 200 });

@@ -360,8 +360,8 @@ export function readCoilWiring(f: Fields<CoilFields>): Read<CoilFields, { driver
 
 // ---- Charging budget ----
 
-export type ChargingFields = 'alternatorA' | 'alternatorIdleA' | 'vehicleLoadA' | 'addedLoadA' | 'restingV' | 'runningV';
-export const CHARGING_DEFAULTS: Record<ChargingFields, string> = { alternatorA: '', alternatorIdleA: '', vehicleLoadA: '', addedLoadA: '', restingV: '', runningV: '' };
+export type ChargingFields = 'alternatorA' | 'alternatorIdleA' | 'vehicleLoadA' | 'addedLoadA' | 'restingV' | 'runningV' | 'material';
+export const CHARGING_DEFAULTS: Record<ChargingFields, string> = { alternatorA: '', alternatorIdleA: '', vehicleLoadA: '', addedLoadA: '', restingV: '', runningV: '', material: DEFAULT_MATERIAL };
 
 /** The budget's figures, and the voltmeter readings at the battery when they were taken. */
 export interface ChargingQuery {
@@ -388,7 +388,10 @@ export function readCharging(f: Fields<ChargingFields>): Read<ChargingFields, Ch
 	if (!errors.alternatorA && !errors.alternatorIdleA && alternatorIdleA !== null && alternatorIdleA > alternatorA) {
 		errors.alternatorIdleA = "The alternator's output at idle cannot be more than at cruise.";
 	}
-	return done(errors, () => ({ budget: { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA }, restingV, runningV }));
+	const cable = readMaterial(f.material);
+	if ('error' in cable) errors.material = cable.error;
+	const material = 'material' in cable ? cable.material : DEFAULT_MATERIAL;
+	return done(errors, () => ({ budget: { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA, material }, restingV, runningV }));
 }
 
 // ---- Box volume and port ----

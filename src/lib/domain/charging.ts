@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { ABYC_E11_CRITICAL_DROP_PCT, NOMINAL_VOLTS, powerWire } from './power';
+import { ABYC_E11_CRITICAL_DROP_PCT, materialSchema, NOMINAL_VOLTS, powerWire } from './power';
+import { materialBasis, type CableMaterial } from './wire';
 import { parseInput } from './validate';
 
 // The charging budget: does the alternator keep up with the vehicle's own load plus what the install
@@ -62,7 +63,8 @@ export const chargingInputSchema = z
 				'battery-body': runLength('Battery to body length').default(DEFAULT_RUN_LENGTHS_M['battery-body']),
 				'engine-body': runLength('Engine to body length').default(DEFAULT_RUN_LENGTHS_M['engine-body'])
 			})
-			.default({ ...DEFAULT_RUN_LENGTHS_M })
+			.default({ ...DEFAULT_RUN_LENGTHS_M }),
+		material: materialSchema
 	})
 	.refine((v) => v.alternatorIdleA === null || v.alternatorIdleA <= v.alternatorA, {
 		message: "The alternator's output at idle cannot be more than at cruise.",
@@ -79,6 +81,7 @@ export interface CableUpgrade {
 	/** The gauge that carries the alternator's full output within the drop target; null when no stocked cable does. */
 	awg: string | null;
 	dropPct: number | null;
+	material: CableMaterial;
 	reason?: string;
 }
 
@@ -98,14 +101,14 @@ export interface ChargingBudget {
 const a1 = (x: number) => `${Math.round(x * 10) / 10} A`;
 
 /** The gauge for one charging cable: the alternator's full output within the critical drop, on the power-wire rules. */
-function chargingCable(run: ChargingRun, lengthM: number, alternatorA: number): CableUpgrade {
+function chargingCable(run: ChargingRun, lengthM: number, alternatorA: number, material: CableMaterial): CableUpgrade {
 	const name = CHARGING_RUN_NAMES[run];
-	const sized = powerWire({ currentA: alternatorA, powerLengthM: lengthM, groundLengthM: 0, maxDropPct: ABYC_E11_CRITICAL_DROP_PCT });
+	const sized = powerWire({ currentA: alternatorA, powerLengthM: lengthM, groundLengthM: 0, maxDropPct: ABYC_E11_CRITICAL_DROP_PCT, material });
 	// A charging cable carries the whole output unfused (or behind the maker's own link), so it is sized
 	// on drop and ampacity alone; the stocked gauges come thinnest first.
 	const pick = sized.candidates.find((c) => c.meetsDrop && c.carriesCurrent);
-	if (!pick) return { run, name, lengthM, awg: null, dropPct: null, reason: `No stocked cable carries ${a1(alternatorA)} within ${ABYC_E11_CRITICAL_DROP_PCT} % over ${lengthM} m; run two cables side by side.` };
-	return { run, name, lengthM, awg: pick.awg, dropPct: pick.dropPct };
+	if (!pick) return { run, name, lengthM, awg: null, dropPct: null, material, reason: `No stocked cable carries ${a1(alternatorA)} within ${ABYC_E11_CRITICAL_DROP_PCT} % over ${lengthM} m; run two cables side by side.` };
+	return { run, name, lengthM, awg: pick.awg, dropPct: pick.dropPct, material };
 }
 
 /**
@@ -114,7 +117,7 @@ function chargingCable(run: ChargingRun, lengthM: number, alternatorA: number): 
  * basis, since music at listening level averages far less.
  */
 export function chargingBudget(input: ChargingInput): ChargingBudget {
-	const { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA, runLengthsM } = parseInput(chargingInputSchema, input);
+	const { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA, runLengthsM, material } = parseInput(chargingInputSchema, input);
 	const totalA = vehicleLoadA + addedLoadA;
 	const headroomA = alternatorA - totalA;
 	const idleHeadroomA = alternatorIdleA === null ? null : alternatorIdleA - totalA;
@@ -139,11 +142,11 @@ export function chargingBudget(input: ChargingInput): ChargingBudget {
 	}
 
 	const advised = addedLoadA >= UPGRADE_SHARE * alternatorA;
-	const upgrade = advised ? CHARGING_RUNS.map((run) => chargingCable(run, runLengthsM[run], alternatorA)) : [];
+	const upgrade = advised ? CHARGING_RUNS.map((run) => chargingCable(run, runLengthsM[run], alternatorA, material)) : [];
 	const upgradeAdvice = advised
 		? `The install adds ${a1(addedLoadA)}, a fifth or more of the alternator's ${a1(alternatorA)} (common practice): upgrade the three charging cables so each carries the alternator's full output.`
 		: `The install adds less than a fifth of the alternator's output (common practice): the maker's charging cables can stay.`;
-	const basis = `Draw as entered, at full continuous output (the conservative basis). Charging cables carry the alternator's full ${a1(alternatorA)} within ${ABYC_E11_CRITICAL_DROP_PCT} % drop at ${NOMINAL_VOLTS} V (ABYC E-11 formula) and within the chassis-wiring ampacity. A battery at rest reads about ${RESTING_VOLTS} V fully charged; with the engine running, ${RUNNING_VOLTS_MIN}–${RUNNING_VOLTS_MAX} V (common practice).`;
+	const basis = `Draw as entered, at full continuous output (the conservative basis). Charging cables carry the alternator's full ${a1(alternatorA)} within ${ABYC_E11_CRITICAL_DROP_PCT} % drop at ${NOMINAL_VOLTS} V (ABYC E-11 formula) and within the chassis-wiring ampacity, in ${materialBasis(material)}. A battery at rest reads about ${RESTING_VOLTS} V fully charged; with the engine running, ${RUNNING_VOLTS_MIN}–${RUNNING_VOLTS_MAX} V (common practice).`;
 	return { verdict, words, totalA, headroomA, idleHeadroomA, upgrade, upgradeAdvice, basis };
 }
 

@@ -354,7 +354,7 @@ export function jobSheet(input: JobSheetInput): JobSheet {
 		else {
 			const alternatorIdle = alternatorIdleA !== null && alternatorIdleA <= alternatorCruiseA ? alternatorIdleA : null;
 			try {
-				charging = chargingBudget({ alternatorA: alternatorCruiseA, alternatorIdleA: alternatorIdle, vehicleLoadA: input.vehicleLoadA, addedLoadA: currentA });
+				charging = chargingBudget({ alternatorA: alternatorCruiseA, alternatorIdleA: alternatorIdle, vehicleLoadA: input.vehicleLoadA, addedLoadA: currentA, material });
 			} catch (e) {
 				gaps.push(`Charging budget: ${(e as Error).message}`);
 			}
