@@ -7,7 +7,7 @@ export default {
 		extend: {
 			fontFamily: {
 				serif: ['Merriweather', 'Georgia', 'serif'],
-				sans: ['"IBM Plex Sans"', 'system-ui', 'sans-serif']
+				sans: ['"IBM Plex Sans Variable"', 'system-ui', 'sans-serif']
 			}
 		}
 	}

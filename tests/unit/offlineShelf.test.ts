@@ -47,9 +47,11 @@ describe('shellFiles', () => {
 			'/_app/immutable/assets/ibm-plex-sans-latin-400-normal.CYLoc0-x.woff',
 			'/_app/immutable/assets/ibm-plex-sans-latin-ext-400-normal.C5H60-Va.woff2',
 			'/_app/immutable/assets/merriweather-cyrillic-700-normal.x.woff2',
-			'/favicon.svg'
+			'/favicon.svg',
+			'/_app/immutable/assets/ibm-plex-sans-latin-wght-normal.D3x1.woff2',
+			'/_app/immutable/assets/ibm-plex-sans-greek-wght-normal.D3x2.woff2'
 		];
-		expect(shellFiles(files)).toEqual([files[0], files[1], files[2], files[6]]);
+		expect(shellFiles(files)).toEqual([files[0], files[1], files[2], files[6], files[7]]);
 	});
 });
 

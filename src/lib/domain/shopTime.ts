@@ -20,13 +20,20 @@ export const timeZoneSchema = z
 /** A zone to format with: an unknown or missing one reads as UTC rather than failing a page. */
 export function usableZone(zone: string | null | undefined): string {
 	if (!zone) return DEFAULT_TIME_ZONE;
-	try {
-		new Intl.DateTimeFormat('en', { timeZone: zone });
-		return zone;
-	} catch {
-		return DEFAULT_TIME_ZONE;
+	let usable = checkedZones.get(zone);
+	if (usable === undefined) {
+		try {
+			new Intl.DateTimeFormat('en', { timeZone: zone });
+			usable = zone;
+		} catch {
+			usable = DEFAULT_TIME_ZONE;
+		}
+		// Building a formatter is the costly part of every date on a page; a zone is checked once.
+		if (checkedZones.size < 1000) checkedZones.set(zone, usable);
 	}
+	return usable;
 }
+const checkedZones = new Map<string, string>();
 
 // English locales whose short names are letters ("CEST", "EDT", "AEST", "IST", "NZST"); else "GMT+5:45".
 const NAME_LOCALES = ['en-US', 'en-GB', 'en-AU', 'en-NZ', 'en-IN', 'en-CA'];
