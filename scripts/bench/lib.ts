@@ -31,7 +31,7 @@ export function benchDatabase(name: string, port: number, bufferPool = '512M') {
 export async function startBuiltApp(port: number, env: NodeJS.ProcessEnv): Promise<ChildProcess> {
 	execFileSync('bash', ['-c', 'source scripts/lib.sh && ensure_build'], { stdio: 'inherit' });
 	const child = spawn('node', [...(process.env.BENCH_NODE_ARGS ?? '').split(' ').filter(Boolean), 'server.js'], {
-		env: { ...process.env, ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}`, NODE_ENV: 'production' },
+		env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}`, NODE_ENV: 'production', ...env },
 		stdio: ['ignore', 'ignore', 'inherit']
 	});
 	for (let i = 0; i < 200; i++) {
