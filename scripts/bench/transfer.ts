@@ -16,6 +16,11 @@ const DB_PORT = Number(process.env.BENCH_DB_PORT ?? 3347);
 const APP_PORT = Number(process.env.BENCH_APP_PORT ?? 3348);
 const FIRST_VIEW_KB = 150;
 const REPEAT_VIEW_KB = 20;
+const MAIN_CONTENT_MS = 2000;
+// A mid-range phone on a weak mobile signal: 150 ms round trip, 1.6 Mbit/s down, 750 kbit/s up, the CPU four
+// times slower than this machine's (the usual "slow 4G" profile of browser developer tools).
+const PHONE_NETWORK = { offline: false, latency: 150, downloadThroughput: (1.6 * 1024 * 1024) / 8, uploadThroughput: (750 * 1024) / 8 };
+const PHONE_CPU_SLOWDOWN = 4;
 
 const db = benchDatabase('transfer', DB_PORT);
 db.start();
@@ -107,6 +112,35 @@ async function measure(page: Page, url: string): Promise<Transfer> {
 	return result;
 }
 
+/** First and largest contentful paint of a first view (empty cache, no service worker) on the throttled phone profile. */
+async function paintOnPhone(page: Page, url: string): Promise<{ fcpMs: number; lcpMs: number }> {
+	await page.goto('about:blank');
+	const cdp = await page.context().newCDPSession(page);
+	await cdp.send('Network.enable');
+	await cdp.send('Network.clearBrowserCache');
+	await cdp.send('Storage.clearDataForOrigin', { origin: base, storageTypes: 'cache_storage,service_workers' });
+	await cdp.send('Network.emulateNetworkConditions', PHONE_NETWORK);
+	await cdp.send('Emulation.setCPUThrottlingRate', { rate: PHONE_CPU_SLOWDOWN });
+	try {
+		await page.goto(url, { waitUntil: 'load' });
+		return await page.evaluate(
+			() =>
+				new Promise<{ fcpMs: number; lcpMs: number }>((resolve) => {
+					const fcp = performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? NaN;
+					let lcp = NaN;
+					new PerformanceObserver((list) => {
+						for (const entry of list.getEntries()) lcp = entry.startTime;
+					}).observe({ type: 'largest-contentful-paint', buffered: true });
+					setTimeout(() => resolve({ fcpMs: fcp, lcpMs: lcp }), 500);
+				})
+		);
+	} finally {
+		await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
+		await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+		await cdp.detach();
+	}
+}
+
 try {
 	const page = await browser.newPage();
 	await page.goto(`${base}/signin`, { waitUntil: 'networkidle' });
@@ -133,6 +167,7 @@ try {
 	const keptForOffline = wireBytes - beforeKeeping;
 	await page.goto('about:blank');
 	const repeat = await measure(page, url);
+	const throttled = await paintOnPhone(page, url);
 	const kb = (b: number) => (b / 1024).toFixed(1);
 	const kinds = (t: Transfer) =>
 		Object.entries(t.byKind)
@@ -140,7 +175,7 @@ try {
 			.map(([k, b]) => `${k} ${kb(b)} KB`)
 			.join(', ');
 	const mark = (ok: boolean) => (ok ? 'met' : 'MISSED');
-	writeResults('transfer', { slug, first, keptForOffline, repeat, loadAverage: loadavg() });
+	writeResults('transfer', { slug, first, keptForOffline, repeat, throttled, loadAverage: loadavg() });
 	console.log(`
 what a phone downloads for /vehicles/${slug} (390 px, headless Chromium, loopback)
   first view, empty cache   ${kb(first.bytes)} KB in ${first.requests} requests (target ≤ ${FIRST_VIEW_KB} KB) [${mark(first.bytes <= FIRST_VIEW_KB * 1024)}] · on the wire with headers ${kb(first.wireBytes)} KB
@@ -148,8 +183,7 @@ what a phone downloads for /vehicles/${slug} (390 px, headless Chromium, loopbac
     largest: ${first.largest.map(([u, b]) => `${u} ${kb(b)} KB`).join(', ')}
   then, in the background, the service worker keeps the app for offline use: ${kb(keptForOffline)} KB
   repeat view, warm cache   ${kb(repeat.wireBytes)} KB on the wire, ${repeat.requests} requests, ${repeat.fromCache} answered by the cache or the service worker (target ≤ ${REPEAT_VIEW_KB} KB) [${mark(repeat.wireBytes <= REPEAT_VIEW_KB * 1024)}]
-    ${kinds(repeat)}
-    largest: ${repeat.largest.map(([u, b]) => `${u} ${kb(b)} KB`).join(', ')}
+  first view on a throttled phone (150 ms, 1.6 Mbit/s, CPU ÷${PHONE_CPU_SLOWDOWN}): first paint ${throttled.fcpMs.toFixed(0)} ms · main content (largest paint) ${throttled.lcpMs.toFixed(0)} ms (target < ${MAIN_CONTENT_MS} ms) [${mark(throttled.lcpMs < MAIN_CONTENT_MS)}]
 `);
 } finally {
 	await browser.close();
