@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import { db } from '../db';
-import { Confirmation, User, Vehicle } from '../db/models';
+import { Confirmation, Vehicle } from '../db/models';
 import { canonicalJson, FIELD_INFO, type VehicleContent } from '../../domain/content/schema';
 import { describePath, parsePath, patternOf, valueAtPath, formatFieldValue } from '../../domain/content/fieldDiff';
 import type { UnitSystem } from '../../domain/units';
@@ -165,13 +165,26 @@ export async function trustSummary(vehicleId: number, readerRevisionId: number |
 	return summaries.get(key, () => computeTrustSummary(vehicleId, readerRevisionId, units));
 }
 
+type MarkRow = {
+	id: number | string;
+	revisionId: number | string;
+	userId: number | string;
+	kind: 'confirm' | 'flag';
+	fieldPath: string | null;
+	note: string;
+	createdAt: Date;
+	userName: string | null;
+};
+
 async function computeTrustSummary(vehicleId: number, currentId: number | null, units: UnitSystem): Promise<TrustSummary> {
-	const rows = await Confirmation.findAll({
-		where: { vehicleId },
-		include: [{ model: User, as: 'user', attributes: ['name'] }],
-		order: [['createdAt', 'DESC'], ['id', 'DESC']]
-	});
-	const nameOf = (r: Confirmation) => (r as Confirmation & { user?: User | null }).user?.name ?? 'unknown';
+	// One plain query on a page's marks (read on every first view of a page), newest first.
+	const rows = await db().query<MarkRow>(
+		`SELECT c.id, c.revision_id AS revisionId, c.user_id AS userId, c.kind, c.field_path AS fieldPath, c.note, c.created_at AS createdAt, u.name AS userName
+		FROM confirmations c LEFT JOIN users u ON u.id = c.user_id
+		WHERE c.vehicle_id = ? ORDER BY c.created_at DESC, c.id DESC`,
+		{ replacements: [vehicleId], type: QueryTypes.SELECT }
+	);
+	const nameOf = (r: MarkRow) => r.userName ?? 'unknown';
 
 	const confirms = rows.filter((r) => r.kind === 'confirm');
 	const installers = new Set(confirms.map((r) => r.userId)).size;
