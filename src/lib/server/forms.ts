@@ -63,10 +63,12 @@ export async function formAction<T, V = Record<string, string>>(
 	}
 }
 
-/** The named fields as text; a missing field or a file reads as "". */
-export function textFields(posted: FormData, names: readonly string[]): Record<string, string> {
-	return Object.fromEntries(names.map((name) => {
-		const value = posted.get(name);
-		return [name, typeof value === 'string' ? value : ''];
-	}));
+/** The named fields of a posted form or a query string as text; a missing field or a file reads as "". */
+export function textFields<K extends string>(posted: { get(name: string): FormDataEntryValue | null }, names: readonly K[]): Record<K, string> {
+	return Object.fromEntries(
+		names.map((name) => {
+			const value = posted.get(name);
+			return [name, typeof value === 'string' ? value : ''];
+		})
+	) as Record<K, string>;
 }

@@ -1,6 +1,7 @@
 import type { PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { asHttpError } from '$lib/server/http';
+import { textFields } from '$lib/server/forms';
 import { requireVehicle } from '$lib/server/services/vehicles';
 import { requirePageRevision } from '$lib/server/services/visibility';
 import { listParts, partsByIds } from '$lib/server/services/parts';
@@ -79,30 +80,15 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			evidence,
 			trust,
 			form: {
+				// What was typed comes back as typed, so the form shows it beside the sheet.
+				...textFields(q, ['power', 'ground', 'branch', 'remoteOut', 'subPart', 'subCount', 'subCoils', 'subOhms', 'subAmp', 'wiring', 'vehicleLoad', 'remote', 'speaker', 'speakers', 'cores', 'seat', 'speakerAt']),
 				parts: sheetParts.map((p) => String(p.id)),
 				run: sheet.powerRun.id ?? '',
-				power: q.get('power') ?? '',
-				ground: q.get('ground') ?? '',
-				branch: q.get('branch') ?? '',
 				material: read.material,
-				remoteOut: q.get('remoteOut') ?? '',
 				ampRows: read.ampRows,
-				subPart: q.get('subPart') ?? '',
-				subCount: q.get('subCount') ?? '',
-				subCoils: q.get('subCoils') ?? '',
-				subOhms: q.get('subOhms') ?? '',
-				subAmp: q.get('subAmp') ?? '',
 				bridged: q.get('bridged') === 'on',
-				wiring: q.get('wiring') ?? '',
-				vehicleLoad: q.get('vehicleLoad') ?? '',
 				box: read.box,
-				remote: q.get('remote') ?? '',
-				speaker: q.get('speaker') ?? '',
-				speakers: q.get('speakers') ?? '',
-				cores: q.get('cores') ?? '',
 				remoteInCable: q.get('remoteInCable') === 'on',
-				seat: q.get('seat') ?? '',
-				speakerAt: q.get('speakerAt') ?? '',
 				unit
 			},
 			customer: read.customer,
