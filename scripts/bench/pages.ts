@@ -197,17 +197,17 @@ try {
 		const first = results.renderFirstViewMs;
 		const second = results.renderSecondViewMs;
 		console.log(`
-	run ${run} of ${RUNS} · vehicle page, ${VEHICLES} vehicles / ${revisionId} revisions (server time seen by a client on loopback; load average ${loadavg().map((l) => l.toFixed(2)).join(' ')})
-	  first view of a page, sequential        p50 ${fmt(first.p50)}  p95 ${fmt(first.p95)}  (target p95 ≤ 10 ms) [${mark(first.p95 <= 10)}]
-	  first view of other pages, sequential   p50 ${fmt(second.p50)}  p95 ${fmt(second.p95)}  (target p95 ≤ 10 ms) [${mark(second.p95 <= 10)}]
-	  history, ${LONG_HISTORY} revisions                  p50 ${fmt(results.history500Ms.p50)}  p95 ${fmt(results.history500Ms.p95)}
-	  compare, two large revisions            p50 ${fmt(results.compareLargeMs.p50)}  p95 ${fmt(results.compareLargeMs.p95)}
-	autocannon, 50 connections, signed in as a viewer, one page again and again (target: ratio to plain ≥ 0.5, p99 ≤ 100 ms)
-	${line('full')}
-	${line('sparse')}
-	autocannon, 50 connections, a different page each request (${mixed.distinctPages} pages, each a first view) (target: ≥ 0.15 of plain, p99 ≤ 250 ms)
-	  ${mixed.rps.toFixed(0)} req/s · ${distinctRatio.toFixed(3)} of plain (${throughput.full.plainRps.toFixed(0)} req/s, full page) · p50 ${mixed.p50} ms · p99 ${mixed.p99} ms · non-2xx ${mixed.non2xx} [${mark(distinctRatio >= 0.15 && mixed.p99 <= 250)}]
-	`);
+run ${run} of ${RUNS} · vehicle page, ${VEHICLES} vehicles / ${revisionId} revisions (server time seen by a client on loopback; load average ${loadavg().map((l) => l.toFixed(2)).join(' ')})
+  first view of a page, sequential        p50 ${fmt(first.p50)}  p95 ${fmt(first.p95)}  (target p95 ≤ 10 ms) [${mark(first.p95 <= 10)}]
+  first view of other pages, sequential   p50 ${fmt(second.p50)}  p95 ${fmt(second.p95)}  (target p95 ≤ 10 ms) [${mark(second.p95 <= 10)}]
+  history, ${LONG_HISTORY} revisions                  p50 ${fmt(results.history500Ms.p50)}  p95 ${fmt(results.history500Ms.p95)}
+  compare, two large revisions            p50 ${fmt(results.compareLargeMs.p50)}  p95 ${fmt(results.compareLargeMs.p95)}
+autocannon, 50 connections, signed in as a viewer, one page again and again (target: ratio to plain ≥ 0.5, p99 ≤ 100 ms)
+${line('full')}
+${line('sparse')}
+autocannon, 50 connections, a different page each request (${mixed.distinctPages} pages, each a first view) (target: ≥ 0.15 of plain, p99 ≤ 250 ms)
+  ${mixed.rps.toFixed(0)} req/s · ${distinctRatio.toFixed(3)} of plain (${throughput.full.plainRps.toFixed(0)} req/s, full page) · p50 ${mixed.p50} ms · p99 ${mixed.p99} ms · non-2xx ${mixed.non2xx} [${mark(distinctRatio >= 0.15 && mixed.p99 <= 250)}]
+`);
 	}
 } finally {
 	plain?.close();

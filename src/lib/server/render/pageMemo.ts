@@ -5,6 +5,7 @@
 // instead of being rebuilt. The data is read through the same short-lived caches the loads use, so a
 // reused page is never staler than a freshly rendered one would be: any change — a new revision, a
 // trust mark, a watch, a role, the reader's units — changes the data, and so the key.
+import { createHash } from 'node:crypto';
 import type { Handle, RequestEvent } from '@sveltejs/kit';
 
 type Entry = { body: Uint8Array<ArrayBuffer>; headers: [string, string][] };
@@ -30,14 +31,32 @@ export function isPlainData(value: unknown): boolean {
 	return Object.values(value as object).every(isPlainData);
 }
 
-/** A size-bounded store of rendered pages, least recently used first out. */
+/**
+ * A size-bounded store of rendered pages, least recently used first out. A page is kept from its second
+ * render on: most pages a shop opens are read once in a while, and keeping each of those would only
+ * push out the pages that are read again and leave large garbage behind.
+ */
 export class PageMemo {
 	private entries = new Map<string, Entry>();
 	private used = 0;
+	// Digests of keys rendered once lately (oldest first out), so a key's second render is recognised.
+	private renderedOnce = new Set<string>();
 	hits = 0;
 	misses = 0;
 
-	constructor(private readonly maxBytes: number) {}
+	constructor(
+		private readonly maxBytes: number,
+		private readonly rememberedKeys = 50_000
+	) {}
+
+	/** Whether a page just rendered under `key` should be kept: true when it was rendered once before lately. */
+	admits(key: string): boolean {
+		const digest = createHash('sha1').update(key).digest('base64');
+		if (this.renderedOnce.delete(digest)) return true;
+		this.renderedOnce.add(digest);
+		if (this.renderedOnce.size > this.rememberedKeys) this.renderedOnce.delete(this.renderedOnce.values().next().value!);
+		return false;
+	}
 
 	get size() {
 		return this.entries.size;
@@ -124,6 +143,7 @@ export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Pro
 			!response.headers.has('etag') || // streamed responses carry no ETag and are not kept
 			response.headers.has('set-cookie') ||
 			!response.headers.get('content-type')?.startsWith('text/html') ||
+			!memo.admits(key) ||
 			!isPlainData(seen)
 		) {
 			return response;
