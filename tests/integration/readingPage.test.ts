@@ -14,6 +14,7 @@ import { forgetShopSettings } from '../../src/lib/server/services/settings';
 import { vehiclePageData } from '../../src/lib/server/views/vehiclePage';
 import { RENDERER } from '../../src/lib/server/render/readingPage';
 import { PAGE_SQL } from '../../src/lib/server/services/renderedPages';
+import { confirmPage, flagField, forgetTrustSummaries, trustSummary } from '../../src/lib/server/services/trust';
 
 // The reading view's stored parts: written with each revision, shared by every reader, and never showing a
 // reader a body they may not read or one older than the page.
@@ -146,7 +147,7 @@ describe('stored parts of a vehicle page', () => {
 });
 
 describe('database work for a page view', () => {
-	it('reads a page nobody opened since its last change with two queries', async () => {
+	it('reads a page nobody opened since its last change, with its trust marks, in one query', async () => {
 		const other = await createVehicle(emptyContent({ make: 'Ostrel', model: 'Quarn', yearFrom: 2001, yearTo: 2005, body: 'coupe' }), moderator);
 		// The shop settings and the reader's followed pages are read once per reader, not per page.
 		await view(viewer);
@@ -160,8 +161,22 @@ describe('database work for a page view', () => {
 		} finally {
 			db().removeHook('afterQuery', 'countQueries');
 		}
-		expect(seen.length).toBeLessThanOrEqual(2);
-		expect(seen.join('\n')).toContain('rendered_pages');
+		expect(seen.length).toBe(1);
+		expect(seen[0]).toContain('rendered_pages');
+		expect(seen[0]).toContain('confirmations');
+	});
+
+	it('shows the same trust marks as the trust service, and a new mark to the next view at once', async () => {
+		const page = await createVehicle(emptyContent({ make: 'Ostrel', model: 'Tessin', yearFrom: 2009, yearTo: 2013, body: 'sedan' }), moderator);
+		const id = (await view(viewer, 'metric', page.slug)).vehicle.id;
+		await confirmPage(id, { note: 'Fitted as described.' }, viewer);
+		await flagField(id, { fieldPath: null, note: 'Photos are of another trim.' }, editor);
+		const shown = (await view(viewer, 'metric', page.slug)).trust;
+		expect(shown.confirmations).toMatchObject({ installers: 1, onCurrentRevision: 1, latest: { note: 'Fitted as described.' } });
+		expect(shown.openFlags.map((f) => f.note)).toEqual(['Photos are of another trim.']);
+		// The trust service reads the marks on its own; both routes give the same summary.
+		forgetTrustSummaries();
+		expect(JSON.parse(JSON.stringify(await trustSummary(id, page.revisionId, 'metric')))).toEqual(JSON.parse(JSON.stringify(shown)));
 	});
 
 	it('finds the stored parts by their primary key, joined on the revision digest', async () => {

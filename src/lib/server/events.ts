@@ -37,6 +37,18 @@ export function announceVehicleChange(vehicleId: number): void {
 	for (const listener of vehicleListeners) listener(vehicleId);
 }
 
+/** A trust mark (a confirmation or a flag) was made on a page: copies of its marks must go. */
+const markListeners = new Set<(vehicleId: number) => void>();
+
+export function onMarksChanged(listener: (vehicleId: number) => void): () => void {
+	markListeners.add(listener);
+	return () => markListeners.delete(listener);
+}
+
+export function announceMarks(vehicleId: number): void {
+	for (const listener of markListeners) listener(vehicleId);
+}
+
 /** A person's account, role, status, block, password or preferences changed: cached copies must go. */
 const accountListeners = new Set<(userId: number) => void>();
 

@@ -6,7 +6,7 @@ import { dev, version } from '$app/environment';
 import type { SectionKey, VehicleContent } from '../../domain/content/schema';
 import type { UnitSystem } from '../../domain/units';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
-import { onRevisionWritten, onVehicleChanged } from '../events';
+import { onMarksChanged, onRevisionWritten, onVehicleChanged } from '../events';
 import { revisionById } from '../services/revisions';
 import {
 	currentRevisionsMissingParts,
@@ -62,6 +62,8 @@ export type ReadingPage = Omit<PageForReading, 'parts'> & { parts: ReadingParts 
 const pages = lookupCache<string, ReadingPage | null>(SHARED_STATE_TTL_MS, 500);
 onRevisionWritten(() => pages.clear());
 onVehicleChanged(() => pages.clear());
+// The page comes with its trust marks.
+onMarksChanged(() => pages.clear());
 
 /** A page, its newest revision and that revision's parts in the reader's units (rendered and stored when missing). */
 export function readingPage(slug: string, units: UnitSystem): Promise<ReadingPage | null> {

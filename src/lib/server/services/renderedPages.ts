@@ -9,6 +9,7 @@ import { readingRules } from './readingRules';
 import { pageRevision } from './visibility';
 import type { StoredRevision } from './revisions';
 import type { VehicleSummary } from './vehicles';
+import { marksFromJson, marksJsonSql, type MarkRow } from './trust';
 
 /** What the reading view's header says of the revision it shows; its content is in the stored parts. */
 export type RevisionHead = {
@@ -21,8 +22,8 @@ export type RevisionHead = {
 	reviewedAt: Date | null;
 };
 
-/** A page as the reading view finds it: its row, its newest revision, and that revision's stored parts (JSON) if any. */
-export type PageForReading = { vehicle: VehicleSummary; latest: RevisionHead | null; parts: string | null };
+/** A page as the reading view finds it: its row, its newest revision, that revision's stored parts (JSON) if any, and its trust marks. */
+export type PageForReading = { vehicle: VehicleSummary; latest: RevisionHead | null; parts: string | null; marks: MarkRow[] };
 
 type Row = {
 	id: number;
@@ -42,13 +43,14 @@ type Row = {
 	createdAt: Date | null;
 	authorName: string | null;
 	parts: string | null;
+	marks: unknown;
 };
 
-// Every join is on a primary key, the page on its unique slug.
+// Every join is on a primary key, the page on its unique slug; the page's trust marks come along (by page and time).
 export const PAGE_SQL = `SELECT v.id, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, v.body, v.latest_revision_id AS latestRevisionId,
 		v.protection, mk.name AS make, mo.name AS model,
 		r.id AS revisionId, r.sha256, r.summary, r.hidden, r.reviewed_at AS reviewedAt, r.created_at AS createdAt, u.name AS authorName,
-		rp.parts
+		rp.parts, ${marksJsonSql('v.id')} AS marks
 	FROM vehicles v
 	JOIN makes mk ON mk.id = v.make_id
 	JOIN models mo ON mo.id = v.model_id
@@ -83,7 +85,7 @@ export async function pageForReading(slug: string, units: UnitSystem, renderer: 
 					hidden: !!row.hidden,
 					reviewedAt: row.reviewedAt
 				};
-	return { vehicle, latest, parts: row.parts };
+	return { vehicle, latest, parts: row.parts, marks: marksFromJson(row.marks) };
 }
 
 export function revisionHead(revision: StoredRevision): RevisionHead {

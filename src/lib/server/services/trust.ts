@@ -10,13 +10,17 @@ import { roleAtLeast } from '../../domain/roles';
 import { revisionById } from './revisions';
 import { pageRevision } from './visibility';
 import { ServiceError } from '../errors';
-import { onRevisionWritten } from '../events';
+import { announceMarks, onMarksChanged, onRevisionWritten } from '../events';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 import type { TrustFlag, TrustSummary } from '../../domain/trust';
 
 // Shown on every page view; this process's confirmations, flags and saves clear it at once.
 const summaries = lookupCache<string, TrustSummary>(SHARED_STATE_TTL_MS);
 onRevisionWritten(() => summaries.clear());
+onMarksChanged(() => summaries.clear());
+
+/** Drops every kept summary, as another server's write does after SHARED_STATE_TTL_MS. */
+export const forgetTrustSummaries = () => summaries.clear();
 
 // Installers' marks on a page: "fitted as described" for a revision, or a measurement flagged as
 // wrong. A flag stays open while the flagged field still holds the value it had when flagged;
@@ -104,7 +108,7 @@ export async function confirmPage(vehicleId: number, input: unknown, user: Sessi
 		const row = await Confirmation.create({ vehicleId, revisionId: revision.id, userId: user.id, kind: 'confirm', fieldPath: null, note: parsed.data.note }, { transaction });
 		return { id: Number(row.id), created: true };
 	});
-	summaries.clear();
+	announceMarks(vehicleId);
 	return result;
 }
 
@@ -150,7 +154,7 @@ export async function flagField(vehicleId: number, input: unknown, user: Session
 		}
 		return Confirmation.create({ ...mine, revisionId: revision.id, fieldPath, note }, { transaction });
 	});
-	summaries.clear();
+	announceMarks(vehicleId);
 	return { id: Number(row.id) };
 }
 
@@ -161,11 +165,10 @@ const same = (a: unknown, b: unknown) => canonicalJson(a ?? null) === canonicalJ
  * reader reads as the page (labels and values never come from a revision they may not read).
  */
 export async function trustSummary(vehicleId: number, readerRevisionId: number | null, units: UnitSystem = 'metric'): Promise<TrustSummary> {
-	const key = `${vehicleId}:${readerRevisionId}:${units}`;
-	return summaries.get(key, () => computeTrustSummary(vehicleId, readerRevisionId, units));
+	return summaries.get(`${vehicleId}:${readerRevisionId}:${units}`, () => computeTrustSummary(vehicleId, readerRevisionId, units));
 }
 
-type MarkRow = {
+export type MarkRow = {
 	id: number | string;
 	revisionId: number | string;
 	userId: number | string;
@@ -176,14 +179,40 @@ type MarkRow = {
 	userName: string | null;
 };
 
+/**
+ * A page's marks as one JSON array, newest first, for a query that reads the page with its marks (the reading
+ * view's); `vehicleIdSql` names the page's id in that query. The connection's time zone is UTC.
+ */
+export const marksJsonSql = (vehicleIdSql: string) => `(SELECT JSON_ARRAYAGG(JSON_OBJECT(
+		'id', c.id, 'revisionId', c.revision_id, 'userId', c.user_id, 'kind', c.kind, 'fieldPath', c.field_path, 'note', c.note,
+		'createdAt', CONCAT(DATE_FORMAT(c.created_at, '%Y-%m-%dT%H:%i:%s.'), LPAD(FLOOR(MICROSECOND(c.created_at) / 1000), 3, '0'), 'Z'),
+		'userName', cu.name) ORDER BY c.created_at DESC, c.id DESC)
+	FROM confirmations c LEFT JOIN users cu ON cu.id = c.user_id WHERE c.vehicle_id = ${vehicleIdSql})`;
+
+/** The marks `marksJsonSql` read, as rows (the driver may hand the JSON over as text or already parsed). */
+export function marksFromJson(json: unknown): MarkRow[] {
+	if (!json) return [];
+	const rows = (typeof json === 'string' ? JSON.parse(json) : json) as (Omit<MarkRow, 'createdAt'> & { createdAt: string })[];
+	return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt) }));
+}
+
+/** The trust summary from a page's marks already read with the page (see marksJsonSql); shares trustSummary's cache. */
+export function trustSummaryFromMarks(vehicleId: number, readerRevisionId: number | null, units: UnitSystem, marks: MarkRow[]): Promise<TrustSummary> {
+	return summaries.get(`${vehicleId}:${readerRevisionId}:${units}`, () => summarise(vehicleId, readerRevisionId, units, marks));
+}
+
 async function computeTrustSummary(vehicleId: number, currentId: number | null, units: UnitSystem): Promise<TrustSummary> {
-	// One plain query on a page's marks (read on every first view of a page), newest first.
+	// One plain query on a page's marks, newest first.
 	const rows = await db().query<MarkRow>(
 		`SELECT c.id, c.revision_id AS revisionId, c.user_id AS userId, c.kind, c.field_path AS fieldPath, c.note, c.created_at AS createdAt, u.name AS userName
 		FROM confirmations c LEFT JOIN users u ON u.id = c.user_id
 		WHERE c.vehicle_id = ? ORDER BY c.created_at DESC, c.id DESC`,
 		{ replacements: [vehicleId], type: QueryTypes.SELECT }
 	);
+	return summarise(vehicleId, currentId, units, rows);
+}
+
+async function summarise(vehicleId: number, currentId: number | null, units: UnitSystem, rows: MarkRow[]): Promise<TrustSummary> {
 	const nameOf = (r: MarkRow) => r.userName ?? 'unknown';
 
 	const confirms = rows.filter((r) => r.kind === 'confirm');

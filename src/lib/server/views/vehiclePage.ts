@@ -3,7 +3,7 @@ import { requireRole } from '../auth/guard';
 import { vehicleBySlug } from '../services/vehicles';
 import { readableHead } from '../services/renderedPages';
 import { isWatching } from '../services/watch';
-import { trustSummary } from '../services/trust';
+import { trustSummaryFromMarks } from '../services/trust';
 import { canEditVehicle } from '../services/revisions';
 import { vehicleSlug } from '../../domain/slug';
 import { deliverBody } from '../render/vehicleBody';
@@ -35,7 +35,7 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 	if (!revision || !parts) {
 		error(404, newerAwaitingReview ? 'This new page is awaiting sign-off by a moderator.' : 'This vehicle page has no saved revision yet.');
 	}
-	const trust = await trustSummary(vehicle.id, revision.id, locals.units);
+	const trust = await trustSummaryFromMarks(vehicle.id, revision.id, locals.units, page.marks);
 	const saved = Number(url.searchParams.get('saved'));
 	return {
 		vehicle,
