@@ -25,38 +25,31 @@ export async function announceRevision(event: RevisionWritten): Promise<void> {
 	}
 }
 
+/** A notice by id that cached copies must go: listeners run at once, in this process. */
+function notice() {
+	const listeners = new Set<(id: number) => void>();
+	return {
+		on(listener: (id: number) => void): () => void {
+			listeners.add(listener);
+			return () => listeners.delete(listener);
+		},
+		announce(id: number): void {
+			for (const listener of listeners) listener(id);
+		}
+	};
+}
+
 /** A page row changed without a new revision (protection). */
-const vehicleListeners = new Set<(vehicleId: number) => void>();
-
-export function onVehicleChanged(listener: (vehicleId: number) => void): () => void {
-	vehicleListeners.add(listener);
-	return () => vehicleListeners.delete(listener);
-}
-
-export function announceVehicleChange(vehicleId: number): void {
-	for (const listener of vehicleListeners) listener(vehicleId);
-}
+const vehicleChanged = notice();
+export const onVehicleChanged = vehicleChanged.on;
+export const announceVehicleChange = vehicleChanged.announce;
 
 /** A trust mark (a confirmation or a flag) was made on a page: copies of its marks must go. */
-const markListeners = new Set<(vehicleId: number) => void>();
-
-export function onMarksChanged(listener: (vehicleId: number) => void): () => void {
-	markListeners.add(listener);
-	return () => markListeners.delete(listener);
-}
-
-export function announceMarks(vehicleId: number): void {
-	for (const listener of markListeners) listener(vehicleId);
-}
+const marksChanged = notice();
+export const onMarksChanged = marksChanged.on;
+export const announceMarks = marksChanged.announce;
 
 /** A person's account, role, status, block, password or preferences changed: cached copies must go. */
-const accountListeners = new Set<(userId: number) => void>();
-
-export function onAccountChanged(listener: (userId: number) => void): () => void {
-	accountListeners.add(listener);
-	return () => accountListeners.delete(listener);
-}
-
-export function announceAccountChange(userId: number): void {
-	for (const listener of accountListeners) listener(userId);
-}
+const accountChanged = notice();
+export const onAccountChanged = accountChanged.on;
+export const announceAccountChange = accountChanged.announce;
