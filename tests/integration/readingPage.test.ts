@@ -13,7 +13,7 @@ import { markReviewed, setReviewBeforeShow } from '../../src/lib/server/services
 import { forgetShopSettings } from '../../src/lib/server/services/settings';
 import { vehiclePageData } from '../../src/lib/server/views/vehiclePage';
 import { RENDERER } from '../../src/lib/server/render/readingPage';
-import { PAGE_SQL } from '../../src/lib/server/services/renderedPages';
+import { forgetOtherBuilds, PAGE_SQL } from '../../src/lib/server/services/renderedPages';
 import { confirmPage, flagField, forgetTrustSummaries, trustSummary } from '../../src/lib/server/services/trust';
 
 // The reading view's stored parts: written with each revision, shared by every reader, and never showing a
@@ -177,6 +177,23 @@ describe('database work for a page view', () => {
 		// The trust service reads the marks on its own; both routes give the same summary.
 		forgetTrustSummaries();
 		expect(JSON.parse(JSON.stringify(await trustSummary(id, page.revisionId, 'metric')))).toEqual(JSON.parse(JSON.stringify(shown)));
+	});
+
+	it('forgets parts other builds stored long ago, and keeps this build’s and recent ones', async () => {
+		const put = (renderer: string, daysAgo: number) =>
+			db().query('INSERT INTO rendered_pages (sha256, units, renderer, parts, created_at) VALUES (?, ?, ?, ?, ?)', {
+				replacements: [`${renderer}-${daysAgo}`.padEnd(64, '0'), 'metric', renderer, '{}', new Date(Date.now() - daysAgo * 86_400_000)]
+			});
+		await put('old-build', 3);
+		await put('old-build', 2);
+		await put('rolling-build', 0);
+		await put(RENDERER, 5);
+		expect(await forgetOtherBuilds(RENDERER, new Date(Date.now() - 86_400_000), 1)).toBe(2);
+		const left = await db().query<{ renderer: string }>("SELECT renderer FROM rendered_pages WHERE renderer IN ('old-build', 'rolling-build', ?) AND parts = '{}' ORDER BY renderer", {
+			replacements: [RENDERER],
+			type: QueryTypes.SELECT
+		});
+		expect(left.map((r) => r.renderer).sort()).toEqual([RENDERER, 'rolling-build'].sort());
 	});
 
 	it('finds the stored parts by their primary key, joined on the revision digest', async () => {

@@ -11,6 +11,7 @@ import { revisionById } from '../services/revisions';
 import {
 	currentRevisionsMissingParts,
 	keptUnits,
+	forgetOtherBuilds,
 	pageForReading,
 	storedParts,
 	storeParts,
@@ -90,6 +91,8 @@ onRevisionWritten(async ({ kind, revisionId }) => {
 });
 
 const BATCH = 100;
+// How long parts stored by another build stay: long enough for a rolling restart of every app server.
+export const OTHER_BUILDS_KEPT_MS = 24 * 60 * 60 * 1000;
 
 /**
  * After a new build every page's parts are rendered again: this goes through the current revision of each
@@ -106,6 +109,8 @@ export async function renderMissingParts(): Promise<number> {
 			after = vehicleId;
 			await new Promise((resolve) => setImmediate(resolve));
 		}
-		if (batch.length < BATCH) return rendered;
+		if (batch.length < BATCH) break;
 	}
+	await forgetOtherBuilds(RENDERER, new Date(Date.now() - OTHER_BUILDS_KEPT_MS));
+	return rendered;
 }

@@ -149,3 +149,22 @@ export async function currentRevisionsMissingParts(
 	);
 	return rows.map((r) => ({ vehicleId: Number(r.vehicleId), revisionId: Number(r.revisionId), kept: (r.kept ? r.kept.split(',') : []) as UnitSystem[] }));
 }
+
+/**
+ * Forgets parts that other builds stored before `before`, a few hundred rows at a time: after a release
+ * they are never read again, while a server still running the previous build (a rolling restart) keeps
+ * its own for a while. Resolves with how many rows went.
+ */
+export async function forgetOtherBuilds(renderer: string, before: Date, batch = 500): Promise<number> {
+	let gone = 0;
+	for (;;) {
+		const n = Number(
+			await db().query('DELETE FROM rendered_pages WHERE renderer <> ? AND created_at < ? LIMIT ?', {
+				replacements: [renderer, before, batch],
+				type: QueryTypes.BULKDELETE
+			})
+		);
+		gone += n;
+		if (n < batch) return gone;
+	}
+}
