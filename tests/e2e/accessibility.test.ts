@@ -16,20 +16,26 @@ type Screen = { name: string; path: (slug: string, revisions: number[]) => strin
 const SCREENS: Screen[] = [
 	{ name: 'home', path: () => '/', role: 'viewer' },
 	{ name: 'search', path: () => '/search?q=seat', role: 'viewer' },
+	{ name: 'vehicle list', path: () => '/vehicles', role: 'viewer' },
 	{ name: 'vehicle page', path: (s) => `/vehicles/${s}`, role: 'viewer' },
+	{ name: 'flag form', path: (s) => `/vehicles/${s}/trust`, role: 'viewer' },
 	{ name: 'job sheet', path: (s) => `/vehicles/${s}/job-sheet`, role: 'viewer' },
 	{ name: 'history', path: (s) => `/vehicles/${s}/history`, role: 'viewer' },
 	{ name: 'compare', path: (s, r) => `/vehicles/${s}/compare?from=${r[1]}&to=${r[0]}`, role: 'viewer' },
 	{ name: 'editor', path: (s) => `/vehicles/${s}/edit`, role: 'editor' },
+	{ name: 'photos', path: (s) => `/vehicles/${s}/photos`, role: 'editor' },
 	{ name: 'fit check', path: (s) => `/fit?vehicle=${s}`, role: 'viewer' },
 	{ name: 'calculators', path: () => '/calc', role: 'viewer' },
 	{ name: 'power wire calculator', path: () => '/calc/power-wire', role: 'viewer' },
 	{ name: 'shop log', path: () => '/shop-log', role: 'viewer' },
 	{ name: 'following', path: () => '/following', role: 'viewer' },
+	{ name: 'parts', path: () => '/parts', role: 'viewer' },
+	{ name: 'account', path: () => '/account', role: 'viewer' },
 	{ name: 'pauses', path: () => '/admin/pauses', role: 'moderator' },
 	{ name: 'staff', path: () => '/admin/users', role: 'admin' },
 	{ name: 'shop settings', path: () => '/admin/settings', role: 'admin' },
-	{ name: 'audit', path: () => '/admin/audit', role: 'admin' }
+	{ name: 'audit', path: () => '/admin/audit', role: 'admin' },
+	{ name: 'mail queue', path: () => '/admin/outbox', role: 'admin' }
 ];
 const ROLES: Role[] = ['viewer', 'editor', 'moderator', 'admin'];
 const WIDTHS = { phone: PHONE, desk: DESKTOP };

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { AxeBuilder } from '@axe-core/playwright';
 import type { Page } from 'playwright-core';
 import { BASE, browserSession, openBrowser, PHONE, screenshot, signIn } from './browser';
 
@@ -39,8 +40,21 @@ async function changeOffline(page: Page, slug: string, height: string): Promise<
 	expect(await page.inputValue(HEIGHT)).toBe(height);
 }
 
+/** The network returns and the person opens the page again in a new tab: the banner answers for what waited. */
+async function backOnline(closed: Page, slug: string, answer: 'outbox-sent' | 'outbox-refused') {
+	await closed.context().setOffline(false);
+	const later = await nextTab();
+	await later.goto(`${BASE}/vehicles/${slug}`, { waitUntil: 'networkidle' });
+	const shown = later.getByTestId(answer);
+	await shown.waitFor({ timeout: 20_000 });
+	return { later, answer: shown };
+}
+
 const driverSeatHeight = async (page: Page, slug: string) =>
 	(await (await page.request.get(`${BASE}/api/vehicles/${slug}`)).json()).content.seats.spaces[0].heightMm as number | null;
+
+/** What the axe-core engine finds wrong on the screen (all rules, every impact). */
+const violations = async (page: Page) => (await new AxeBuilder({ page }).analyze()).violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(' | ')}`);
 
 const draftsOnDevice = (page: Page) => page.evaluate(() => Object.keys(localStorage).filter((k) => k.startsWith('kickpanel.draft.')).length);
 
@@ -69,6 +83,7 @@ describe('a change made in the editor with no signal', () => {
 		await editorKept(page, SENT);
 		await changeOffline(page, SENT, '74');
 		await screenshot(page, 'offline-edit-kept-phone');
+		expect(await violations(page)).toEqual([]);
 		expect(await draftsOnDevice(page)).toBe(1);
 
 		// Nothing typed is left unsent, so leaving does not ask.
@@ -83,11 +98,7 @@ describe('a change made in the editor with no signal', () => {
 		await page.close();
 
 		// Later, with signal again, any screen sends it.
-		await page.context().setOffline(false);
-		const later = await nextTab();
-		await later.goto(`${BASE}/vehicles/${SENT}`, { waitUntil: 'networkidle' });
-		const sent = later.getByTestId('outbox-sent');
-		await sent.waitFor({ timeout: 20_000 });
+		const { later, answer: sent } = await backOnline(page, SENT, 'outbox-sent');
 		expect(await sent.textContent()).toMatch(/Sent from this phone: Change to Korvane Pennick/);
 		expect(await driverSeatHeight(later, SENT)).toBe(74);
 		expect(await draftsOnDevice(later)).toBe(0);
@@ -115,14 +126,11 @@ describe('a change made in the editor with no signal', () => {
 			await other.close();
 		}
 
-		await page.context().setOffline(false);
-		const later = await nextTab();
-		await later.goto(`${BASE}/vehicles/${CLASH}`, { waitUntil: 'networkidle' });
-		const refused = later.getByTestId('outbox-refused');
-		await refused.waitFor({ timeout: 20_000 });
+		const { later, answer: refused } = await backOnline(page, CLASH, 'outbox-refused');
 		expect(await refused.textContent()).toMatch(/Change to Halvik Corrin.*was not accepted: Someone else saved this page while you were editing/);
 		expect(await driverSeatHeight(later, CLASH)).toBe(66);
 		await screenshot(later, 'offline-edit-refused-phone');
+		expect(await violations(later)).toEqual([]);
 
 		await Promise.all([later.waitForURL((url) => url.pathname === `/vehicles/${CLASH}/edit`), refused.getByRole('link', { name: 'Open the editor' }).click()]);
 		const offer = later.getByTestId('draft-offer');
