@@ -62,16 +62,23 @@ export function browserSession(defaultViewport = DESKTOP) {
 		expect(blocked, 'blocked by the Content-Security-Policy').toEqual([]);
 		expect(pageErrors, 'uncaught errors in the page').toEqual([]);
 	});
+	async function watched(viewport: { width: number; height: number }): Promise<Page> {
+		const page = await context.newPage();
+		page.on('console', (message) => {
+			if (message.type() === 'error' && /Content Security Policy/i.test(message.text())) blocked.push(`${page.url()}: ${message.text()}`);
+		});
+		page.on('pageerror', (error) => pageErrors.push(`${page.url()}: ${error.message}`));
+		await page.setViewportSize(viewport);
+		return page;
+	}
 	return {
 		async freshPage(viewport = defaultViewport): Promise<Page> {
 			await context.clearCookies();
-			const page = await context.newPage();
-			page.on('console', (message) => {
-				if (message.type() === 'error' && /Content Security Policy/i.test(message.text())) blocked.push(`${page.url()}: ${message.text()}`);
-			});
-			page.on('pageerror', (error) => pageErrors.push(`${page.url()}: ${error.message}`));
-			await page.setViewportSize(viewport);
-			return page;
+			return watched(viewport);
+		},
+		/** Another tab of the same browser, still signed in as before (the phone reopened later). */
+		nextTab(viewport = defaultViewport): Promise<Page> {
+			return watched(viewport);
 		}
 	};
 }

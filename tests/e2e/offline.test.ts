@@ -106,25 +106,25 @@ describe('reading vehicle pages with no signal', () => {
 		await page.getByTestId('outbox').waitFor();
 
 		await page.context().setOffline(false);
-		await page.getByText(/Sent the mark kept on this phone/).waitFor({ timeout: 20_000 });
+		await page.getByText(/Sent from this phone: Flag on /).waitFor({ timeout: 20_000 });
 		const trust = await (await page.request.get(`${BASE}/vehicles/${pinned}/trust`)).text();
 		expect(trust).toContain(note.replace(/"/g, '&quot;'));
 		await page.close();
 	});
 
-	it('refuses to save an edit with no signal and keeps what was typed', async () => {
+	it('stops a form that cannot wait with no signal, and says nothing was sent', async () => {
 		const page = await freshPage(PHONE);
-		await signIn(page, 'editor');
+		await signIn(page, 'viewer');
 		const list = await (await page.request.get(`${BASE}/api/vehicles?pageSize=1`)).json();
-		await page.goto(`${BASE}/vehicles/${list.items[0].slug}/edit`, { waitUntil: 'networkidle' });
+		await page.goto(`${BASE}/vehicles/${list.items[0].slug}`, { waitUntil: 'networkidle' });
 		await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
 		await page.context().setOffline(true);
-		const changeNote = 'Measured the dash depth again (sample)';
-		await page.fill('#summary', changeNote);
-		await page.getByRole('button', { name: 'Save revision' }).click();
+		const metric = page.getByRole('button', { name: 'mm / m' });
+		const pressed = await metric.getAttribute('aria-pressed');
+		await page.getByRole('button', { name: 'in / ft' }).click();
 		await page.getByRole('alert').filter({ hasText: 'Not sent: this phone is offline' }).waitFor();
-		expect(await page.inputValue('#summary')).toBe(changeNote);
-		expect(page.url()).toContain('/edit');
+		expect(await metric.getAttribute('aria-pressed')).toBe(pressed);
+		expect(await page.getByTestId('outbox').count()).toBe(0);
 		await page.context().setOffline(false);
 		await page.close();
 	});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { companionsOf, isPhotoAddress, keptView, localDay, newerCopy, photoAddresses, shellFiles } from '../../src/lib/domain/offlineShelf';
+import { companionsOf, dropsKeptCopy, editorAddress, isPhotoAddress, keptView, localDay, newerCopy, photoAddresses, shellFiles } from '../../src/lib/domain/offlineShelf';
 
 const ID = 'a'.repeat(64);
 const OTHER = '0123456789abcdef'.repeat(4);
@@ -9,10 +9,21 @@ describe('keptView', () => {
 		expect(keptView('/vehicles/veldra-tarn-2009-2013-sedan')).toEqual({ slug: 'veldra-tarn-2009-2013-sedan', view: 'page' });
 		expect(keptView('/vehicles/veldra-tarn/job-sheet')).toEqual({ slug: 'veldra-tarn', view: 'job-sheet' });
 		expect(keptView('/vehicles/veldra-tarn/trust/')).toEqual({ slug: 'veldra-tarn', view: 'trust' });
+		expect(keptView('/vehicles/veldra-tarn/edit')).toEqual({ slug: 'veldra-tarn', view: 'edit' });
+		expect(keptView(editorAddress('korvane-pennick-2003-2008-pickup'))).toEqual({ slug: 'korvane-pennick-2003-2008-pickup', view: 'edit' });
 	});
 
-	it('keeps nothing else: the editor, history, the new-page form, other screens', () => {
-		for (const path of ['/vehicles/veldra-tarn/edit', '/vehicles/veldra-tarn/history', '/vehicles/new', '/vehicles', '/search', '/vehicles/Veldra']) {
+	it('keeps nothing else: history, the new-page form and its editor, other screens', () => {
+		for (const path of [
+			'/vehicles/veldra-tarn/history',
+			'/vehicles/veldra-tarn/edit/photos',
+			'/vehicles/veldra-tarn/editor',
+			'/vehicles/new',
+			'/vehicles/new/edit',
+			'/vehicles',
+			'/search',
+			'/vehicles/Veldra'
+		]) {
 			expect(keptView(path)).toBeNull();
 		}
 	});
@@ -22,6 +33,20 @@ describe('companionsOf', () => {
 	it('keeps the flag form with every page and the job sheet with a pinned one', () => {
 		expect(companionsOf('x', false)).toEqual(['/vehicles/x/trust']);
 		expect(companionsOf('x', true)).toEqual(['/vehicles/x/trust', '/vehicles/x/job-sheet']);
+	});
+
+	it('pins the editor only for a writer, and never rides along with a page merely read', () => {
+		expect(companionsOf('x', true, true)).toEqual(['/vehicles/x/trust', '/vehicles/x/job-sheet', '/vehicles/x/edit']);
+		expect(companionsOf('x', false, true)).toEqual(['/vehicles/x/trust']);
+		expect(companionsOf('x', true, false)).not.toContain('/vehicles/x/edit');
+	});
+});
+
+describe('dropsKeptCopy', () => {
+	it('lets go of a copy the server now refuses, and keeps it through a fault', () => {
+		// HTTP semantics (RFC 9110 §15.5–15.6): 401, 403, 404 and 410 say the address is not for this reader (or gone); 5xx is a passing fault.
+		for (const status of [401, 403, 404, 410]) expect(dropsKeptCopy(status)).toBe(true);
+		for (const status of [200, 303, 400, 409, 429, 500, 502, 503]) expect(dropsKeptCopy(status)).toBe(false);
 	});
 });
 

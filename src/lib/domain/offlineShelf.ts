@@ -11,18 +11,20 @@ export const SHELF = {
 
 /** Pages a person opened lately, kept newest first; older ones give way. */
 export const RECENT_PAGES = 24;
+/** Entries of the recent shelf: each page with its flag form and, for a writer, its editor. */
+export const RECENT_ENTRIES = RECENT_PAGES * 3;
 /** Photo renditions kept for those pages. */
 export const RECENT_PHOTOS = 240;
 
 /** Header a kept copy carries: when the phone stored it (ISO time). */
 export const KEPT_AT_HEADER = 'x-kept-at';
 
-export type KeptView = 'page' | 'job-sheet' | 'trust';
+export type KeptView = 'page' | 'job-sheet' | 'trust' | 'edit';
 
 /** Vehicle addresses that are not a page of their own. */
 const NOT_A_PAGE = new Set(['new']);
-const VIEWS: Record<string, KeptView> = { '': 'page', '/job-sheet': 'job-sheet', '/trust': 'trust' };
-const VEHICLE_PATH = /^\/vehicles\/([a-z0-9][a-z0-9-]*)(\/job-sheet|\/trust)?\/?$/;
+const VIEWS: Record<string, KeptView> = { '': 'page', '/job-sheet': 'job-sheet', '/trust': 'trust', '/edit': 'edit' };
+const VEHICLE_PATH = /^\/vehicles\/([a-z0-9][a-z0-9-]*)(\/job-sheet|\/trust|\/edit)?\/?$/;
 
 /** The vehicle page and view an address shows, when it is one a phone keeps. */
 export function keptView(pathname: string): { slug: string; view: KeptView } | null {
@@ -31,11 +33,21 @@ export function keptView(pathname: string): { slug: string; view: KeptView } | n
 	return { slug: m[1], view: VIEWS[m[2] ?? ''] };
 }
 
-/** The addresses kept with a page: the flag form always, the job sheet when pinned for the day. */
-export function companionsOf(slug: string, pinned: boolean): string[] {
+/** The editor's address for a page: kept when a writer opens it, or pins the page. */
+export const editorAddress = (slug: string) => `/vehicles/${slug}/edit`;
+
+/**
+ * The addresses kept with a page: the flag form always; the job sheet when pinned for the day, and
+ * the editor too when the person may edit (a reader's editor answer is a refusal, never kept).
+ */
+export function companionsOf(slug: string, pinned: boolean, writer = false): string[] {
 	const base = `/vehicles/${slug}`;
-	return pinned ? [`${base}/trust`, `${base}/job-sheet`] : [`${base}/trust`];
+	if (!pinned) return [`${base}/trust`];
+	return writer ? [`${base}/trust`, `${base}/job-sheet`, editorAddress(slug)] : [`${base}/trust`, `${base}/job-sheet`];
 }
+
+/** A refusal (signed out, not allowed, gone) means a kept copy of that address should go too. */
+export const dropsKeptCopy = (status: number) => status === 401 || status === 403 || status === 404 || status === 410;
 
 const PHOTO_REF = /\/photos\/([0-9a-f]{64})\/(?:thumb|display)\b/g;
 

@@ -1,7 +1,7 @@
-import { KEPT_AT_HEADER, newerCopy, photoAddresses, RECENT_PAGES, RECENT_PHOTOS, SHELF } from '../domain/offlineShelf';
+import { KEPT_AT_HEADER, newerCopy, photoAddresses, RECENT_ENTRIES, RECENT_PHOTOS, SHELF } from '../domain/offlineShelf';
 
 // The phone's shelf of pages for reading without signal, in the Cache API: used by the service
-// worker for pages as they are opened and by the page itself for the ones pinned for the day.
+// worker for pages (and editors) as they are opened and by the page itself for the ones pinned for the day.
 
 type Shelf = typeof SHELF.recent | typeof SHELF.pinned;
 
@@ -62,7 +62,7 @@ export async function keepPage(shelf: Shelf, address: string, response: Response
 		}
 	}
 	if (shelf === SHELF.recent) {
-		await trim(cache, RECENT_PAGES * (1 + companions.length));
+		await trim(cache, RECENT_ENTRIES);
 		await keepPhotos(html, SHELF.photos, RECENT_PHOTOS);
 	} else {
 		await keepPhotos(html, SHELF.pinned, null);
