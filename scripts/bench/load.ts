@@ -74,11 +74,23 @@ const viewer = await signInCookie(BALANCER, 'viewer@kickpanel.test', 'sample-vie
 const editor = await signInCookie(BALANCER, 'editor@kickpanel.test', 'sample-editor-pass');
 const slugs: string[] = (await (await fetch(`${BALANCER}/api/vehicles?pageSize=50`, { headers: { cookie: viewer } })).json()).items.map((v: { slug: string }) => v.slug);
 
-type Phase = { latencies: Record<Kind, number[]>; statuses: Record<string, number>; accepted: number[]; conflicts: number; errors5xx: number; failed: number; requests: number; seconds: number };
+type Phase = {
+	latencies: Record<Kind, number[]>;
+	/** Answers by kind and status, e.g. "read 200". */
+	statuses: Record<string, number>;
+	accepted: number[];
+	conflicts: number;
+	errors5xx: number;
+	/** Requests that got no usable answer, and the first few reasons. */
+	failed: number;
+	failures: string[];
+	requests: number;
+	seconds: number;
+};
 
 async function phase(base: string, seed: number): Promise<Phase> {
 	const random = seededRandom(seed);
-	const out: Phase = { latencies: { read: [], search: [], fit: [], save: [] }, statuses: {}, accepted: [], conflicts: 0, errors5xx: 0, failed: 0, requests: 0, seconds: SECONDS };
+	const out: Phase = { latencies: { read: [], search: [], fit: [], save: [] }, statuses: {}, accepted: [], conflicts: 0, errors5xx: 0, failed: 0, failures: [], requests: 0, seconds: SECONDS };
 	const deadline = Date.now() + SECONDS * 1000;
 	const pick = (): Kind => {
 		let r = random();
@@ -91,14 +103,18 @@ async function phase(base: string, seed: number): Promise<Phase> {
 		const body = await res.arrayBuffer();
 		out.latencies[kind].push(performance.now() - t);
 		out.requests++;
-		out.statuses[res.status] = (out.statuses[res.status] ?? 0) + 1;
+		out.statuses[`${kind} ${res.status}`] = (out.statuses[`${kind} ${res.status}`] ?? 0) + 1;
 		if (res.status >= 500) out.errors5xx++;
+		if (res.status >= 400 && res.status !== 409 && out.failures.length < 5) out.failures.push(`${kind} ${url} answered ${res.status}: ${Buffer.from(body).toString('utf8').slice(0, 160)}`);
 		return new Response(body, { status: res.status });
 	};
 	const client = async () => {
 		while (Date.now() < deadline) {
 			const kind = pick();
-			await one(kind).catch(() => out.failed++);
+			await one(kind).catch((err) => {
+				out.failed++;
+				if (out.failures.length < 5) out.failures.push(`${kind}: ${err instanceof Error ? err.message : String(err)}`);
+			});
 		}
 	};
 	const one = async (kind: Kind) => {
@@ -110,6 +126,7 @@ async function phase(base: string, seed: number): Promise<Phase> {
 		else {
 			const current = await fetch(`${base}/api/vehicles/${slug}`, { headers: { cookie: editor } });
 			if (current.status >= 500) out.errors5xx++;
+			if (current.status !== 200) throw new Error(`the page to edit answered ${current.status}: ${await current.text()}`);
 			const page = await current.json();
 			const content = page.content;
 			content.identity.notes = `${content.identity.notes.split('\n\nLoad note')[0]}\n\nLoad note ${Math.floor(random() * 1e9)}`;
@@ -149,6 +166,8 @@ spawnSync('sleep', ['3']);
 const rate = (p: Phase) => p.requests / p.seconds;
 const line = (name: string, p: Phase) => {
 	console.log(`\n${name}: ${rate(p).toFixed(0)} req/s, ${p.requests} requests, 5xx ${p.errors5xx} (target 0), no answer ${p.failed}, saves accepted ${p.accepted.length}, refused as conflicts ${p.conflicts}`);
+	console.log(`  answers: ${Object.entries(p.statuses).sort().map(([k, n]) => `${k}: ${n}`).join(', ')}`);
+	for (const failure of p.failures) console.log(`  refused or unanswered: ${failure}`);
 	for (const kind of Object.keys(p.latencies) as Kind[]) {
 		const s = summarize(p.latencies[kind]);
 		console.log(`  ${kind.padEnd(6)} n=${String(s.n).padStart(6)}  p50 ${fmt(s.p50)}  p95 ${fmt(s.p95)}  p99 ${fmt(s.p99)}`);
