@@ -77,12 +77,15 @@ http {
   gzip_proxied any;
   gzip_types text/css application/javascript application/json image/svg+xml text/plain;
   upstream kickpanel {
-$upstreams  }
+$upstreams    # Connections to the app servers are kept open between requests instead of one per request.
+    keepalive 32;
+  }
   server {
     listen 127.0.0.1:$CLUSTER_PORT;
     location / {
       proxy_pass http://kickpanel;
       proxy_http_version 1.1;
+      proxy_set_header Connection "";
       proxy_set_header Host \$http_host;
       proxy_set_header X-Forwarded-For \$remote_addr;
       proxy_set_header X-Request-Id \$request_id;
@@ -120,7 +123,7 @@ start_all() {
 	ensure_build
 	local metrics=($METRICS_PORTS) i=0
 	for p in $APP_PORTS; do
-		PORT="$p" METRICS_PORT="${metrics[$i]:-${metrics[0]}}" node build/index.js &
+		PORT="$p" METRICS_PORT="${metrics[$i]:-${metrics[0]}}" node server.js &
 		pids+=($!)
 		i=$((i + 1))
 	done
