@@ -14,7 +14,8 @@ describe('install calculator forms', () => {
 
 	it('charging: the idle figure is optional, and never above cruise', () => {
 		const f = { ...CHARGING_DEFAULTS, alternatorA: '110', vehicleLoadA: '25', addedLoadA: '40 A' };
-		expect(readCharging(f)).toEqual({ ok: true, input: { budget: { alternatorA: 110, alternatorIdleA: null, vehicleLoadA: 25, addedLoadA: 40 }, restingV: null, runningV: null } });
+		// No material picked: copper, the form's stated default.
+		expect(readCharging(f)).toEqual({ ok: true, input: { budget: { alternatorA: 110, alternatorIdleA: null, vehicleLoadA: 25, addedLoadA: 40, material: 'copper' }, restingV: null, runningV: null } });
 		expect(readCharging({ ...f, restingV: '12.5 V', runningV: 'high' })).toEqual({ ok: false, errors: { runningV: 'Battery running: "high" is not a number.' } });
 		expect(readCharging({ ...f, alternatorIdleA: '120' })).toEqual({ ok: false, errors: { alternatorIdleA: "The alternator's output at idle cannot be more than at cruise." } });
 		expect(readCharging({ ...f, alternatorA: '' })).toMatchObject({ ok: false, errors: { alternatorA: 'Enter alternator output at cruise in A.' } });
