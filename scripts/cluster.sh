@@ -5,7 +5,8 @@
 # Usage: scripts/cluster.sh [start]          everything, in the foreground until Ctrl-C
 #        scripts/cluster.sh databases start|stop   only the primary and the replica (tests use this)
 # Environment: CLUSTER_DIR (.data/cluster), PRIMARY_PORT (3327), REPLICA_PORT (3328), APP_PORTS ("3101 3102"),
-#              CLUSTER_PORT (8080), plus everything npm start reads.
+#              METRICS_PORTS ("9464 9465", one per app server, or "off"), CLUSTER_PORT (8080), plus everything
+#              npm start reads.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 source scripts/lib.sh
@@ -14,6 +15,7 @@ CLUSTER_DIR="${CLUSTER_DIR:-.data/cluster}"
 PRIMARY_PORT="${PRIMARY_PORT:-3327}"
 REPLICA_PORT="${REPLICA_PORT:-3328}"
 APP_PORTS="${APP_PORTS:-3101 3102}"
+METRICS_PORTS="${METRICS_PORTS:-9464 9465}"
 CLUSTER_PORT="${CLUSTER_PORT:-8080}"
 REPL_USER=replicator
 REPL_PASSWORD="${REPL_PASSWORD:-replicator-local}"
@@ -75,12 +77,15 @@ http {
   gzip_proxied any;
   gzip_types text/css application/javascript application/json image/svg+xml text/plain;
   upstream kickpanel {
-$upstreams  }
+$upstreams    # Connections to the app servers are kept open between requests instead of one per request.
+    keepalive 32;
+  }
   server {
     listen 127.0.0.1:$CLUSTER_PORT;
     location / {
       proxy_pass http://kickpanel;
       proxy_http_version 1.1;
+      proxy_set_header Connection "";
       proxy_set_header Host \$http_host;
       proxy_set_header X-Forwarded-For \$remote_addr;
       proxy_set_header X-Request-Id \$request_id;
@@ -116,11 +121,11 @@ start_all() {
 	npx tsx scripts/migrate.ts
 	if [ "$(sample_data_choice "$HOST" "${SAMPLE_DATA:-}")" = 1 ]; then npx tsx scripts/seed.ts --if-empty; else npx tsx scripts/setup-link.ts; fi
 	ensure_build
-	local metrics=9464
+	local metrics=($METRICS_PORTS) i=0
 	for p in $APP_PORTS; do
-		PORT="$p" METRICS_PORT="$metrics" node build/index.js &
+		PORT="$p" METRICS_PORT="${metrics[$i]:-${metrics[0]}}" node server.js &
 		pids+=($!)
-		metrics=$((metrics + 1))
+		i=$((i + 1))
 	done
 	for p in $APP_PORTS; do
 		wait_for_http "http://127.0.0.1:$p/api/health" || { log "app server on $p did not start"; exit 1; }

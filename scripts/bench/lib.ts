@@ -34,7 +34,7 @@ export async function startBuiltApp(port: number, env: NodeJS.ProcessEnv): Promi
 		env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}`, NODE_ENV: 'production', ...env },
 		stdio: ['ignore', 'ignore', 'inherit']
 	});
-	for (let i = 0; i < 200; i++) {
+	for (let i = 0; i < 600; i++) {
 		try {
 			const res = await fetch(`http://127.0.0.1:${port}/api/health`);
 			if (res.ok) return child;

@@ -5,6 +5,7 @@ import { db } from '../../src/lib/server/db';
 import { createVehicle, revisionById } from '../../src/lib/server/services/revisions';
 import { SHARED_STATE_TTL_MS } from '../../src/lib/server/cache';
 import { emptyContent } from '../../src/lib/domain/content/schema';
+import { readingRules } from '../../src/lib/server/services/readingRules';
 
 beforeAll(() => freshDatabase('shared_state'));
 afterAll(() => closeDb());
@@ -25,5 +26,19 @@ describe('a revision hidden or shown again by another app server', () => {
 		await db().query('UPDATE revisions SET hidden = 0 WHERE id = ?', { replacements: [revisionId] });
 		await afterTheBound();
 		expect((await revisionById(revisionId))!.hidden).toBe(false);
+	});
+});
+
+describe('the shop switching sign-off on through another app server', () => {
+	it('reads as switched on here within SHARED_STATE_TTL_MS, and off again after', async () => {
+		const write = (on: boolean) =>
+			db().query("INSERT INTO settings (name, value) VALUES ('reviewBeforeShow', ?) ON DUPLICATE KEY UPDATE value = VALUES(value)", { replacements: [String(on)] });
+		expect((await readingRules()).signOffRequired).toBe(false);
+		await write(true);
+		await afterTheBound();
+		expect((await readingRules()).signOffRequired).toBe(true);
+		await write(false);
+		await afterTheBound();
+		expect((await readingRules()).signOffRequired).toBe(false);
 	});
 });

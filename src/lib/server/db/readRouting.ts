@@ -18,8 +18,20 @@ export function readingFromPrimary<T>(work: () => T): T {
 
 type Acquire = (options?: { type?: string; useMaster?: boolean }) => Promise<unknown>;
 
+/**
+ * Reads a row that is never deleted once written (a revision). A replica that has not applied it yet would
+ * make it look missing, and a cached "missing" would hide a page for a while: then the primary answers.
+ */
+export async function evenWhileReplicaLags<T>(read: () => Promise<T | null>): Promise<T | null> {
+	const found = await read();
+	if (found !== null || !replicaInUse || primaryReads.getStore() === true) return found;
+	return readingFromPrimary(read);
+}
+let replicaInUse = false;
+
 /** Wraps the pool's connection choice; called once when a Sequelize instance with a replica is made. */
 export function routeReads(sequelize: Sequelize): void {
+	replicaInUse = true;
 	const manager = sequelize.connectionManager as unknown as { getConnection: Acquire };
 	const acquire = manager.getConnection.bind(manager);
 	manager.getConnection = async (options = {}) => {

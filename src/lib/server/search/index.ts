@@ -146,7 +146,8 @@ export class LiveSearchIndex {
 
 	private async catchUpInto(engine: VehicleSearchEngine): Promise<number> {
 		// The shop switched sign-off on or off (here or on another server): every page may read differently.
-		if (engine === this.engine && this.rules && this.rules !== rulesKey(await readingRules())) {
+		// Read fresh, so another server's switch is seen at this poll rather than one cache lifetime later.
+		if (engine === this.engine && this.rules && this.rules !== rulesKey(await readingRules({ fresh: true }))) {
 			this.built = null;
 			await this.ready();
 			return engine.size;

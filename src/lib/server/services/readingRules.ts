@@ -4,8 +4,8 @@ import { db } from '../db';
 import { readsHidden, readsUnsignedOff, type Reader, type ReadingRules } from '../../domain/visibility';
 import { shopSettings } from './settings';
 
-export async function readingRules(): Promise<ReadingRules> {
-	const s = await shopSettings();
+export async function readingRules(opts: { fresh?: boolean } = {}): Promise<ReadingRules> {
+	const s = await shopSettings(opts);
 	return { signOffRequired: s.reviewBeforeShow, signOffSince: s.reviewBeforeShowSince ? new Date(s.reviewBeforeShowSince) : null };
 }
 

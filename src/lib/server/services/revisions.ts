@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { literal, Op, type Transaction } from 'sequelize';
 import { db } from '../db';
+import { evenWhileReplicaLags } from '../db/readRouting';
 import { Make, RenderedNotesRow, Revision, User, Vehicle, VehicleModel } from '../db/models';
 import { canonicalJson, formatZodIssues, parseContent, SECTION_KEYS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
 import { mergeContent } from '../../domain/content/merge';
@@ -69,7 +70,7 @@ export function forgetAllRevisionFlags(): void {
 
 async function revisionFlags(id: number): Promise<Flags | null> {
 	return flagCache.get(id, async () => {
-		const row = await Revision.findByPk(id, { attributes: ['hidden', 'reviewedAt'] });
+		const row = await evenWhileReplicaLags(() => Revision.findByPk(id, { attributes: ['hidden', 'reviewedAt'] }));
 		return row ? { hidden: !!row.hidden, reviewedAt: row.reviewedAt ?? null } : null;
 	});
 }
@@ -101,13 +102,15 @@ export async function revisionById(id: number, transaction?: Transaction): Promi
 		const flags = await revisionFlags(id);
 		return flags ? { ...hit, ...flags } : null;
 	}
-	const row = await Revision.findByPk(id, {
-		include: [
-			{ model: User, as: 'author', attributes: ['name'] },
-			{ model: RenderedNotesRow, as: 'renderedNotes', where: { rendererVersion: NOTES_RENDERER_VERSION }, required: false, attributes: ['notes'] }
-		],
-		transaction
-	});
+	const read = () =>
+		Revision.findByPk(id, {
+			include: [
+				{ model: User, as: 'author', attributes: ['name'] },
+				{ model: RenderedNotesRow, as: 'renderedNotes', where: { rendererVersion: NOTES_RENDERER_VERSION }, required: false, attributes: ['notes'] }
+			],
+			transaction
+		});
+	const row = transaction ? await read() : await evenWhileReplicaLags(read);
 	if (!row) return null;
 	// Notes are kept by content and renderer: missing after a renderer change, they are rendered once more here.
 	const kept = (row as Revision & { renderedNotes?: RenderedNotesRow | null }).renderedNotes;

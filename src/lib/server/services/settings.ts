@@ -5,6 +5,7 @@ import type { SessionUser } from '../../domain/sessionUser';
 import { db } from '../db';
 import { ServiceError } from '../errors';
 import { recordAudit } from './audit';
+import { SHARED_STATE_TTL_MS } from '../cache';
 
 /** `reviewBeforeShowSince`: changes saved before review was switched on stay visible without a review. */
 export type ShopSettings = {
@@ -18,10 +19,10 @@ export type ShopSettings = {
 
 const DEFAULTS: ShopSettings = { shopName: 'Kickpanel', sampleData: false, reviewBeforeShow: false, reviewBeforeShowSince: null, timeZone: DEFAULT_TIME_ZONE };
 let cached: { at: number; value: ShopSettings } | null = null;
-const TTL_MS = 5_000;
 
-export async function shopSettings(): Promise<ShopSettings> {
-	if (cached && Date.now() - cached.at < TTL_MS) return cached.value;
+/** Another server's change (sign-off switched on, a new time zone) shows here within SHARED_STATE_TTL_MS; `fresh` reads it now. */
+export async function shopSettings(opts: { fresh?: boolean } = {}): Promise<ShopSettings> {
+	if (!opts.fresh && cached && Date.now() - cached.at < SHARED_STATE_TTL_MS) return cached.value;
 	const rows = await Setting.findAll();
 	const value = { ...DEFAULTS };
 	for (const row of rows) {
