@@ -202,13 +202,9 @@ export function trustSummaryFromMarks(vehicleId: number, readerRevisionId: numbe
 }
 
 async function computeTrustSummary(vehicleId: number, currentId: number | null, units: UnitSystem): Promise<TrustSummary> {
-	// One plain query on a page's marks, newest first.
-	const rows = await db().query<MarkRow>(
-		`SELECT c.id, c.revision_id AS revisionId, c.user_id AS userId, c.kind, c.field_path AS fieldPath, c.note, c.created_at AS createdAt, u.name AS userName
-		FROM confirmations c LEFT JOIN users u ON u.id = c.user_id
-		WHERE c.vehicle_id = ? ORDER BY c.created_at DESC, c.id DESC`,
-		{ replacements: [vehicleId], type: QueryTypes.SELECT }
-	);
+	// The same marks the reading view reads with its page, on their own.
+	const [row] = await db().query<{ marks: unknown }>(`SELECT ${marksJsonSql('?')} AS marks`, { replacements: [vehicleId], type: QueryTypes.SELECT });
+	const rows = marksFromJson(row?.marks);
 	return summarise(vehicleId, currentId, units, rows);
 }
 
