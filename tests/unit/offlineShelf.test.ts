@@ -64,7 +64,7 @@ describe('photoAddresses', () => {
 });
 
 describe('shellFiles', () => {
-	it('keeps scripts, styles and the Latin WOFF2 faces only', () => {
+	it('keeps scripts, styles, the cut faces and the Latin WOFF2 faces only', () => {
 		const files = [
 			'/_app/immutable/entry/start.js',
 			'/_app/immutable/assets/0.css',
@@ -74,9 +74,11 @@ describe('shellFiles', () => {
 			'/_app/immutable/assets/merriweather-cyrillic-700-normal.x.woff2',
 			'/favicon.svg',
 			'/_app/immutable/assets/ibm-plex-sans-latin-wght-normal.D3x1.woff2',
-			'/_app/immutable/assets/ibm-plex-sans-greek-wght-normal.D3x2.woff2'
+			'/_app/immutable/assets/ibm-plex-sans-greek-wght-normal.D3x2.woff2',
+			'/_app/immutable/assets/merriweather-core-700-normal.DhZV.woff2',
+			'/_app/immutable/assets/ibm-plex-sans-core-wght-normal.CcdS.woff2'
 		];
-		expect(shellFiles(files)).toEqual([files[0], files[1], files[2], files[6], files[7]]);
+		expect(shellFiles(files)).toEqual([files[0], files[1], files[2], files[6], files[7], files[9], files[10]]);
 	});
 });
 

@@ -62,12 +62,12 @@ export function photoAddresses(html: string): string[] {
 export const isPhotoAddress = (pathname: string) => /^\/photos\/[0-9a-f]{64}\/(?:thumb|display)$/.test(pathname);
 
 /**
- * The app files a phone stores on install: scripts, styles and the Latin WOFF2 faces (fixed or variable weight). Other
+ * The app files a phone stores on install: scripts, styles, the cut faces and the Latin WOFF2 faces (fixed or variable weight). Other
  * scripts' font subsets and the older WOFF copies are fetched only if a page asks for them.
  */
 export function shellFiles(files: readonly string[]): string[] {
 	return files.filter((f) => {
-		if (/\.(?:woff2?|ttf|otf)$/.test(f)) return /-latin-(?:\d{3}|wght)-[a-z]+\.[^/]*woff2$/.test(f);
+		if (/\.(?:woff2?|ttf|otf)$/.test(f)) return /-(?:latin|core)-(?:\d{3}|wght)-[a-z]+\.[^/]*woff2$/.test(f);
 		return true;
 	});
 }
