@@ -5,7 +5,7 @@ import { sessionClaims } from '$lib/server/auth/session';
 import { activeSessionUser } from '$lib/server/services/users';
 import { closeDb } from '$lib/server/db';
 import { startApp } from '$lib/server/lifecycle';
-import { spliceFragments } from '$lib/server/render/vehicleBody';
+import { fillStoredParts } from '$lib/server/render/vehicleBody';
 import { renderMissingParts } from '$lib/server/render/readingPage';
 import { PageMemo, reuseRenders } from '$lib/server/render/pageMemo';
 import { layoutData } from '$lib/server/views/layout';
@@ -48,9 +48,7 @@ const loadUser: Handle = async ({ event, resolve }) => {
 		// The editor's own action answers a signed-out save with everything typed (it checks the role itself).
 		if (!KEEPS_TYPED_WORK.test(path)) return new Response('Sign in to continue.', { status: 401 });
 	}
-	return resolve(event, {
-		transformPageChunk: ({ html }) => (event.locals.fragments ? spliceFragments(html, event.locals.fragments) : html)
-	});
+	return resolve(event);
 };
 
 // Installers reopen the same page all day: a page whose data has not changed since its last render is
@@ -68,6 +66,6 @@ const moved: Handle = ({ event, resolve }) => {
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised);
+export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised, fillStoredParts);
 
 export const handleError = handleServerError;

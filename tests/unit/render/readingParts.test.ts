@@ -43,9 +43,20 @@ describe('the stored parts of a reading view', () => {
 		expect(Object.keys(fragments).sort()).toEqual(
 			['quick-facts', 'quick-facts-columns', ...SECTION_KEYS.flatMap((k) => [`section-${k}`, `notes-${k}`])].sort()
 		);
-		const page = '<main><div data-kp-fragment="notes-identity"></div><p>kept</p><div data-kp-fragment="unknown"></div></main>';
-		expect(spliceFragments(page, fragments)).toBe(
-			`<main><div data-kp-fragment="notes-identity">${fragments['notes-identity']}</div><p>kept</p><div data-kp-fragment="unknown"></div></main>`
+		const page = '<main><div data-kp-fragment="notes-identity"></div><p>kept — 12 mm × 3</p><div data-kp-fragment="unknown"></div></main>';
+		const filled = spliceFragments(new TextEncoder().encode(page), fragments).toString('utf8');
+		expect(filled).toBe(
+			`<main><div data-kp-fragment="notes-identity">${fragments['notes-identity']}</div><p>kept — 12 mm × 3</p><div data-kp-fragment="unknown"></div></main>`
 		);
+	});
+
+	it('leave a placeholder that already holds markup, and a page without placeholders, as they are', () => {
+		const fragments = { 'quick-facts': '<p>facts</p>' };
+		const held = '<div data-kp-fragment="quick-facts"><p>client</p></div><div data-kp-fragment="quick-facts"></div>';
+		expect(spliceFragments(new TextEncoder().encode(held), fragments).toString('utf8')).toBe(
+			'<div data-kp-fragment="quick-facts"><p>client</p></div><div data-kp-fragment="quick-facts"><p>facts</p></div>'
+		);
+		const plain = new TextEncoder().encode('<p>Ω · no placeholders</p>');
+		expect(spliceFragments(plain, fragments).toString('utf8')).toBe('<p>Ω · no placeholders</p>');
 	});
 });

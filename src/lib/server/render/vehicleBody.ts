@@ -1,3 +1,4 @@
+import type { Handle } from '@sveltejs/kit';
 import { render } from 'svelte/server';
 import SectionBody from '$lib/components/vehicle/SectionBody.svelte';
 import SectionNotes from '$lib/components/vehicle/SectionNotes.svelte';
@@ -58,24 +59,42 @@ export function deliverBody(locals: App.Locals, { body, outline }: RenderedBody,
 	return { outline, body: null };
 }
 
-const MARK = '<div data-kp-fragment="';
+const MARK = Buffer.from('<div data-kp-fragment="');
+const QUOTE = 0x22;
+const EMPTY_CLOSE = Buffer.from('"></div>');
 
-/** Fills the empty fragment placeholders of a rendered page with their cached HTML, in one pass. */
-export function spliceFragments(html: string, fragments: Record<string, string>): string {
-	const parts: string[] = [];
+/**
+ * Fills the empty fragment placeholders of a rendered page with their stored HTML. Works on the encoded bytes:
+ * the page's own markup is small, and joining the large stored parts into it as text would copy them twice more
+ * (into a string, then out as UTF-8) on every first view.
+ */
+export function spliceFragments(page: Uint8Array, fragments: Record<string, string>): Buffer {
+	const html = Buffer.from(page.buffer, page.byteOffset, page.byteLength);
+	const parts: Buffer[] = [];
 	let from = 0;
 	for (let at = html.indexOf(MARK); at !== -1; at = html.indexOf(MARK, from)) {
-		const nameEnd = html.indexOf('"', at + MARK.length);
-		const name = html.slice(at + MARK.length, nameEnd);
+		const nameEnd = html.indexOf(QUOTE, at + MARK.length);
+		if (nameEnd === -1) break;
+		const name = html.toString('latin1', at + MARK.length, nameEnd);
 		const close = nameEnd + 2; // past `">`
-		if (!(name in fragments) || !html.startsWith('</div>', close)) {
-			parts.push(html.slice(from, close));
-			from = close;
-			continue;
-		}
-		parts.push(html.slice(from, close), fragments[name]);
+		const empty = html.compare(EMPTY_CLOSE, 0, EMPTY_CLOSE.length, nameEnd, nameEnd + EMPTY_CLOSE.length) === 0;
+		const fill = empty && Object.hasOwn(fragments, name) ? fragments[name] : '';
+		parts.push(html.subarray(from, close));
+		if (fill) parts.push(Buffer.from(fill));
 		from = close;
 	}
-	parts.push(html.slice(from));
-	return parts.join('');
+	if (parts.length === 0) return html;
+	parts.push(html.subarray(from));
+	return Buffer.concat(parts);
 }
+
+/** The handle that fills a full page view's placeholders with the stored parts its load left in `locals.fragments`. */
+export const fillStoredParts: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	const fragments = event.locals.fragments;
+	if (!fragments || !response.body || !response.headers.get('content-type')?.startsWith('text/html')) return response;
+	const page = spliceFragments(new Uint8Array(await response.arrayBuffer()), fragments);
+	const headers = new Headers(response.headers);
+	headers.delete('content-length');
+	return new Response(page as Uint8Array<ArrayBuffer>, { status: response.status, statusText: response.statusText, headers });
+};
