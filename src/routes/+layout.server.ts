@@ -1,5 +1,5 @@
 import type { LayoutServerLoad } from './$types';
 import { layoutData } from '$lib/server/views/layout';
-import { recordView } from '$lib/server/render/pageMemo';
+import { viewData } from '$lib/server/render/pageMemo';
 
-export const load: LayoutServerLoad = async ({ locals }) => recordView(locals, 'layout', await layoutData(locals));
+export const load: LayoutServerLoad = async ({ locals }) => viewData(locals, 'layout', () => layoutData(locals));

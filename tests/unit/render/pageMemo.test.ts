@@ -1,6 +1,6 @@
 import { describe, expect, it, vi } from 'vitest';
 import type { RequestEvent } from '@sveltejs/kit';
-import { isPlainData, memoKey, PageMemo, recordView, reuseRenders } from '../../../src/lib/server/render/pageMemo';
+import { isPlainData, memoKey, PageMemo, reuseRenders, viewData } from '../../../src/lib/server/render/pageMemo';
 
 const encoder = new TextEncoder();
 const entry = (text: string) => ({ body: encoder.encode(text), headers: [['content-type', 'text/html']] as [string, string][] });
@@ -84,12 +84,13 @@ describe('reuseRenders', () => {
 	function setup(opts: { headers?: Record<string, string>; status?: number; streamed?: boolean } = {}) {
 		const state: Fake = { layout: { user: { id: 1 } }, page: { watching: false } };
 		const memo = new PageMemo(1_000_000);
-		const handle = reuseRenders(memo, async () => state.layout, {
-			'/vehicles/[slug]': async () => {
-				if (state.page === 'missing') throw new Error('404');
-				return state.page;
-			}
-		});
+		let reads = 0;
+		const readPage = async () => {
+			reads++;
+			if (state.page === 'missing') throw new Error('404');
+			return state.page;
+		};
+		const handle = reuseRenders(memo, async () => state.layout, { '/vehicles/[slug]': readPage });
 		let renders = 0;
 		const call = async (over: Partial<RequestEvent> = {}) => {
 			const event = {
@@ -102,17 +103,19 @@ describe('reuseRenders', () => {
 			} as unknown as RequestEvent;
 			const resolve = vi.fn(async (e: RequestEvent) => {
 				renders++;
-				recordView(e.locals, 'layout', state.layout);
-				recordView(e.locals, 'page', state.page);
+				await viewData(e.locals, 'layout', async () => state.layout);
+				// As SvelteKit does, a load that throws gets the error page.
+				const page = await viewData(e.locals, 'page', readPage).catch(() => null);
+				if (page === null) return new Response('<p>Not found</p>', { status: 404, headers: { 'content-type': 'text/html' } });
 				const headers = new Headers({ 'content-type': 'text/html', etag: `"${renders}"`, ...opts.headers });
 				// SvelteKit sends a streamed page without an ETag.
 				if (opts.streamed) headers.delete('etag');
-				return new Response(`<p>render ${renders} ${JSON.stringify(state.page)}</p>`, { status: opts.status ?? 200, headers });
+				return new Response(`<p>render ${renders} ${JSON.stringify(page)}</p>`, { status: opts.status ?? 200, headers });
 			});
 			const response = await handle({ event, resolve });
 			return { text: await response.text(), status: response.status, etag: response.headers.get('etag') };
 		};
-		return { state, memo, call, renders: () => renders };
+		return { state, memo, call, renders: () => renders, reads: () => reads };
 	}
 
 	it('keeps a page from its second render and then sends the same bytes and headers while the data is unchanged', async () => {
@@ -125,6 +128,15 @@ describe('reuseRenders', () => {
 		expect(t.renders()).toBe(2);
 		expect(third).toEqual(second);
 		expect(fourth).toEqual(second);
+	});
+
+	it('reads a first view’s data once: the render takes what the memo read for its key', async () => {
+		const t = setup();
+		expect((await t.call()).text).toBe('<p>render 1 {"watching":false}</p>');
+		expect(t.reads()).toBe(1);
+		// Off the memo's path (a data request), the load reads for itself.
+		await t.call({ isDataRequest: true });
+		expect(t.reads()).toBe(2);
 	});
 
 	it('renders again as soon as any of the data changes, and keeps both', async () => {

@@ -97,8 +97,15 @@ export class PageMemo {
 	}
 }
 
-/** Called by a memoised route's load functions with what they return, so the render is stored under exactly that data. */
-export function recordView<T>(locals: App.Locals, part: ViewPart, data: T): T {
+/**
+ * A memoised route's load functions return their data through this: the data the memo handle already read for
+ * its key when there is some (so a first view does not read it twice), else `read()`'s, recorded so the render
+ * is stored under exactly that data.
+ */
+export async function viewData<T>(locals: App.Locals, part: ViewPart, read: () => Promise<T>): Promise<T> {
+	const prepared = locals.viewData?.[part];
+	if (prepared !== undefined) return prepared as T;
+	const data = await read();
 	(locals.viewData ??= {})[part] = data;
 	return data;
 }
@@ -125,8 +132,10 @@ export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Pro
 		const view = event.route.id ? views[event.route.id] : undefined;
 		if (!view || event.request.method !== 'GET' || event.isDataRequest || !event.locals.user) return resolve(event);
 		let key: string;
+		let prepared: { layout: unknown; page: unknown };
 		try {
-			key = memoKey(event.url, await layout(event.locals), await view(event));
+			prepared = { layout: await layout(event.locals), page: await view(event) };
+			key = memoKey(event.url, prepared.layout, prepared.page);
 		} catch {
 			// A redirect, a 404 or a refusal: the normal render answers it properly.
 			return resolve(event);
@@ -134,23 +143,24 @@ export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Pro
 		const hit = memo.get(key);
 		if (hit) return replay(hit);
 
+		// The render's load functions take this data instead of reading it again.
+		event.locals.viewData = prepared;
 		const response = await resolve(event);
 		const seen = event.locals.viewData;
 		if (
 			response.status !== 200 ||
-			!seen?.layout ||
-			!seen.page ||
+			seen !== prepared ||
 			!response.headers.has('etag') || // streamed responses carry no ETag and are not kept
 			response.headers.has('set-cookie') ||
 			!response.headers.get('content-type')?.startsWith('text/html') ||
 			!memo.admits(key) ||
-			!isPlainData(seen)
+			!isPlainData(prepared)
 		) {
 			return response;
 		}
 		const body = new Uint8Array(await response.arrayBuffer());
 		const headers = [...response.headers];
-		memo.set(memoKey(event.url, seen.layout, seen.page), { body, headers });
+		memo.set(key, { body, headers });
 		return new Response(body, { status: 200, headers });
 	};
 }

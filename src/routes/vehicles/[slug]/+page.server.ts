@@ -4,9 +4,9 @@ import { requireRole } from '$lib/server/auth/guard';
 import { formAction } from '$lib/server/forms';
 import { setUnits } from '$lib/server/services/preferences';
 import { vehiclePageData } from '$lib/server/views/vehiclePage';
-import { recordView } from '$lib/server/render/pageMemo';
+import { viewData } from '$lib/server/render/pageMemo';
 
-export const load: PageServerLoad = async (event) => recordView(event.locals, 'page', await vehiclePageData(event));
+export const load: PageServerLoad = async (event) => viewData(event.locals, 'page', () => vehiclePageData(event));
 
 const unitsSchema = z.object({ units: z.enum(['metric', 'imperial'], { error: 'Choose metric or imperial.' }) });
 
