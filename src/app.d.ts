@@ -8,8 +8,8 @@ declare global {
 		interface Locals {
 			user: SessionUser | null;
 			units: 'metric' | 'imperial';
-			/** Cached HTML spliced into the page by the handle hook. */
-			fragments?: Record<string, string>;
+			/** Stored HTML (UTF-8) spliced into the page by the handle hook. */
+			fragments?: Record<string, Uint8Array>;
 			/** What this request's load functions returned, for the page memo. */
 			viewData?: { layout?: unknown; page?: unknown };
 		}

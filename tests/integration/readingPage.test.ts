@@ -131,7 +131,7 @@ describe('stored parts of a vehicle page', () => {
 		const locals = { user: viewer, units: 'metric' } as App.Locals;
 		const page = await vehiclePageData({ locals, params: { slug }, url: new URL(`http://kickpanel.test/vehicles/${slug}`), isDataRequest: false });
 		expect(page.body).toBeNull();
-		expect(locals.fragments?.['notes-identity']).toContain('markerunsignednotes');
+		expect(new TextDecoder().decode(locals.fragments?.['notes-identity'])).toContain('markerunsignednotes');
 	});
 
 	it('are rendered on the first view when missing (a new build) and stored for every later reader', async () => {

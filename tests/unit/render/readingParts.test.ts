@@ -1,9 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { emptyContent, SECTION_KEYS } from '../../../src/lib/domain/content/schema';
 import { renderNotes } from '../../../src/lib/server/services/rendering';
-import { bodyFragments, spliceFragments } from '../../../src/lib/server/render/vehicleBody';
+import { bodyFragments, bodyOf, spliceFragments } from '../../../src/lib/server/render/vehicleBody';
+import { packParts, unpackParts } from '../../../src/lib/server/render/storedParts';
 import { partsOf } from '../../../src/lib/server/render/readingPage';
 import { seatSpace } from '../../helpers/places';
+
+const bytes = (fragments: Record<string, string>) => Object.fromEntries(Object.entries(fragments).map(([k, v]) => [k, new TextEncoder().encode(v)]));
+const text = (b: Uint8Array) => new TextDecoder().decode(b);
 
 function sample() {
 	const content = emptyContent({ make: 'Ostrel', model: 'Carrow', yearFrom: 2011, yearTo: 2016, body: 'wagon' });
@@ -32,9 +36,33 @@ describe('the stored parts of a reading view', () => {
 		expect(parts.outline.power.empty).toBe(true);
 	});
 
-	it('read back from JSON exactly as rendered', () => {
-		const parts = partsOf(sample(), 'imperial');
-		expect(JSON.parse(JSON.stringify(parts))).toEqual(parts);
+	it('read back from their stored form exactly as rendered', () => {
+		const rendered = partsOf(sample(), 'imperial');
+		const { fragments, ...data } = unpackParts(new TextEncoder().encode(packParts(rendered)));
+		const { body, ...renderedData } = rendered;
+		expect(data).toEqual(renderedData);
+		expect(Object.fromEntries(Object.entries(fragments).map(([k, v]) => [k, text(v)]))).toEqual(bodyFragments(body));
+		expect(bodyOf(fragments, data.outline)).toEqual(body);
+	});
+
+	it('keep text in any script and HTML with newlines and quotes intact in the stored form', () => {
+		const rendered = partsOf(sample(), 'metric');
+		rendered.identity.model = 'Tärn “Ω” 2\n';
+		rendered.body.sections.identity.notes = '<p>Line one\nline “two” — 12 mm × 3 · 🔧</p>\n';
+		rendered.body.quickFacts = '';
+		const stored = new TextEncoder().encode(packParts(rendered));
+		const back = unpackParts(stored);
+		expect(back.identity.model).toBe('Tärn “Ω” 2\n');
+		expect(text(back.fragments['notes-identity'])).toBe('<p>Line one\nline “two” — 12 mm × 3 · 🔧</p>\n');
+		expect(back.fragments['quick-facts'].length).toBe(0);
+		// The fragments are views into the stored bytes, not copies.
+		expect(back.fragments['notes-identity'].buffer).toBe(stored.buffer);
+	});
+
+	it('refuse a stored form whose lengths do not add up', () => {
+		const packed = packParts(partsOf(sample(), 'metric'));
+		expect(() => unpackParts(new TextEncoder().encode(packed + 'x'))).toThrow(/length/);
+		expect(() => unpackParts(new TextEncoder().encode('no head line'))).toThrow(/head/);
 	});
 
 	it('fill every placeholder of a full page view and leave the rest of the page alone', () => {
@@ -44,14 +72,14 @@ describe('the stored parts of a reading view', () => {
 			['quick-facts', 'quick-facts-columns', ...SECTION_KEYS.flatMap((k) => [`section-${k}`, `notes-${k}`])].sort()
 		);
 		const page = '<main><div data-kp-fragment="notes-identity"></div><p>kept — 12 mm × 3</p><div data-kp-fragment="unknown"></div></main>';
-		const filled = spliceFragments(new TextEncoder().encode(page), fragments).toString('utf8');
+		const filled = spliceFragments(new TextEncoder().encode(page), bytes(fragments)).toString('utf8');
 		expect(filled).toBe(
 			`<main><div data-kp-fragment="notes-identity">${fragments['notes-identity']}</div><p>kept — 12 mm × 3</p><div data-kp-fragment="unknown"></div></main>`
 		);
 	});
 
 	it('leave a placeholder that already holds markup, and a page without placeholders, as they are', () => {
-		const fragments = { 'quick-facts': '<p>facts</p>' };
+		const fragments = bytes({ 'quick-facts': '<p>facts</p>' });
 		const held = '<div data-kp-fragment="quick-facts"><p>client</p></div><div data-kp-fragment="quick-facts"></div>';
 		expect(spliceFragments(new TextEncoder().encode(held), fragments).toString('utf8')).toBe(
 			'<div data-kp-fragment="quick-facts"><p>client</p></div><div data-kp-fragment="quick-facts"><p>facts</p></div>'

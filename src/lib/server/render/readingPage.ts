@@ -19,6 +19,7 @@ import {
 	type RevisionHead
 } from '../services/renderedPages';
 import { renderBody, type RenderedBody } from './vehicleBody';
+import { packParts, unpackParts, type StoredParts } from './storedParts';
 
 /** What every reader of one content in one unit system is shown alike. */
 export type ReadingParts = RenderedBody & {
@@ -41,22 +42,22 @@ export function partsOf(revision: { content: VehicleContent; rendered: Partial<R
 }
 
 /** Renders and stores a revision's parts in `units`; what it stored is what it returns. */
-async function renderAndStore(revisionId: number, units: UnitSystem): Promise<ReadingParts | null> {
+async function renderAndStore(revisionId: number, units: UnitSystem): Promise<StoredParts | null> {
 	const revision = await revisionById(revisionId);
 	if (!revision) return null;
-	const parts = partsOf(revision, units);
-	await storeParts(revision.sha256, RENDERER, { [units]: JSON.stringify(parts) });
-	return parts;
+	const packed = packParts(partsOf(revision, units));
+	await storeParts(revision.sha256, RENDERER, { [units]: packed });
+	return unpackParts(Buffer.from(packed));
 }
 
 /** The stored parts of a revision, rendered and stored first when missing. */
-export async function partsFor(revision: RevisionHead, units: UnitSystem): Promise<ReadingParts | null> {
-	const json = await storedParts(revision.sha256, units, RENDERER);
-	return json ? (JSON.parse(json) as ReadingParts) : renderAndStore(revision.id, units);
+export async function partsFor(revision: RevisionHead, units: UnitSystem): Promise<StoredParts | null> {
+	const stored = await storedParts(revision.sha256, units, RENDERER);
+	return stored ? unpackParts(stored) : renderAndStore(revision.id, units);
 }
 
 /** A page as the reading view finds it, with its newest revision's parts in one unit system. */
-export type ReadingPage = Omit<PageForReading, 'parts'> & { parts: ReadingParts | null };
+export type ReadingPage = Omit<PageForReading, 'parts'> & { parts: StoredParts | null };
 
 // Concurrent views of one page share the query; this process's saves, hides and sign-offs clear it at once,
 // another server's within the shared-state time limit, as for every page row. The parts are never changed.
@@ -71,7 +72,7 @@ export function readingPage(slug: string, units: UnitSystem): Promise<ReadingPag
 	return pages.get(`${units}|${slug}`, async () => {
 		const page = await pageForReading(slug, units, RENDERER);
 		if (!page) return null;
-		if (page.parts !== null) return { ...page, parts: JSON.parse(page.parts) as ReadingParts };
+		if (page.parts !== null) return { ...page, parts: unpackParts(page.parts) };
 		return { ...page, parts: page.latest && (await renderAndStore(page.latest.id, units)) };
 	});
 }
@@ -82,7 +83,7 @@ async function renderMissing(revisionId: number, kept?: UnitSystem[]): Promise<v
 	if (!revision) return;
 	const have = kept ?? (await keptUnits(revision.sha256, RENDERER));
 	const missing = UNIT_SYSTEMS.filter((u) => !have.includes(u));
-	await storeParts(revision.sha256, RENDERER, Object.fromEntries(missing.map((u) => [u, JSON.stringify(partsOf(revision, u))])));
+	await storeParts(revision.sha256, RENDERER, Object.fromEntries(missing.map((u) => [u, packParts(partsOf(revision, u))])));
 }
 
 // A new revision's parts are rendered as it is written, in both unit systems, so no reader waits for them.

@@ -52,10 +52,18 @@ export function bodyFragments(body: VehicleBody): Record<string, string> {
 	return fragments;
 }
 
-/** Client navigations get the body as data; a full page view gets it spliced into the HTML by the handle hook. */
-export function deliverBody(locals: App.Locals, { body, outline }: RenderedBody, isDataRequest: boolean) {
-	if (isDataRequest) return { outline, body };
-	locals.fragments = bodyFragments(body);
+/** The body again from its fragments (as stored) and its outline. */
+export function bodyOf(fragments: Record<string, Uint8Array>, outline: Outline): VehicleBody {
+	const text = (name: string) => Buffer.from(fragments[name] ?? []).toString('utf8');
+	const sections = {} as VehicleBody['sections'];
+	for (const k of SECTION_KEYS) sections[k] = { html: text(`section-${k}`), notes: text(`notes-${k}`), empty: outline[k].empty };
+	return { sections, quickFacts: text('quick-facts'), quickFactsColumns: text('quick-facts-columns') };
+}
+
+/** Client navigations get the body as data; a full page view gets it spliced into the HTML by `fillStoredParts`. */
+export function deliverBody(locals: App.Locals, { fragments, outline }: { fragments: Record<string, Uint8Array>; outline: Outline }, isDataRequest: boolean) {
+	if (isDataRequest) return { outline, body: bodyOf(fragments, outline) };
+	locals.fragments = fragments;
 	return { outline, body: null };
 }
 
@@ -68,9 +76,9 @@ const EMPTY_CLOSE = Buffer.from('"></div>');
  * the page's own markup is small, and joining the large stored parts into it as text would copy them twice more
  * (into a string, then out as UTF-8) on every first view.
  */
-export function spliceFragments(page: Uint8Array, fragments: Record<string, string>): Buffer {
+export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint8Array>): Buffer {
 	const html = Buffer.from(page.buffer, page.byteOffset, page.byteLength);
-	const parts: Buffer[] = [];
+	const parts: Uint8Array[] = [];
 	let from = 0;
 	for (let at = html.indexOf(MARK); at !== -1; at = html.indexOf(MARK, from)) {
 		const nameEnd = html.indexOf(QUOTE, at + MARK.length);
@@ -78,9 +86,9 @@ export function spliceFragments(page: Uint8Array, fragments: Record<string, stri
 		const name = html.toString('latin1', at + MARK.length, nameEnd);
 		const close = nameEnd + 2; // past `">`
 		const empty = html.compare(EMPTY_CLOSE, 0, EMPTY_CLOSE.length, nameEnd, nameEnd + EMPTY_CLOSE.length) === 0;
-		const fill = empty && Object.hasOwn(fragments, name) ? fragments[name] : '';
+		const fill = empty && Object.hasOwn(fragments, name) ? fragments[name] : null;
 		parts.push(html.subarray(from, close));
-		if (fill) parts.push(Buffer.from(fill));
+		if (fill?.length) parts.push(fill);
 		from = close;
 	}
 	if (parts.length === 0) return html;

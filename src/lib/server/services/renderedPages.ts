@@ -22,8 +22,8 @@ export type RevisionHead = {
 	reviewedAt: Date | null;
 };
 
-/** A page as the reading view finds it: its row, its newest revision, that revision's stored parts (JSON) if any, and its trust marks. */
-export type PageForReading = { vehicle: VehicleSummary; latest: RevisionHead | null; parts: string | null; marks: MarkRow[] };
+/** A page as the reading view finds it: its row, its newest revision, that revision's stored parts (as bytes) if any, and its trust marks. */
+export type PageForReading = { vehicle: VehicleSummary; latest: RevisionHead | null; parts: Uint8Array | null; marks: MarkRow[] };
 
 type Row = {
 	id: number;
@@ -42,15 +42,18 @@ type Row = {
 	reviewedAt: Date | null;
 	createdAt: Date | null;
 	authorName: string | null;
-	parts: string | null;
+	parts: Uint8Array | null;
 	marks: unknown;
 };
+
+// The stored parts come as bytes: the HTML in them is sent as it is, never decoded into text.
+const PARTS_AS_BYTES = 'CAST(rp.parts AS BINARY)';
 
 // Every join is on a primary key, the page on its unique slug; the page's trust marks come along (by page and time).
 export const PAGE_SQL = `SELECT v.id, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, v.body, v.latest_revision_id AS latestRevisionId,
 		v.protection, mk.name AS make, mo.name AS model,
 		r.id AS revisionId, r.sha256, r.summary, r.hidden, r.reviewed_at AS reviewedAt, r.created_at AS createdAt, u.name AS authorName,
-		rp.parts, ${marksJsonSql('v.id')} AS marks
+		${PARTS_AS_BYTES} AS parts, ${marksJsonSql('v.id')} AS marks
 	FROM vehicles v
 	JOIN makes mk ON mk.id = v.make_id
 	JOIN models mo ON mo.id = v.model_id
@@ -104,9 +107,9 @@ export async function readableHead(page: Pick<PageForReading, 'vehicle' | 'lates
 	return { revision: revision && revisionHead(revision), newerAwaitingReview };
 }
 
-/** The stored parts of a content in `units` from `renderer`, as JSON, or null. */
-export async function storedParts(sha256: string, units: UnitSystem, renderer: string): Promise<string | null> {
-	const [row] = await db().query<{ parts: string }>('SELECT parts FROM rendered_pages WHERE sha256 = ? AND units = ? AND renderer = ?', {
+/** The stored parts of a content in `units` from `renderer`, as bytes, or null. */
+export async function storedParts(sha256: string, units: UnitSystem, renderer: string): Promise<Uint8Array | null> {
+	const [row] = await db().query<{ parts: Uint8Array }>(`SELECT ${PARTS_AS_BYTES} AS parts FROM rendered_pages rp WHERE sha256 = ? AND units = ? AND renderer = ?`, {
 		replacements: [sha256, units, renderer],
 		type: QueryTypes.SELECT
 	});

@@ -1,0 +1,36 @@
+// How a page's reader-independent parts are kept in `rendered_pages.parts`: one line of JSON with the small
+// data (names, photos, outline, and each fragment's name and length in bytes), then the fragments' HTML one
+// after another. A view reads the row as bytes and takes each fragment as a slice of them, so the tens of
+// kilobytes of HTML are neither parsed out of JSON nor encoded again before they are sent.
+import type { ReadingParts } from './readingPage';
+import { bodyFragments } from './vehicleBody';
+
+/** The parts as a view uses them: the data as values, each fragment as UTF-8 bytes. */
+export type StoredParts = Omit<ReadingParts, 'body'> & { fragments: Record<string, Uint8Array> };
+
+type Head = Omit<ReadingParts, 'body'> & { fragments: [name: string, bytes: number][] };
+
+const NEWLINE = 0x0a;
+
+/** The stored form of rendered parts. JSON escapes every newline inside its strings, so the first one ends the head. */
+export function packParts({ body, ...data }: ReadingParts): string {
+	const fragments = Object.entries(bodyFragments(body));
+	const head: Head = { ...data, fragments: fragments.map(([name, html]) => [name, Buffer.byteLength(html)]) };
+	return `${JSON.stringify(head)}\n${fragments.map(([, html]) => html).join('')}`;
+}
+
+/** Reads the stored form back; the fragments are views into `stored`, not copies. */
+export function unpackParts(stored: Uint8Array): StoredParts {
+	const bytes = Buffer.from(stored.buffer, stored.byteOffset, stored.byteLength);
+	const headEnd = bytes.indexOf(NEWLINE);
+	if (headEnd === -1) throw new Error('Stored page parts have no head line.');
+	const { fragments: lengths, ...data } = JSON.parse(bytes.toString('utf8', 0, headEnd)) as Head;
+	const fragments: Record<string, Uint8Array> = {};
+	let at = headEnd + 1;
+	for (const [name, length] of lengths) {
+		fragments[name] = bytes.subarray(at, at + length);
+		at += length;
+	}
+	if (at !== bytes.length) throw new Error('Stored page parts are not the length their head gives.');
+	return { ...data, fragments };
+}
