@@ -25,6 +25,28 @@ describe('a writer edits, a moderator puts it right', () => {
 		await page.close();
 	});
 
+	it('shows the next page’s own figures when a link moves from one vehicle page to another without a full load', async () => {
+		const page = await pageAs('viewer');
+		await page.goto(`${BASE}/vehicles/${SLUG}`, { waitUntil: 'networkidle' });
+		// Twice, so the second view is answered from the page memo as well.
+		await page.goto(`${BASE}/vehicles/${SLUG}`, { waitUntil: 'networkidle' });
+		// A link on the page, followed by the app's own router (a client-side navigation on the same route).
+		await page.evaluate(() => {
+			const a = document.createElement('a');
+			a.href = '/vehicles/veldra-tarn-2009-2013-sedan';
+			a.id = 'to-other-page';
+			a.textContent = 'Other page';
+			document.querySelector('main')!.append(a);
+			(window as unknown as { stayed: boolean }).stayed = true;
+		});
+		await page.click('#to-other-page');
+		await page.waitForURL(/veldra-tarn/);
+		await expect.poll(async () => page.textContent('h1')).toContain('Veldra Tarn');
+		// The same document: the app's router moved, the browser did not load a new page.
+		expect(await page.evaluate(() => (window as unknown as { stayed?: boolean }).stayed)).toBe(true);
+		await page.close();
+	});
+
 	it('lets the writer change the passenger seat height from a phone and shows it in history and compare', async () => {
 		const page = await pageAs('editor');
 		await page.goto(`${BASE}/vehicles/${SLUG}/edit`, { waitUntil: 'networkidle' });

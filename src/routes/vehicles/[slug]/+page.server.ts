@@ -6,7 +6,14 @@ import { setUnits } from '$lib/server/services/preferences';
 import { vehiclePageData } from '$lib/server/views/vehiclePage';
 import { viewData } from '$lib/server/render/pageMemo';
 
-export const load: PageServerLoad = async (event) => viewData(event.locals, 'page', () => vehiclePageData(event));
+export const load: PageServerLoad = async (event) => {
+	// What the page depends on, read here so a client-side navigation to another page or notice loads it again
+	// even when the data was already read for the page memo.
+	void event.params.slug;
+	void event.url.searchParams.get('saved');
+	void event.url.searchParams.get('merged');
+	return viewData(event.locals, 'page', () => vehiclePageData(event));
+};
 
 const unitsSchema = z.object({ units: z.enum(['metric', 'imperial'], { error: 'Choose metric or imperial.' }) });
 
