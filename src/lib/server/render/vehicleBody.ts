@@ -96,13 +96,31 @@ export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint
 	return Buffer.concat(parts);
 }
 
-/** The handle that fills a full page view's placeholders with the stored parts its load left in `locals.fragments`. */
+/**
+ * The handle that fills a full page view's placeholders with the stored parts its load left in `locals.fragments`.
+ * The page's markup is taken as SvelteKit hands it over (one chunk for a page that is not streamed) rather than
+ * read back out of the response.
+ */
 export const fillStoredParts: Handle = async ({ event, resolve }) => {
-	const response = await resolve(event);
+	let rendered: string | null = null;
+	let chunks = 0;
+	const response = await resolve(event, {
+		transformPageChunk: ({ html, done }) => {
+			chunks++;
+			rendered = done && chunks === 1 ? html : null;
+			return html;
+		}
+	});
 	const fragments = event.locals.fragments;
 	if (!fragments || !response.body || !response.headers.get('content-type')?.startsWith('text/html')) return response;
-	const page = spliceFragments(new Uint8Array(await response.arrayBuffer()), fragments);
+	let markup: Uint8Array;
+	if (rendered !== null) {
+		markup = Buffer.from(rendered);
+		void response.body.cancel();
+	} else {
+		markup = new Uint8Array(await response.arrayBuffer());
+	}
 	const headers = new Headers(response.headers);
 	headers.delete('content-length');
-	return new Response(page as Uint8Array<ArrayBuffer>, { status: response.status, statusText: response.statusText, headers });
+	return new Response(spliceFragments(markup, fragments) as Uint8Array<ArrayBuffer>, { status: response.status, statusText: response.statusText, headers });
 };
