@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { FIT_RESOLUTION_MM, margin, type FitVerdict } from './fit';
 import { parseInput } from './validate';
-import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, partSizeMm } from './sizeRules';
+import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM } from './sizeRules';
+import { allowanceMm, partSizeMm } from './sizeInputs';
 import { formatLength, type UnitSystem } from './units';
 import type { BootSection } from './content/schema';
 

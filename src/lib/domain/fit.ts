@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { parseInput } from './validate';
-import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM, partSizeMm } from './sizeRules';
+import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM } from './sizeRules';
+import { allowanceMm, partSizeMm } from './sizeInputs';
 
 export { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM } from './sizeRules';
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { fitInputSchema } from './fit';
-import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, partSizeMm } from './sizeRules';
+import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM } from './sizeRules';
+import { allowanceMm, partSizeMm } from './sizeInputs';
 
 // What a fit question may ask, as the service and the endpoint read it.
 

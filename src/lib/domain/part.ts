@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { AMP_CLASS_EFFICIENCY, type AmpClass } from './power';
 import type { Box } from './fit';
-import { partSizeMm } from './sizeRules';
+import { partSizeMm } from './sizeInputs';
 import { MM_PER_INCH, parseLength, type LengthUnit } from './units';
 
 // A product in the shop's catalogue. Sizes are stored in mm; every kind keeps the figures its

@@ -1,5 +1,3 @@
-import { z } from 'zod';
-
 // The ranges a typed size may take, written once for the forms, the endpoints and the calculators.
 // A figure past its limit is read as a slip (a wrong unit, an extra digit), not as a real size.
 
@@ -25,20 +23,6 @@ export function partSizeProblem(mm: number, max = MAX_DIMENSION_MM): string | nu
 	if (mm > max) return `${looksLikeATypo('A size', `${max} mm`)}.`;
 	return null;
 }
-
-/** A part's size in mm: more than 0, at most `max`. */
-export const partSizeMm = (what: string, max = MAX_DIMENSION_MM) =>
-	z
-		.number({ error: `${what} must be a number of millimetres.` })
-		.positive(`${what} must be more than 0 mm.`)
-		.max(max, `${looksLikeATypo(what, `${max} mm`)}; sizes are in millimetres.`);
-
-/** A clearance or tight threshold in mm, within CLEARANCE_MM. */
-export const allowanceMm = (what: string) =>
-	z
-		.number({ error: `${what} must be a number of millimetres.` })
-		.min(CLEARANCE_MM.min, `${what} cannot be negative.`)
-		.max(CLEARANCE_MM.max, `${looksLikeATypo(what, `${CLEARANCE_MM.max} mm`)}.`);
 
 /** How the clearance range reads beside a form field. */
 export const CLEARANCE_RANGE_TEXT = `Clearance must be a number of mm from ${CLEARANCE_MM.min} to ${CLEARANCE_MM.max}.`;
