@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { ABYC_E11_CRITICAL_DROP_PCT, materialSchema, NOMINAL_VOLTS, powerWire } from './power';
+import { ABYC_E11_CRITICAL_DROP_PCT, NOMINAL_VOLTS, powerWire } from './power';
+import { materialSchema } from './powerInput';
 import { materialBasis, type CableMaterial } from './wire';
 import { parseInput } from './validate';
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { parseInput } from './validate';
-import { ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEMP_C, electricalBasis, materialSchema, NOMINAL_VOLTS, powerWire, type PowerWireResult } from './power';
+import { ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEMP_C, electricalBasis, NOMINAL_VOLTS, powerWire, type PowerWireResult } from './power';
+import { materialSchema } from './powerInput';
 import { MATERIAL_NAMES, type CableMaterial } from './wire';
 
 // One power run feeding several amplifiers: a main cable from the battery to a distribution block,
