@@ -19,7 +19,7 @@ module.exports = {
 					'^src/routes/.*/?[+](page|layout)[.]ts$'
 				],
 				// The calculators still check their figures with zod in the browser; they come off this list as they move to figureRules.ts.
-				pathNot: ['^src/routes/calc/', '^src/routes/fit/[+]page[.]svelte$', '^src/routes/vehicles/[[]slug[]]/job-sheet/[+]page[.]svelte$']
+				pathNot: ['^src/routes/calc/', '^src/routes/fit/[+]page[.]svelte$', '^src/routes/vehicles/.slug./job-sheet/[+]page[.]svelte$']
 			},
 			to: { reachable: true, path: '(^|/)node_modules/zod/' }
 		}
