@@ -1,5 +1,5 @@
 import { array, checkFigures, nullable, number, object, optional, orDefault, refine, text } from './figureRules';
-import { ABYC_E11_CRITICAL_DROP_PCT, CABLE_MATERIAL, DEFAULT_CONDUCTOR_TEMP_C, electricalBasis, NOMINAL_VOLTS, powerWire, type PowerWireResult } from './power';
+import { ABYC_E11_CRITICAL_DROP_PCT, CABLE_MATERIAL, CONDUCTOR_TEMP, electricalBasis, NOMINAL_VOLTS, powerWire, type PowerWireResult } from './power';
 import { MATERIAL_NAMES, type CableMaterial } from './wire';
 
 // One power run feeding several amplifiers: a main cable from the battery to a distribution block,
@@ -54,14 +54,7 @@ export const DISTRIBUTION_INPUT = refine(
 			number('Allowed drop must be a number of %.', [(n) => n > 0, 'Allowed drop must be more than 0 %.'], [(n) => n <= 100, 'Allowed drop cannot be more than 100 %.']),
 			ABYC_E11_CRITICAL_DROP_PCT
 		),
-		tempC: orDefault(
-			number(
-				'Cable temperature must be a number of °C.',
-				[(n) => n >= -40, 'Cable temperature below −40 °C is out of range.'],
-				[(n) => n <= 150, 'Cable temperature above 150 °C is out of range.']
-			),
-			DEFAULT_CONDUCTOR_TEMP_C
-		),
+		tempC: CONDUCTOR_TEMP,
 		headUnitRemoteA: orDefault(nullable(amps("The head unit's remote output rating", 5)), null)
 	}),
 	(v, refuse) => {

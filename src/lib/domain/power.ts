@@ -74,6 +74,16 @@ const positive = (label: string, unit: string, max: number) =>
 		[(n) => n <= max, `${label} over ${max.toLocaleString('en')} ${unit} looks like a typo.`]
 	);
 
+/** The conductor temperature resistance is worked at, °C. */
+export const CONDUCTOR_TEMP = orDefault(
+	number(
+		'Cable temperature must be a number of °C.',
+		[(n) => n >= -40, 'Cable temperature below −40 °C is out of range.'],
+		[(n) => n <= 150, 'Cable temperature above 150 °C is out of range.']
+	),
+	DEFAULT_CONDUCTOR_TEMP_C
+);
+
 export const AMP_CURRENT_INPUT = object({
 	rmsWattsPerChannel: positive('RMS power per channel', 'W', 10_000),
 	channels: number(
@@ -104,14 +114,7 @@ export const POWER_WIRE_INPUT = object({
 	/** The amplifiers' own fuse ratings added up; the fuse must be at least this. */
 	ownFuseA: orDefault(nullable(positive("Amplifiers' own fuse rating", 'A', 2000)), null),
 	maxDropPct: orDefault(positive('Allowed voltage drop', '%', 100), ABYC_E11_CRITICAL_DROP_PCT),
-	tempC: orDefault(
-		number(
-			'Cable temperature must be a number of °C.',
-			[(n) => n >= -40, 'Cable temperature below −40 °C is out of range.'],
-			[(n) => n <= 150, 'Cable temperature above 150 °C is out of range.']
-		),
-		DEFAULT_CONDUCTOR_TEMP_C
-	),
+	tempC: CONDUCTOR_TEMP,
 	material: CABLE_MATERIAL
 });
 export interface PowerWireInput {
