@@ -62,6 +62,7 @@ log "end-to-end: building and starting the app on $ORIGIN"
 node --import tsx scripts/services.ts >.data/e2e-services.log 2>&1 &
 services_pid=$!
 npx vite build --logLevel error >/dev/null
+bash scripts/check-client.sh >/dev/null
 npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts
 PORT="$TEST_APP_PORT" HOST=127.0.0.1 NODE_ENV=production node server.js >.data/e2e-server.log 2>&1 &

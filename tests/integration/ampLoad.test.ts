@@ -3,7 +3,7 @@ import { closeDb, freshDatabase } from '../helpers/database';
 import { makeUser } from '../helpers/users';
 import { createPart } from '../../src/lib/server/services/parts';
 import { loadAnswer } from '../../src/lib/server/services/ampLoad';
-import { loadInputSchema } from '../../src/lib/domain/coilWiring';
+import { loadInputSchema } from '../../src/lib/domain/calcSchemas';
 import { ServiceError } from '../../src/lib/server/errors';
 
 // Invented catalogue figures (sample data), not real products.

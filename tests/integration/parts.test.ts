@@ -5,7 +5,7 @@ import { makeUser } from '../helpers/users';
 import { AuditLog, Part as PartRow } from '../../src/lib/server/db/models';
 import { createPart, deletePart, listParts, partById, partsByIds, samplePartInput, updatePart } from '../../src/lib/server/services/parts';
 import { ServiceError } from '../../src/lib/server/errors';
-import { readPartForm } from '../../src/lib/domain/part';
+import { readPartForm } from '../../src/lib/domain/partForm';
 import type { SessionUser } from '../../src/lib/domain/sessionUser';
 import { down, up } from '../../src/lib/server/db/migrations/2026-12-05T06-00-00_load_figures';
 

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { evaluate, unit } from 'mathjs';
-import { effectivePortLengthMm, enclosureInputSchema, enclosureVolume, helmholtzHz, litresToCubicFeet, portRadiusMm } from '../../src/lib/domain/boxVolume';
+import { effectivePortLengthMm, enclosureVolume, helmholtzHz, litresToCubicFeet, portRadiusMm } from '../../src/lib/domain/boxVolume';
+import { enclosureInputSchema } from '../../src/lib/domain/calcSchemas';
 
 // Invented box sizes (sample data).
 const box = { outside: { l: 500, w: 400, h: 350 }, wallMm: 18, driverDisplacementL: 2.5 };

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { chargingBudget, chargingInputSchema, readBatteryVoltage } from '../../src/lib/domain/charging';
+import { chargingBudget, readBatteryVoltage } from '../../src/lib/domain/charging';
+import { chargingInputSchema } from '../../src/lib/domain/calcSchemas';
 
 // Invented vehicle figures (sample data).
 describe('charging budget', () => {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { evaluate } from 'mathjs';
-import { ampLoadCheck, loadInputSchema, wiringOptions, type AmpLoadFigures } from '../../src/lib/domain/coilWiring';
+import { ampLoadCheck, wiringOptions, type AmpLoadFigures } from '../../src/lib/domain/coilWiring';
+import { loadInputSchema } from '../../src/lib/domain/calcSchemas';
 
 const ohmsOf = (drivers: Parameters<typeof wiringOptions>[0], bridged = false) => wiringOptions(drivers, { bridged }).map((o) => o.ohms);
 

@@ -7,13 +7,13 @@ import {
 	DEFAULT_PLUG_ALLOWANCE_MM,
 	DIN_APERTURE_MM,
 	DIN_UNIT_FACE_MM,
-	fitInputSchema,
 	fitVerdict,
 	headUnitFit,
 	SeatSpaceIndex,
 	speakerFit,
 	type SeatSpaceRow
 } from '../../src/lib/domain/fit';
+import { boxAgainstSpaceSchema } from '../../src/lib/domain/fitRequest';
 
 // Sample amplifier box and seat spaces (invented measurements).
 const amp = { l: 300, w: 200, h: 50 };
@@ -104,10 +104,11 @@ describe('fitVerdict', () => {
 		expect(() => fitVerdict(amp, { l: 400, w: 300, h: 100 }, { clearanceMm: -1 })).toThrow(/Clearance cannot be negative/);
 	});
 
-	it('exports a schema with the same messages for forms', () => {
-		const r = fitInputSchema.safeParse({ box: { l: 0, w: 200, h: 50 }, space: { l: 400, w: 300, h: null } });
+	it('gives the endpoint the same messages, at the same place', () => {
+		const r = boxAgainstSpaceSchema.safeParse({ box: { l: 0, w: 200, h: 50 }, space: { l: 400, w: 300, h: null } });
 		expect(r.success).toBe(false);
 		expect(r.error?.issues.map((i) => i.message)).toEqual(['Part length must be more than 0 mm.']);
+		expect(r.error?.issues.map((i) => i.path)).toEqual([['box', 'l']]);
 	});
 
 	it('does not care which way the part or the space was written down on the floor', () => {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { cutLength, jobSheet, speakerGauge } from '../../src/lib/domain/jobSheet';
 import { emptyContent, type VehicleContent } from '../../src/lib/domain/content/schema';
-import { partInputSchema, type Part } from '../../src/lib/domain/part';
+import type { Part } from '../../src/lib/domain/part';
+import { partInputSchema } from '../../src/lib/domain/partSchema';
 import { powerWire } from '../../src/lib/domain/power';
 import { distributionPlan } from '../../src/lib/domain/distribution';
 

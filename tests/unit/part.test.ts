@@ -7,12 +7,12 @@ import {
 	partCheck,
 	partFieldsFromForm,
 	partFormValues,
-	partInputSchema,
 	partSummary,
 	ratedLoads,
-	readPartForm,
 	speakerCoils
 } from '../../src/lib/domain/part';
+import { readPartForm } from '../../src/lib/domain/partForm';
+import { partInputSchema } from '../../src/lib/domain/partSchema';
 import { AMP_CLASS_EFFICIENCY } from '../../src/lib/domain/power';
 
 // Invented catalogue entries (sample data), not real products.

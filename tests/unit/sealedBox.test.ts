@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { unit } from 'mathjs';
-import { sealedBox, sealedInputSchema } from '../../src/lib/domain/sealedBox';
+import { sealedBox } from '../../src/lib/domain/sealedBox';
+import { sealedInputSchema } from '../../src/lib/domain/calcSchemas';
 
 // Invented driver figures (sample data). Formulas: R. H. Small, "Closed-Box Loudspeaker Systems", JAES 1972–73.
 describe('sealed box', () => {

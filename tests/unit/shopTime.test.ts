@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { formatDay, formatWhen, knownTimeZones, nextDay, startOfDay, timeZoneSchema, usableZone, zoneShortName } from '../../src/lib/domain/shopTime';
+import { formatDay, formatWhen, knownTimeZones, nextDay, startOfDay, usableZone, zoneShortName } from '../../src/lib/domain/shopTime';
+import { timeZoneSchema } from '../../src/lib/domain/timeZoneInput';
 
 // Offsets below follow the tz database's rules as published: the EU's summer time runs from the last
 // Sunday of March to the last Sunday of October at 01:00 UTC (Directive 2000/84/EC); the US's from the

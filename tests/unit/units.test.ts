@@ -6,7 +6,6 @@ import {
 	formatMetres,
 	ftToM,
 	inToMm,
-	lengthInputSchema,
 	LengthInputError,
 	mmToIn,
 	mToFt,
@@ -14,6 +13,7 @@ import {
 	readAmps,
 	readOhms
 } from '../../src/lib/domain/units';
+import { lengthInputSchema } from '../../src/lib/domain/lengthInput';
 
 // Reference conversions: mathjs units (international inch = 25.4 mm, foot = 0.3048 m).
 const mathMm = (value: number, from: string) => unit(value, from).toNumber('mm');

@@ -1,7 +1,6 @@
-import { z } from 'zod';
+import { checkFigures, missingAsNull, object, optional } from './figureRules';
 import { FIT_RESOLUTION_MM, margin, type FitVerdict } from './fit';
-import { parseInput } from './validate';
-import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, partSizeMm } from './sizeRules';
+import { allowance, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, partSize } from './sizeRules';
 import { formatLength, type UnitSystem } from './units';
 import type { BootSection } from './content/schema';
 
@@ -65,62 +64,25 @@ export interface EnclosureFit {
 export const BOOT_CAUTION =
 	'Secure the box to the floor or to the load anchors: a loose box is a hazard in a crash (common practice). Check under the floor for fuel and brake lines and wiring before drilling.';
 
-const size = partSizeMm;
-const measured = (what: string) =>
-	z.preprocess((v) => (v === undefined || (typeof v === 'number' && Number.isNaN(v)) ? null : v), size(what).nullable());
+const size = partSize;
+/** A measured side: missing or NaN reads as not measured. */
+export const measuredSide = (what: string) => missingAsNull(size(what));
 
-export const enclosureBoxSchema = z.object({
+export const ENCLOSURE_BOX = object({
 	l: size('Box depth'),
 	w: size('Box width'),
 	h: size('Box height'),
-	lTop: measured('Box depth at the top').optional()
+	lTop: optional(measuredSide('Box depth at the top'))
 });
-const bootSpaceSchema = z.object({
-	l: measured('Boot floor length'),
-	lTop: measured('Boot depth at the top'),
-	w: measured('Boot floor width'),
-	archW: measured('Width between the wheel arches'),
-	h: measured('Boot height')
+const BOOT_SPACE = object({
+	l: measuredSide('Boot floor length'),
+	lTop: measuredSide('Boot depth at the top'),
+	w: measuredSide('Boot floor width'),
+	archW: measuredSide('Width between the wheel arches'),
+	h: measuredSide('Boot height')
 });
-const openingSchema = z.object({ w: measured('Load opening width'), h: measured('Load opening height') });
-const optionsSchema = z.object({ clearanceMm: allowanceMm('Clearance').optional(), tightMm: allowanceMm('Tight threshold').optional() });
-
-/** POST /api/fit/enclosure with the figures typed: a box, a load opening and a boot space. */
-export const enclosureAgainstSpaceSchema = z.object({
-	box: enclosureBoxSchema,
-	opening: openingSchema,
-	space: z.object({
-		l: measured('Boot floor length'),
-		w: measured('Boot floor width'),
-		h: measured('Boot height'),
-		lTop: measured('Boot depth at the top').optional(),
-		archW: measured('Width between the wheel arches').optional()
-	}),
-	marginMm: allowanceMm('Clearance').optional(),
-	tightMm: allowanceMm('Tight threshold').optional()
-});
-export type EnclosureAgainstSpace = z.output<typeof enclosureAgainstSpaceSchema>;
-
-/** A catalogue enclosure or a typed box against one vehicle page's boot. */
-export const enclosureAgainstPageSchema = z
-	.object({
-		vehicle: z.string({ error: 'Say which vehicle page (its slug).' }).trim().min(1, 'Say which vehicle page (its slug).').max(160),
-		partId: z.number({ error: 'partId must be the number of a catalogue part.' }).int('partId must be a whole number.').positive('partId must be the number of a catalogue part.').optional(),
-		box: enclosureBoxSchema.optional(),
-		marginMm: allowanceMm('Clearance').optional(),
-		tightMm: allowanceMm('Tight threshold').optional()
-	})
-	.refine((v) => (v.partId === undefined) !== (v.box === undefined), { error: 'Give either partId or box { l, w, h, lTop? }, not both.', path: ['box'] });
-export type EnclosureAgainstPage = z.input<typeof enclosureAgainstPageSchema>;
-
-/** The reverse question: a catalogue part or a typed box, with the clearance. */
-export const bootReverseSchema = z.union(
-	[
-		z.object({ partId: z.coerce.number().int().positive() }),
-		z.object({ l: z.coerce.number().pipe(size('Box depth')), w: z.coerce.number().pipe(size('Box width')), h: z.coerce.number().pipe(size('Box height')), lTop: z.coerce.number().pipe(size('Box depth at the top')).optional() })
-	],
-	{ error: 'Give partId, or l, w and h (and lTop for a wedge) in millimetres.' }
-);
+export const LOAD_OPENING = object({ w: measuredSide('Load opening width'), h: measuredSide('Load opening height') });
+const OPTIONS = object({ clearanceMm: optional(allowance('Clearance')), tightMm: optional(allowance('Tight threshold')) });
 
 /** The boot a page records, as the check reads it. */
 export const bootSpaceOf = (b: Pick<BootSection, 'floorLengthMm' | 'depthTopMm' | 'floorWidthMm' | 'archWidthMm' | 'heightMm'>): BootSpace => ({
@@ -188,11 +150,11 @@ export function enclosureFit(
 	opening: LoadOpening,
 	opts: { clearanceMm?: number; tightMm?: number } = {}
 ): EnclosureFit {
-	const options = parseInput(optionsSchema, opts);
+	const options = checkFigures(OPTIONS, opts);
 	return checkedEnclosureFit(
-		parseInput(enclosureBoxSchema, box),
-		parseInput(bootSpaceSchema, space),
-		parseInput(openingSchema, opening),
+		checkFigures(ENCLOSURE_BOX, box),
+		checkFigures(BOOT_SPACE, space),
+		checkFigures(LOAD_OPENING, opening),
 		options.clearanceMm ?? DEFAULT_CLEARANCE_MM,
 		options.tightMm ?? DEFAULT_TIGHT_MM
 	);
@@ -324,8 +286,8 @@ export class BootSpaceIndex {
 	}
 
 	query(box: EnclosureBox, clearanceMm = DEFAULT_CLEARANCE_MM, tightMm = DEFAULT_TIGHT_MM): BootMatches {
-		const b = parseInput(enclosureBoxSchema, box);
-		parseInput(optionsSchema, { clearanceMm, tightMm });
+		const b = checkFigures(ENCLOSURE_BOX, box);
+		checkFigures(OPTIONS, { clearanceMm, tightMm });
 		const c = clearanceMm;
 		const deep = Math.max(b.l, b.lTop ?? b.l);
 		const top = b.lTop ?? b.l;

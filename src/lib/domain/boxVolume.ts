@@ -1,5 +1,4 @@
-import { z } from 'zod';
-import { parseInput } from './validate';
+import { byKind, checkFigures, literal, number, object, optional, refine, type Rule } from './figureRules';
 
 // A box's net internal volume (the air the driver works against) and a port's tuning frequency.
 // Volumes in litres, sizes in millimetres.
@@ -16,57 +15,59 @@ export const LITRES_PER_CUBIC_FOOT = 28.316846592;
 export const litresToCubicFeet = (litres: number): number => litres / LITRES_PER_CUBIC_FOOT;
 
 const mm = (label: string, max: number) =>
-	z
-		.number({ error: `${label} must be a number of millimetres.` })
-		.positive(`${label} must be more than 0 mm.`)
-		.max(max, `${label} over ${max} mm looks like a typo.`);
+	number(`${label} must be a number of millimetres.`, [(n) => n > 0, `${label} must be more than 0 mm.`], [(n) => n <= max, `${label} over ${max} mm looks like a typo.`]);
+
+export type Port = { kind: 'round'; diameterMm: number; lengthMm: number } | { kind: 'slot'; widthMm: number; heightMm: number; lengthMm: number };
 
 const portLength = mm('Port length', 2000);
-const portSchema = z.discriminatedUnion(
+const PORT: Rule<Port> = byKind(
 	'kind',
-	[
-		z.object({ kind: z.literal('round'), diameterMm: mm('Port diameter', 500), lengthMm: portLength }),
-		z.object({ kind: z.literal('slot'), widthMm: mm('Slot width', 1500), heightMm: mm('Slot height', 1500), lengthMm: portLength })
-	],
-	{ error: 'Port kind must be "round" or "slot".' }
+	{
+		round: object({ kind: literal('round'), diameterMm: mm('Port diameter', 500), lengthMm: portLength }),
+		slot: object({ kind: literal('slot'), widthMm: mm('Slot width', 1500), heightMm: mm('Slot height', 1500), lengthMm: portLength })
+	},
+	'Port kind must be "round" or "slot".'
 );
-export type Port = z.output<typeof portSchema>;
 
-const enclosureShape = z.object({
-	outside: z.object(
-		{ l: mm('Outside length', 3000), w: mm('Outside width', 3000), h: mm('Outside height', 3000) },
-		{ error: 'Give the outside size as { l, w, h } in millimetres.' }
-	),
+const ENCLOSURE_SHAPE = object({
+	outside: object({ l: mm('Outside length', 3000), w: mm('Outside width', 3000), h: mm('Outside height', 3000) }, 'Give the outside size as { l, w, h } in millimetres.'),
 	wallMm: mm('Wall thickness', 100),
-	driverDisplacementL: z
-		.number({ error: 'Driver displacement must be a number of litres.' })
-		.min(0, 'Driver displacement cannot be negative.')
-		.max(200, 'Driver displacement over 200 L looks like a typo.'),
-	port: portSchema.optional()
+	driverDisplacementL: number(
+		'Driver displacement must be a number of litres.',
+		[(n) => n >= 0, 'Driver displacement cannot be negative.'],
+		[(n) => n <= 200, 'Driver displacement over 200 L looks like a typo.']
+	),
+	port: optional(PORT)
 });
+
+export interface EnclosureInput {
+	outside: { l: number; w: number; h: number };
+	wallMm: number;
+	driverDisplacementL: number;
+	port?: Port;
+}
 
 const insideOf = (outside: { l: number; w: number; h: number }, wallMm: number) => ({ l: outside.l - 2 * wallMm, w: outside.w - 2 * wallMm, h: outside.h - 2 * wallMm });
 const grossLitres = (inside: { l: number; w: number; h: number }) => (inside.l * inside.w * inside.h) / 1e6;
 const portLitres = (port: Port | undefined) => (port ? (portAreaMm2(port) * port.lengthMm) / 1e6 : 0);
 
 // Sizes that cannot make a box are refused with the field at fault, before anything is worked out.
-export const enclosureInputSchema = enclosureShape.superRefine((v, ctx) => {
+export const ENCLOSURE_INPUT = refine(ENCLOSURE_SHAPE, (v, refuse) => {
 	const inside = insideOf(v.outside, v.wallMm);
 	if (Math.min(inside.l, inside.w, inside.h) <= 0) {
-		ctx.addIssue({ code: 'custom', path: ['wallMm'], message: `Walls of ${v.wallMm} mm leave no room inside a box that size.` });
+		refuse(['wallMm'], `Walls of ${v.wallMm} mm leave no room inside a box that size.`);
 		return;
 	}
 	const longest = Math.max(inside.l, inside.w, inside.h);
 	if (v.port && v.port.lengthMm > longest) {
-		ctx.addIssue({ code: 'custom', path: ['port', 'lengthMm'], message: `A ${v.port.lengthMm} mm port is longer than the box is inside (${longest} mm at most); fold it or make the box larger.` });
+		refuse(['port', 'lengthMm'], `A ${v.port.lengthMm} mm port is longer than the box is inside (${longest} mm at most); fold it or make the box larger.`);
 		return;
 	}
 	const gross = grossLitres(inside);
 	if (!(gross - v.driverDisplacementL - portLitres(v.port) > 0)) {
-		ctx.addIssue({ code: 'custom', path: ['driverDisplacementL'], message: `The driver and port take up more than the ${round(gross, 1)} L inside: nothing is left for the air.` });
+		refuse(['driverDisplacementL'], `The driver and port take up more than the ${round(gross, 1)} L inside: nothing is left for the air.`);
 	}
 });
-export type EnclosureInput = z.input<typeof enclosureInputSchema>;
 
 export interface EnclosureVolume {
 	/** Inside sizes, mm: outside less two walls. */
@@ -109,7 +110,7 @@ export function helmholtzHz(netL: number, port: Port): number {
  * port's air take up. Bracing and a slot port's own wall are counted as driver displacement.
  */
 export function enclosureVolume(input: EnclosureInput): EnclosureVolume {
-	const { outside, wallMm, driverDisplacementL, port } = parseInput(enclosureInputSchema, input);
+	const { outside, wallMm, driverDisplacementL, port } = checkFigures(ENCLOSURE_INPUT, input);
 	const inside = insideOf(outside, wallMm);
 	const grossL = grossLitres(inside);
 	const portL = portLitres(port);

@@ -4,11 +4,11 @@ import { DEFAULT_CIRCUIT, type ControlLine, type ESeries, type LadderCircuit } f
 import { runLengthProblem } from './sizeRules';
 import { DEFAULT_MATERIAL, type CableMaterial } from './wire';
 import { MAX_AMPLIFIERS, type DistributionInput } from './distribution';
-import type { ZodType } from 'zod';
 import { MAX_DRIVERS, type DriverGroup } from './coilWiring';
 import type { ChargingInput } from './charging';
-import { enclosureInputSchema, type EnclosureInput } from './boxVolume';
-import { sealedInputSchema, type SealedInput } from './sealedBox';
+import { ENCLOSURE_INPUT, type EnclosureInput } from './boxVolume';
+import { SEALED_INPUT, type SealedInput } from './sealedBox';
+import type { Problem, Rule } from './figureRules';
 
 // The calculators' forms: typed text in, the domain functions' inputs out, with one message per
 // field. The same readers run on the server (a GET form without JavaScript) and in the browser.
@@ -448,10 +448,10 @@ export function readBox(f: Fields<BoxFields>): Read<BoxFields, EnclosureInput> {
 					? { kind: 'slot', widthMm: values.slotWidthMm, heightMm: values.slotHeightMm, lengthMm: values.portLengthMm }
 					: undefined
 	};
-	return schemaRead(enclosureInputSchema, input, BOX_PATHS);
+	return ruleRead(ENCLOSURE_INPUT, input, BOX_PATHS);
 }
 
-// Where a schema's complaint about the enclosure belongs on the form.
+// Where a complaint about the enclosure belongs on the form.
 const BOX_PATHS: Record<string, BoxFields> = {
 	'outside.l': 'l',
 	'outside.w': 'w',
@@ -464,14 +464,15 @@ const BOX_PATHS: Record<string, BoxFields> = {
 	'port.lengthMm': 'portLengthMm'
 };
 
-/** The figures checked by the domain's own schema, each complaint put on its form field. */
-function schemaRead<K extends string, T>(schema: ZodType<unknown, T>, input: T, paths: Record<string, K>): Read<K, T> {
-	const parsed = schema.safeParse(input);
-	if (parsed.success) return { ok: true, input };
+/** The figures checked by the domain's own rule, each complaint put on its form field. */
+function ruleRead<K extends string, T>(rule: Rule<unknown>, input: T, paths: Record<string, K>): Read<K, T> {
+	const problems: Problem[] = [];
+	rule(input, [], problems);
+	if (problems.length === 0) return { ok: true, input };
 	const errors: Partial<Record<K, string>> = {};
-	for (const issue of parsed.error.issues) {
-		const field = paths[issue.path.join('.')] ?? (Object.values(paths)[0] as K);
-		errors[field] ??= issue.message;
+	for (const problem of problems) {
+		const field = paths[problem.path.join('.')] ?? (Object.values(paths)[0] as K);
+		errors[field] ??= problem.message;
 	}
 	return { ok: false, errors };
 }
@@ -489,5 +490,5 @@ export function readSealed(f: Fields<SealedFields>): Read<SealedFields, SealedIn
 		qtc: () => readNumber(f.qtc, { label: 'Qtc', above: 0, max: 3 })
 	});
 	if (Object.keys(errors).length) return { ok: false, errors };
-	return schemaRead(sealedInputSchema, { fsHz: values.fsHz, qts: values.qts, vasL: values.vasL, qtc: values.qtc }, { fsHz: 'fsHz', qts: 'qts', vasL: 'vasL', qtc: 'qtc' });
+	return ruleRead(SEALED_INPUT, { fsHz: values.fsHz, qts: values.qts, vasL: values.vasL, qtc: values.qtc }, { fsHz: 'fsHz', qts: 'qts', vasL: 'vasL', qtc: 'qtc' });
 }

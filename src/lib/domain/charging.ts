@@ -1,7 +1,6 @@
-import { z } from 'zod';
-import { ABYC_E11_CRITICAL_DROP_PCT, materialSchema, NOMINAL_VOLTS, powerWire } from './power';
+import { checkFigures, nullable, number, object, orDefault, refine, type NumberCheck } from './figureRules';
+import { ABYC_E11_CRITICAL_DROP_PCT, CABLE_MATERIAL, NOMINAL_VOLTS, powerWire } from './power';
 import { materialBasis, type CableMaterial } from './wire';
-import { parseInput } from './validate';
 
 // The charging budget: does the alternator keep up with the vehicle's own load plus what the install
 // adds, at cruise and at idle; and the gauge of the three main charging cables when they should be
@@ -39,38 +38,50 @@ export const CHARGING_CAUTIONS: readonly string[] = [
 	'The gauges assume free air; a cable in a hot engine bay carries less, so go one size heavier there (common practice).'
 ];
 
-const amps = (label: string, max = 500) =>
-	z
-		.number({ error: `${label} must be a number of amps.` })
-		.min(0, `${label} cannot be negative.`)
-		.max(max, `${label} over ${max} A looks like a typo.`);
+const ampChecks = (label: string, max = 500): NumberCheck[] => [
+	[(n) => n >= 0, `${label} cannot be negative.`],
+	[(n) => n <= max, `${label} over ${max} A looks like a typo.`]
+];
+const amps = (label: string, max = 500) => number(`${label} must be a number of amps.`, ...ampChecks(label, max));
 
-const runLength = (label: string) =>
-	z
-		.number({ error: `${label} must be a number of metres.` })
-		.positive(`${label} must be more than 0 m.`)
-		.max(10, `${label} over 10 m looks like a typo.`);
+const runLength = (label: string, fallback: number) =>
+	orDefault(
+		number(`${label} must be a number of metres.`, [(n) => n > 0, `${label} must be more than 0 m.`], [(n) => n <= 10, `${label} over 10 m looks like a typo.`]),
+		fallback
+	);
 
-export const chargingInputSchema = z
-	.object({
-		alternatorA: amps("The alternator's output at cruise").positive("The alternator's output at cruise must be more than 0 A."),
-		alternatorIdleA: amps("The alternator's output at idle").nullable().default(null),
+export const CHARGING_INPUT = refine(
+	object({
+		alternatorA: number(
+			"The alternator's output at cruise must be a number of amps.",
+			...ampChecks("The alternator's output at cruise"),
+			[(n) => n > 0, "The alternator's output at cruise must be more than 0 A."]
+		),
+		alternatorIdleA: orDefault(nullable(amps("The alternator's output at idle")), null),
 		vehicleLoadA: amps("The vehicle's own load"),
 		addedLoadA: amps('The added load', 1000),
-		runLengthsM: z
-			.object({
-				'alternator-battery': runLength('Alternator to battery length').default(DEFAULT_RUN_LENGTHS_M['alternator-battery']),
-				'battery-body': runLength('Battery to body length').default(DEFAULT_RUN_LENGTHS_M['battery-body']),
-				'engine-body': runLength('Engine to body length').default(DEFAULT_RUN_LENGTHS_M['engine-body'])
-			})
-			.default({ ...DEFAULT_RUN_LENGTHS_M }),
-		material: materialSchema
-	})
-	.refine((v) => v.alternatorIdleA === null || v.alternatorIdleA <= v.alternatorA, {
-		message: "The alternator's output at idle cannot be more than at cruise.",
-		path: ['alternatorIdleA']
-	});
-export type ChargingInput = z.input<typeof chargingInputSchema>;
+		runLengthsM: orDefault(
+			object({
+				'alternator-battery': runLength('Alternator to battery length', DEFAULT_RUN_LENGTHS_M['alternator-battery']),
+				'battery-body': runLength('Battery to body length', DEFAULT_RUN_LENGTHS_M['battery-body']),
+				'engine-body': runLength('Engine to body length', DEFAULT_RUN_LENGTHS_M['engine-body'])
+			}),
+			{ ...DEFAULT_RUN_LENGTHS_M }
+		),
+		material: CABLE_MATERIAL
+	}),
+	(v, refuse) => {
+		if (v.alternatorIdleA !== null && v.alternatorIdleA > v.alternatorA) refuse(['alternatorIdleA'], "The alternator's output at idle cannot be more than at cruise.");
+	}
+);
+export interface ChargingInput {
+	alternatorA: number;
+	alternatorIdleA?: number | null;
+	vehicleLoadA: number;
+	addedLoadA: number;
+	runLengthsM?: Partial<Record<ChargingRun, number>>;
+	material?: CableMaterial;
+}
 
 export type ChargingVerdict = 'keeps-up' | 'tight' | 'short-at-idle' | 'short';
 
@@ -117,7 +128,7 @@ function chargingCable(run: ChargingRun, lengthM: number, alternatorA: number, m
  * basis, since music at listening level averages far less.
  */
 export function chargingBudget(input: ChargingInput): ChargingBudget {
-	const { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA, runLengthsM, material } = parseInput(chargingInputSchema, input);
+	const { alternatorA, alternatorIdleA, vehicleLoadA, addedLoadA, runLengthsM, material } = checkFigures(CHARGING_INPUT, input);
 	const totalA = vehicleLoadA + addedLoadA;
 	const headroomA = alternatorA - totalA;
 	const idleHeadroomA = alternatorIdleA === null ? null : alternatorIdleA - totalA;

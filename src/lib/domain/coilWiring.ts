@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { array, boolean, number, object, oneOf, optional, orDefault, refine, whole, type Problem } from './figureRules';
 import type { Amplifier } from './part';
 import { parallelImpedance, seriesImpedance, seriesParallelImpedance } from './speaker';
 
@@ -34,34 +34,51 @@ export interface WiringOption {
 	strings: number;
 }
 
-const driverGroupSchema = z.object({
-	count: z
-		.number({ error: 'Number of drivers must be a whole number.' })
-		.int('Number of drivers must be a whole number.')
-		.min(1, 'Give at least 1 driver.')
-		.max(MAX_DRIVERS, `At most ${MAX_DRIVERS} drivers on one amplifier channel.`),
-	coils: z.union([z.literal(1), z.literal(2)], { error: 'Voice coils must be 1 (single) or 2 (dual).' }),
-	ohmsPerCoil: z
-		.number({ error: 'Impedance per coil must be a number of ohms.' })
-		.positive('Impedance per coil must be more than 0 Ω.')
-		.max(32, 'Impedance per coil over 32 Ω looks like a typo.')
+const DRIVER_GROUP = object({
+	count: number(
+		'Number of drivers must be a whole number.',
+		...whole('Number of drivers must be a whole number.'),
+		[(n) => n >= 1, 'Give at least 1 driver.'],
+		[(n) => n <= MAX_DRIVERS, `At most ${MAX_DRIVERS} drivers on one amplifier channel.`]
+	),
+	coils: oneOf([1, 2], 'Voice coils must be 1 (single) or 2 (dual).'),
+	ohmsPerCoil: number(
+		'Impedance per coil must be a number of ohms.',
+		[(n) => n > 0, 'Impedance per coil must be more than 0 Ω.'],
+		[(n) => n <= 32, 'Impedance per coil over 32 Ω looks like a typo.']
+	)
 });
 
-export const loadInputSchema = z.object({
-	drivers: z
-		.array(driverGroupSchema, { error: 'Drivers must be a list, for example [{ "count": 2, "coils": 2, "ohmsPerCoil": 4 }].' })
-		.min(1, 'Give at least one group of drivers.')
-		.max(4, 'At most 4 groups of drivers.')
+/** The groups of drivers on one channel. */
+export const DRIVERS = refine(
+	array(
+		DRIVER_GROUP,
+		'Drivers must be a list, for example [{ "count": 2, "coils": 2, "ohmsPerCoil": 4 }].',
+		[(n) => n >= 1, 'Give at least one group of drivers.'],
+		[(n) => n <= 4, 'At most 4 groups of drivers.']
+	),
+	(groups, refuse) => {
 		// Different drivers on one channel share power unevenly: only identical drivers are combined (common practice).
-		.refine((groups) => groups.every((g) => g.coils === groups[0].coils && g.ohmsPerCoil === groups[0].ohmsPerCoil), {
-			message: 'Wire only identical drivers together: every group needs the same voice coils and impedance per coil.'
-		})
-		.refine((groups) => groups.reduce((n, g) => n + g.count, 0) <= MAX_DRIVERS, { message: `At most ${MAX_DRIVERS} drivers on one amplifier channel.` }),
-	bridged: z.boolean({ error: 'Bridged must be true or false.' }).default(false),
-	partId: z.number({ error: 'Part must be a catalogue number.' }).int('Part must be a catalogue number.').positive('Part must be a catalogue number.').optional()
+		if (!groups.every((g) => g.coils === groups[0].coils && g.ohmsPerCoil === groups[0].ohmsPerCoil)) {
+			refuse([], 'Wire only identical drivers together: every group needs the same voice coils and impedance per coil.');
+		}
+		if (groups.reduce((n, g) => n + g.count, 0) > MAX_DRIVERS) {
+			refuse([], `At most ${MAX_DRIVERS} drivers on one amplifier channel.`);
+		}
+	}
+);
+
+export const LOAD_INPUT = object({
+	drivers: DRIVERS,
+	bridged: orDefault(boolean('Bridged must be true or false.'), false),
+	partId: optional(number('Part must be a catalogue number.', ...whole('Part must be a catalogue number.'), [(n) => n > 0, 'Part must be a catalogue number.']))
 });
-export type LoadInput = z.input<typeof loadInputSchema>;
-export type LoadRequest = z.output<typeof loadInputSchema>;
+export interface LoadInput {
+	drivers: DriverGroup[];
+	bridged?: boolean;
+	partId?: number;
+}
+export type LoadRequest = Required<Omit<LoadInput, 'partId'>> & Pick<LoadInput, 'partId'>;
 
 /** Identical groups as one: the total count, with the shared coil figures. */
 export function mergeDrivers(groups: readonly DriverGroup[]): DriverGroup {
@@ -101,9 +118,10 @@ function driverWords(inSeries: number, strings: number): { driverWiring: DriverW
  * strings would share power unevenly). Bridged, each channel sees half the load across the pair.
  */
 export function wiringOptions(drivers: readonly DriverGroup[], opts: { bridged?: boolean } = {}): WiringOption[] {
-	const parsed = loadInputSchema.shape.drivers.safeParse(drivers);
-	if (!parsed.success) throw new RangeError(parsed.error.issues[0].message);
-	const d = mergeDrivers(parsed.data);
+	const problems: Problem[] = [];
+	const groups = DRIVERS(drivers, [], problems);
+	if (problems.length > 0) throw new RangeError(problems[0].message);
+	const d = mergeDrivers(groups);
 	const out: WiringOption[] = [];
 	for (const coil of coilWirings(d)) {
 		for (const [inSeries, strings] of driverArrangements(d.count)) {

@@ -1,6 +1,5 @@
-import { z } from 'zod';
-import { parseInput } from './validate';
-import { ABYC_E11_CRITICAL_DROP_PCT, DEFAULT_CONDUCTOR_TEMP_C, electricalBasis, materialSchema, NOMINAL_VOLTS, powerWire, type PowerWireResult } from './power';
+import { array, checkFigures, nullable, number, object, optional, orDefault, refine, text } from './figureRules';
+import { ABYC_E11_CRITICAL_DROP_PCT, CABLE_MATERIAL, CONDUCTOR_TEMP, electricalBasis, NOMINAL_VOLTS, powerWire, type PowerWireResult } from './power';
 import { MATERIAL_NAMES, type CableMaterial } from './wire';
 
 // One power run feeding several amplifiers: a main cable from the battery to a distribution block,
@@ -22,47 +21,60 @@ export const MAX_AMPLIFIERS = 8;
 export type WireOk = Extract<PowerWireResult, { ok: true }>;
 
 const amps = (label: string, max: number) =>
-	z
-		.number({ error: `${label} must be a number of A.` })
-		.positive(`${label} must be more than 0 A.`)
-		.max(max, `${label} over ${max.toLocaleString('en')} A looks like a typo.`);
-const metres = (label: string, min: 'zero' | 'above') => {
-	const n = z.number({ error: `${label} must be a number of m.` }).max(30, `${label} over 30 m looks like a typo.`);
-	return min === 'zero' ? n.min(0, `${label} cannot be negative.`) : n.positive(`${label} must be more than 0 m.`);
-};
+	number(`${label} must be a number of A.`, [(n) => n > 0, `${label} must be more than 0 A.`], [(n) => n <= max, `${label} over ${max.toLocaleString('en')} A looks like a typo.`]);
+const metres = (label: string, min: 'zero' | 'above') =>
+	number(
+		`${label} must be a number of m.`,
+		[(n) => n <= 30, `${label} over 30 m looks like a typo.`],
+		min === 'zero' ? [(n) => n >= 0, `${label} cannot be negative.`] : [(n) => n > 0, `${label} must be more than 0 m.`]
+	);
 
-export const distributionInputSchema = z
-	.object({
-		amps: z
-			.array(
-				z.object({
-					label: z.string().trim().max(80, 'Keep an amplifier name under 80 characters.').optional(),
-					currentA: amps('Current', 1000),
-					fuseA: amps("The amplifier's own fuse rating", 1000).nullable().optional(),
-					remoteA: amps('Remote input current', 5).nullable().optional()
-				}),
-				{ error: 'List the amplifiers, each with its current.' }
-			)
-			.min(1, 'List at least one amplifier.')
-			.max(MAX_AMPLIFIERS, `At most ${MAX_AMPLIFIERS} amplifiers on one run.`),
+export const DISTRIBUTION_INPUT = refine(
+	object({
+		amps: array(
+			object({
+				label: optional(text(80, 'Keep an amplifier name under 80 characters.')),
+				currentA: amps('Current', 1000),
+				fuseA: optional(nullable(amps("The amplifier's own fuse rating", 1000))),
+				remoteA: optional(nullable(amps('Remote input current', 5)))
+			}),
+			'List the amplifiers, each with its current.',
+			[(n) => n >= 1, 'List at least one amplifier.'],
+			[(n) => n <= MAX_AMPLIFIERS, `At most ${MAX_AMPLIFIERS} amplifiers on one run.`]
+		),
 		mainLengthM: metres('Main cable length', 'above'),
-		branchLengthsM: z.array(metres('Branch length', 'above')).default([]),
-		groundLengthsM: z.array(metres('Ground lead length', 'zero')).default([]),
-		material: materialSchema,
-		volts: z.number({ error: 'Supply voltage must be a number of V.' }).positive('Supply voltage must be more than 0 V.').max(60, 'Supply voltage over 60 V looks like a typo.').default(NOMINAL_VOLTS),
-		maxDropPct: z.number({ error: 'Allowed drop must be a number of %.' }).positive('Allowed drop must be more than 0 %.').max(100, 'Allowed drop cannot be more than 100 %.').default(ABYC_E11_CRITICAL_DROP_PCT),
-		tempC: z.number({ error: 'Cable temperature must be a number of °C.' }).min(-40, 'Cable temperature below −40 °C is out of range.').max(150, 'Cable temperature above 150 °C is out of range.').default(DEFAULT_CONDUCTOR_TEMP_C),
-		headUnitRemoteA: amps("The head unit's remote output rating", 5).nullable().default(null)
-	})
-	.superRefine((v, ctx) => {
+		branchLengthsM: orDefault(array(metres('Branch length', 'above'), undefined), []),
+		groundLengthsM: orDefault(array(metres('Ground lead length', 'zero'), undefined), []),
+		material: CABLE_MATERIAL,
+		volts: orDefault(
+			number('Supply voltage must be a number of V.', [(n) => n > 0, 'Supply voltage must be more than 0 V.'], [(n) => n <= 60, 'Supply voltage over 60 V looks like a typo.']),
+			NOMINAL_VOLTS
+		),
+		maxDropPct: orDefault(
+			number('Allowed drop must be a number of %.', [(n) => n > 0, 'Allowed drop must be more than 0 %.'], [(n) => n <= 100, 'Allowed drop cannot be more than 100 %.']),
+			ABYC_E11_CRITICAL_DROP_PCT
+		),
+		tempC: CONDUCTOR_TEMP,
+		headUnitRemoteA: orDefault(nullable(amps("The head unit's remote output rating", 5)), null)
+	}),
+	(v, refuse) => {
 		for (const key of ['branchLengthsM', 'groundLengthsM'] as const) {
 			const n = v[key].length;
-			if (n !== 0 && n !== v.amps.length) {
-				ctx.addIssue({ code: 'custom', path: [key], message: `Give one length for each of the ${v.amps.length} amplifiers, or none (${n} given).` });
-			}
+			if (n !== 0 && n !== v.amps.length) refuse([key], `Give one length for each of the ${v.amps.length} amplifiers, or none (${n} given).`);
 		}
-	});
-export type DistributionInput = z.input<typeof distributionInputSchema>;
+	}
+);
+export interface DistributionInput {
+	amps: { label?: string; currentA: number; fuseA?: number | null; remoteA?: number | null }[];
+	mainLengthM: number;
+	branchLengthsM?: number[];
+	groundLengthsM?: number[];
+	material?: CableMaterial;
+	volts?: number;
+	maxDropPct?: number;
+	tempC?: number;
+	headUnitRemoteA?: number | null;
+}
 
 export interface RemoteTurnOn {
 	totalA: number;
@@ -123,7 +135,7 @@ export function remoteTurnOn(inputsA: readonly (number | null | undefined)[], ra
  * Every cable and fuse comes from the one power-wire rule, so each fuse is within its cable's ampacity.
  */
 export function distributionPlan(input: DistributionInput): DistributionPlan {
-	const v = parseInput(distributionInputSchema, input);
+	const v = checkFigures(DISTRIBUTION_INPUT, input);
 	const assumptions: string[] = [];
 	const gaps: string[] = [];
 	const n = v.amps.length;

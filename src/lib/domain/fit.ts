@@ -1,6 +1,5 @@
-import { z } from 'zod';
-import { parseInput } from './validate';
-import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM, partSizeMm } from './sizeRules';
+import { checkFigures, missingAsNull, object, optional } from './figureRules';
+import { allowance as allowanceRule, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM, partSize } from './sizeRules';
 
 export { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, MAX_DIMENSION_MM } from './sizeRules';
 
@@ -34,22 +33,22 @@ export type FitResult =
 	| { verdict: 'no-fit'; rotated: false; margins: Record<Axis, number | null>; limiting: Axis; partial: true }
 	| { verdict: 'not-measured'; rotated: false; margins: null; limiting: null };
 
-const dimension = partSizeMm;
+const dimension = partSize;
 
-const measured = (what: string) =>
-	z.preprocess(
-		(v) => (v === undefined || (typeof v === 'number' && Number.isNaN(v)) ? null : v),
-		dimension(what).nullable()
-	);
+/** A measured side: missing or NaN reads as not measured. */
+const measured = (what: string) => missingAsNull(dimension(what));
 
-const allowance = (what: string) => allowanceMm(what).optional();
+const allowance = (what: string) => optional(allowanceRule(what));
 
-export const fitInputSchema = z.object({
-	box: z.object({ l: dimension('Part length'), w: dimension('Part width'), h: dimension('Part height') }),
-	space: z.object({ l: measured('Space length'), w: measured('Space width'), h: measured('Space height') }),
-	options: z.object({ clearanceMm: allowance('Clearance'), tightMm: allowance('Tight threshold') }).optional()
+/** A part's box in mm, as a seat check reads it. */
+export const FIT_BOX = object({ l: dimension('Part length'), w: dimension('Part width'), h: dimension('Part height') });
+/** A recorded space in mm; a side nobody measured is null. */
+export const FIT_SPACE = object({ l: measured('Space length'), w: measured('Space width'), h: measured('Space height') });
+const FIT_INPUT = object({
+	box: FIT_BOX,
+	space: FIT_SPACE,
+	options: optional(object({ clearanceMm: allowance('Clearance'), tightMm: allowance('Tight threshold') }))
 });
-export type FitInput = z.input<typeof fitInputSchema>;
 
 
 // Verdicts are decided on whole micrometres: binary floating point cannot hold most decimal
@@ -77,7 +76,7 @@ function verdictOf(minMargin: number, tightMm: number): 'fits' | 'tight' | 'no-f
  * stays vertical. The orientation with the larger smallest margin is reported.
  */
 export function fitVerdict(box: Box, space: Space, opts: FitOptions = {}): FitResult {
-	const input = parseInput(fitInputSchema, { box, space, options: opts });
+	const input = checkFigures(FIT_INPUT, { box, space, options: opts });
 	const { l, w, h } = input.space;
 	const c = input.options?.clearanceMm ?? DEFAULT_CLEARANCE_MM;
 	const tightMm = input.options?.tightMm ?? DEFAULT_TIGHT_MM;
@@ -169,10 +168,10 @@ export function headUnitFit(
 	if (unit.dinSize !== 1 && unit.dinSize !== 2) {
 		throw new RangeError('A head unit is single DIN (1) or double DIN (2).');
 	}
-	const chassisDepth = parseInput(dimension('Chassis depth'), unit.chassisDepthMm);
-	const depth = parseInput(measured('Dash depth'), dash.depthMm);
-	const plugAllowanceMm = parseInput(allowance('Plug allowance'), opts.plugAllowanceMm) ?? DEFAULT_PLUG_ALLOWANCE_MM;
-	const opened = dash.openingMm ? { w: parseInput(dimension('Opening width'), dash.openingMm.w), h: parseInput(dimension('Opening height'), dash.openingMm.h) } : null;
+	const chassisDepth = checkFigures(dimension('Chassis depth'), unit.chassisDepthMm);
+	const depth = checkFigures(measured('Dash depth'), dash.depthMm);
+	const plugAllowanceMm = checkFigures(allowance('Plug allowance'), opts.plugAllowanceMm) ?? DEFAULT_PLUG_ALLOWANCE_MM;
+	const opened = dash.openingMm ? { w: checkFigures(dimension('Opening width'), dash.openingMm.w), h: checkFigures(dimension('Opening height'), dash.openingMm.h) } : null;
 	const size = DIN_UNIT_FACE_MM[unit.dinSize];
 	const aperture = DIN_APERTURE_MM[unit.dinSize];
 	const face = `${unit.dinSize === 1 ? 'single' : 'double'}-DIN unit (face ${size.w} × ${size.h} mm, aperture ${aperture.w} × ${aperture.h} mm)`;
@@ -252,10 +251,10 @@ export function speakerFit(
 	location: { cutoutMm: number | null; depthMm: number | null },
 	opts: { tightMm?: number } = {}
 ): SpeakerFitResult {
-	const needCutout = parseInput(dimension('Speaker cut-out'), speaker.cutoutMm);
-	const needDepth = parseInput(dimension('Speaker mounting depth'), speaker.mountingDepthMm);
-	const cutout = parseInput(measured('Location cut-out'), location.cutoutMm);
-	const depth = parseInput(measured('Location depth'), location.depthMm);
+	const needCutout = checkFigures(dimension('Speaker cut-out'), speaker.cutoutMm);
+	const needDepth = checkFigures(dimension('Speaker mounting depth'), speaker.mountingDepthMm);
+	const cutout = checkFigures(measured('Location cut-out'), location.cutoutMm);
+	const depth = checkFigures(measured('Location depth'), location.depthMm);
 	if (cutout === null || depth === null) {
 		// A measured figure that already rules the speaker out is not hidden by the missing one.
 		const known = cutout !== null ? { cutout: margin(cutout, needCutout, 0) } : depth !== null ? { depth: margin(depth, needDepth, 0) } : {};
@@ -340,9 +339,9 @@ export class SeatSpaceIndex {
 
 	/** Rows whose verdict for the box is fits or tight, in row order. Same rule as fitVerdict. */
 	query(box: Box, clearanceMm = DEFAULT_CLEARANCE_MM, tightMm = DEFAULT_TIGHT_MM): SeatSpaceMatches {
-		const b = parseInput(fitInputSchema.shape.box, box);
-		parseInput(allowance('Clearance'), clearanceMm);
-		parseInput(allowance('Tight threshold'), tightMm);
+		const b = checkFigures(FIT_BOX, box);
+		checkFigures(allowance('Clearance'), clearanceMm);
+		checkFigures(allowance('Tight threshold'), tightMm);
 		const bl = b.l + clearanceMm;
 		const bw = b.w + clearanceMm;
 		const bh = b.h + clearanceMm;

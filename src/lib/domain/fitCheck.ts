@@ -18,7 +18,8 @@ import {
 	type SpeakerFitResult
 } from './fit';
 import { formatLength, type UnitSystem } from './units';
-import { SEAT_NAMES, type DashSection, type SeatSpace, type SpeakerLocation } from './content/schema';
+import type { DashSection, SeatSpace, SpeakerLocation } from './content/schema';
+import { SEAT_NAMES } from './content/vocabulary';
 import type { HeadUnit, Speaker } from './part';
 
 // A part against the places a vehicle page records: every seat space, the dash, every speaker

@@ -1,6 +1,8 @@
 import { z } from 'zod';
-import { fitInputSchema } from './fit';
-import { allowanceMm, DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, partSizeMm } from './sizeRules';
+import { FIT_BOX, FIT_SPACE } from './fit';
+import { schemaOf } from './ruleSchema';
+import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM } from './sizeRules';
+import { allowanceMm, partSizeMm } from './sizeInputs';
 
 // What a fit question may ask, as the service and the endpoint read it.
 
@@ -35,8 +37,8 @@ const marginMm = allowanceMm('marginMm').optional();
 
 /** POST /api/fit with a typed space: a box against it, no vehicle page. */
 export const boxAgainstSpaceSchema = z.object({
-	box: fitInputSchema.shape.box,
-	space: fitInputSchema.shape.space,
+	box: schemaOf(FIT_BOX),
+	space: schemaOf(FIT_SPACE),
 	marginMm,
 	tightMm: marginMm
 });

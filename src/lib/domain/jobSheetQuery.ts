@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { object, text, type Problem } from './figureRules';
 import { readLength, type LengthUnit } from './units';
 import { readMaterial, readNumber } from './calcInput';
 import { decodeVinBasics } from './vin';
@@ -62,22 +62,22 @@ const lengthIn = (text: string, unit: LengthUnit): number | string => {
 	}
 };
 
-const customerSchema = z.object({
-	customer: z.string().trim().max(120, 'Keep the customer name under 120 characters.'),
-	order: z.string().trim().max(40, 'Keep the work order under 40 characters.'),
-	vin: z.string().trim().max(40, 'A VIN has 17 characters.'),
-	year: z.string().trim().max(10, 'Model year: type four digits.')
+const CUSTOMER = object({
+	customer: text(120, 'Keep the customer name under 120 characters.'),
+	order: text(40, 'Keep the work order under 40 characters.'),
+	vin: text(40, 'A VIN has 17 characters.'),
+	year: text(10, 'Model year: type four digits.')
 });
 
 /** The customer's details, the VIN checked by its check digit and the model year against the page's years. */
 export function readJobCustomer(q: QueryReader, years: { yearFrom: number; yearTo: number }): { customer: JobCustomer; errors: Record<string, string> } {
 	const errors: Record<string, string> = {};
-	const parsed = customerSchema.safeParse({ customer: q.get('customer') ?? '', order: q.get('order') ?? '', vin: q.get('vin') ?? '', year: q.get('year') ?? '' });
-	if (!parsed.success) {
-		for (const issue of parsed.error.issues) errors[String(issue.path[0])] = issue.message;
+	const problems: Problem[] = [];
+	const c = CUSTOMER({ customer: q.get('customer') ?? '', order: q.get('order') ?? '', vin: q.get('vin') ?? '', year: q.get('year') ?? '' }, [], problems);
+	if (problems.length > 0) {
+		for (const problem of problems) errors[String(problem.path[0])] = problem.message;
 		return { customer: { customer: '', order: '', vin: '', year: '' }, errors };
 	}
-	const c = parsed.data;
 	if (c.vin) {
 		const vin = decodeVinBasics(c.vin);
 		if (vin.problem) errors.vin = vin.problem;

@@ -1,4 +1,5 @@
-import { SECTION_KEYS, type SectionKey, type VehicleContent } from './content/schema';
+import type { VehicleContent } from './content/schema';
+import { SECTION_KEYS, type SectionKey } from './content/vocabulary';
 
 // Which revision last changed each part of a page. A part is a section ("section:seats") or a place
 // the trade measures: "dash", "boot", "seat:<id>", "speaker:<id>", "passage:<id>", "run:<id>", "ground:<id>".

@@ -1,5 +1,4 @@
-import { z } from 'zod';
-import { parseInput } from './validate';
+import { checkFigures, nullable, number, object, oneOf, orDefault, whole } from './figureRules';
 import { awgWire, CABLE_MATERIALS, conductivityShare, DEFAULT_MATERIAL, formatAwg, gaugeLabel, materialBasis, STOCKED_POWER_GAUGES, type CableMaterial } from './wire';
 import { ampacityBasis, mainFuse, wireAmpacityA } from './fuse';
 import { mToFt } from './units';
@@ -63,55 +62,76 @@ export function electricalBasis(volts: number, extra: { maxDropPct?: number; tem
 	return parts.join('; ');
 }
 
-export const materialSchema = z.enum(CABLE_MATERIALS, { error: 'Cable material is copper or cca (copper-clad aluminium).' }).default(DEFAULT_MATERIAL);
+export const CABLE_MATERIAL_WORDS = 'Cable material is copper or cca (copper-clad aluminium).';
+/** A cable material, copper unless another is named. */
+export const CABLE_MATERIAL = orDefault(oneOf(CABLE_MATERIALS, CABLE_MATERIAL_WORDS), DEFAULT_MATERIAL);
 
 // Every figure has a ceiling well past any car, so nothing downstream meets an infinite or absurd value.
 const positive = (label: string, unit: string, max: number) =>
-	z
-		.number({ error: `${label} must be a number of ${unit}.` })
-		.positive(`${label} must be more than 0 ${unit}.`)
-		.max(max, `${label} over ${max.toLocaleString('en')} ${unit} looks like a typo.`);
+	number(
+		`${label} must be a number of ${unit}.`,
+		[(n) => n > 0, `${label} must be more than 0 ${unit}.`],
+		[(n) => n <= max, `${label} over ${max.toLocaleString('en')} ${unit} looks like a typo.`]
+	);
 
-export const ampCurrentInputSchema = z.object({
+/** The conductor temperature resistance is worked at, °C. */
+export const CONDUCTOR_TEMP = orDefault(
+	number(
+		'Cable temperature must be a number of °C.',
+		[(n) => n >= -40, 'Cable temperature below −40 °C is out of range.'],
+		[(n) => n <= 150, 'Cable temperature above 150 °C is out of range.']
+	),
+	DEFAULT_CONDUCTOR_TEMP_C
+);
+
+export const AMP_CURRENT_INPUT = object({
 	rmsWattsPerChannel: positive('RMS power per channel', 'W', 10_000),
-	channels: z
-		.number({ error: 'Channel count must be a number.' })
-		.int('Channel count must be a whole number.')
-		.min(1, 'An amplifier has at least 1 channel.')
-		.max(16, 'More than 16 channels looks like a typo.'),
-	efficiency: z
-		.number({ error: 'Efficiency must be a number between 0 and 1.' })
-		.gt(0, 'Efficiency must be more than 0.')
-		.max(1, 'Efficiency cannot be more than 1 (100 %).'),
-	volts: positive('Supply voltage', 'V', 60).default(NOMINAL_VOLTS)
+	channels: number(
+		'Channel count must be a number.',
+		...whole('Channel count must be a whole number.'),
+		[(n) => n >= 1, 'An amplifier has at least 1 channel.'],
+		[(n) => n <= 16, 'More than 16 channels looks like a typo.']
+	),
+	efficiency: number('Efficiency must be a number between 0 and 1.', [(n) => n > 0, 'Efficiency must be more than 0.'], [(n) => n <= 1, 'Efficiency cannot be more than 1 (100 %).']),
+	volts: orDefault(positive('Supply voltage', 'V', 60), NOMINAL_VOLTS)
 });
-export type AmpCurrentInput = z.input<typeof ampCurrentInputSchema>;
+export interface AmpCurrentInput {
+	rmsWattsPerChannel: number;
+	channels: number;
+	efficiency: number;
+	volts?: number;
+}
 
-export const powerWireInputSchema = z.object({
+export const POWER_WIRE_INPUT = object({
 	currentA: positive('Current', 'A', 2000),
 	powerLengthM: positive('Power run length', 'm', 100),
-	groundLengthM: z
-		.number({ error: 'Ground lead length must be a number of m.' })
-		.min(0, 'Ground lead length cannot be negative.')
-		.max(100, 'Ground lead length over 100 m looks like a typo.'),
-	volts: positive('Supply voltage', 'V', 60).default(NOMINAL_VOLTS),
+	groundLengthM: number(
+		'Ground lead length must be a number of m.',
+		[(n) => n >= 0, 'Ground lead length cannot be negative.'],
+		[(n) => n <= 100, 'Ground lead length over 100 m looks like a typo.']
+	),
+	volts: orDefault(positive('Supply voltage', 'V', 60), NOMINAL_VOLTS),
 	/** The amplifiers' own fuse ratings added up; the fuse must be at least this. */
-	ownFuseA: positive("Amplifiers' own fuse rating", 'A', 2000).nullable().default(null),
-	maxDropPct: positive('Allowed voltage drop', '%', 100)
-		.default(ABYC_E11_CRITICAL_DROP_PCT),
-	tempC: z
-		.number({ error: 'Cable temperature must be a number of °C.' })
-		.min(-40, 'Cable temperature below −40 °C is out of range.')
-		.max(150, 'Cable temperature above 150 °C is out of range.')
-		.default(DEFAULT_CONDUCTOR_TEMP_C),
-	material: materialSchema
+	ownFuseA: orDefault(nullable(positive("Amplifiers' own fuse rating", 'A', 2000)), null),
+	maxDropPct: orDefault(positive('Allowed voltage drop', '%', 100), ABYC_E11_CRITICAL_DROP_PCT),
+	tempC: CONDUCTOR_TEMP,
+	material: CABLE_MATERIAL
 });
-export type PowerWireInput = z.input<typeof powerWireInputSchema>;
+export interface PowerWireInput {
+	currentA: number;
+	powerLengthM: number;
+	groundLengthM: number;
+	volts?: number;
+	ownFuseA?: number | null;
+	maxDropPct?: number;
+	tempC?: number;
+	material?: CableMaterial;
+}
 
 
 /** Battery current: I = P_out / (efficiency × V), with P_out the total RMS output; the running-voltage figure beside. */
 export function ampCurrent(input: AmpCurrentInput): { currentA: number; volts: number; runningCurrentA: number; basis: string } {
-	const { rmsWattsPerChannel, channels, efficiency, volts } = parseInput(ampCurrentInputSchema, input);
+	const { rmsWattsPerChannel, channels, efficiency, volts } = checkFigures(AMP_CURRENT_INPUT, input);
 	const at = (v: number) => (rmsWattsPerChannel * channels) / (efficiency * v);
 	return { currentA: at(volts), volts, runningCurrentA: at(CHARGING_VOLTS), basis: electricalBasis(volts) };
 }
@@ -186,7 +206,7 @@ export type PowerWireResult =
  * Candidates are listed thinnest first.
  */
 export function powerWire(input: PowerWireInput): PowerWireResult {
-	const { currentA, powerLengthM, groundLengthM, volts, maxDropPct, tempC, ownFuseA, material } = parseInput(powerWireInputSchema, input);
+	const { currentA, powerLengthM, groundLengthM, volts, maxDropPct, tempC, ownFuseA, material } = checkFigures(POWER_WIRE_INPUT, input);
 	const loopM = powerLengthM + groundLengthM;
 	const roundTripFt = mToFt(loopM);
 	const requiredCircularMils = abycCircularMils(currentA, roundTripFt, (volts * maxDropPct) / 100, material);

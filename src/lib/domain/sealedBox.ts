@@ -1,5 +1,4 @@
-import { z } from 'zod';
-import { parseInput } from './validate';
+import { checkFigures, number, object, refine } from './figureRules';
 import { litresToCubicFeet } from './boxVolume';
 
 // A sealed box from a driver's Thiele/Small figures (R. H. Small, "Closed-Box Loudspeaker Systems",
@@ -9,18 +8,26 @@ import { litresToCubicFeet } from './boxVolume';
 /** Qtc 0.707: the maximally flat (Butterworth) second-order alignment. */
 export const BUTTERWORTH_QTC = Math.SQRT1_2;
 
-export const sealedInputSchema = z
-	.object({
-		fsHz: z.number({ error: 'Fs must be a number of hertz.' }).positive('Fs must be more than 0 Hz.').min(5, 'Fs under 5 Hz looks like a typo.').max(500, 'Fs over 500 Hz looks like a typo for a woofer.'),
-		qts: z.number({ error: 'Qts must be a number.' }).positive('Qts must be more than 0.').min(0.05, 'Qts under 0.05 looks like a typo.').max(3, 'Qts over 3 looks like a typo.'),
-		vasL: z.number({ error: 'Vas must be a number of litres.' }).positive('Vas must be more than 0 L.').min(0.1, 'Vas under 0.1 L looks like a typo.').max(2000, 'Vas over 2000 L looks like a typo.'),
-		qtc: z.number({ error: 'Qtc must be a number.' }).positive('Qtc must be more than 0.').min(0.3, 'Qtc under 0.3 is not a useful sealed box.').max(3, 'Qtc over 3 looks like a typo.')
-	})
-	.refine((v) => v.qtc > v.qts, {
-		message: "Qtc must be higher than the driver's Qts: a sealed box only ever raises Q.",
-		path: ['qtc']
-	});
-export type SealedInput = z.input<typeof sealedInputSchema>;
+const figure = (typeMessage: string, above: string, min: readonly [number, string], max: readonly [number, string]) =>
+	number(typeMessage, [(n) => n > 0, above], [(n) => n >= min[0], min[1]], [(n) => n <= max[0], max[1]]);
+
+export const SEALED_INPUT = refine(
+	object({
+		fsHz: figure('Fs must be a number of hertz.', 'Fs must be more than 0 Hz.', [5, 'Fs under 5 Hz looks like a typo.'], [500, 'Fs over 500 Hz looks like a typo for a woofer.']),
+		qts: figure('Qts must be a number.', 'Qts must be more than 0.', [0.05, 'Qts under 0.05 looks like a typo.'], [3, 'Qts over 3 looks like a typo.']),
+		vasL: figure('Vas must be a number of litres.', 'Vas must be more than 0 L.', [0.1, 'Vas under 0.1 L looks like a typo.'], [2000, 'Vas over 2000 L looks like a typo.']),
+		qtc: figure('Qtc must be a number.', 'Qtc must be more than 0.', [0.3, 'Qtc under 0.3 is not a useful sealed box.'], [3, 'Qtc over 3 looks like a typo.'])
+	}),
+	(v, refuse) => {
+		if (!(v.qtc > v.qts)) refuse(['qtc'], "Qtc must be higher than the driver's Qts: a sealed box only ever raises Q.");
+	}
+);
+export interface SealedInput {
+	fsHz: number;
+	qts: number;
+	vasL: number;
+	qtc: number;
+}
 
 export interface SealedBox {
 	volumeL: number;
@@ -38,7 +45,7 @@ export interface SealedBox {
  * high-pass: f3 = fc × √((1/Qtc² − 2 + √((1/Qtc² − 2)² + 4)) / 2) (Small, Part I).
  */
 export function sealedBox(input: SealedInput): SealedBox {
-	const { fsHz, qts, vasL, qtc } = parseInput(sealedInputSchema, input);
+	const { fsHz, qts, vasL, qtc } = checkFigures(SEALED_INPUT, input);
 	const ratio = qtc / qts;
 	const alpha = ratio ** 2 - 1;
 	const volumeL = vasL / alpha;

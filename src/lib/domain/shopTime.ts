@@ -1,5 +1,3 @@
-import { z } from 'zod';
-
 // Every date and time a person reads is in the shop's own time zone (a shop setting), with the zone's short
 // name beside it, so "14:05 CEST" on a screen, a mail and a printed sheet mean the same moment.
 
@@ -10,12 +8,6 @@ export function knownTimeZones(): string[] {
 	const zones = Intl.supportedValuesOf('timeZone');
 	return zones.includes('UTC') ? zones : ['UTC', ...zones];
 }
-
-export const timeZoneSchema = z
-	.string({ error: 'Pick the shop’s time zone from the list.' })
-	.trim()
-	.min(1, 'Pick the shop’s time zone from the list.')
-	.refine((zone) => knownTimeZones().includes(zone), { error: 'That is not a time zone this server knows: pick one from the list, for example Europe/Berlin or America/Chicago.' });
 
 /** A zone to format with: an unknown or missing one reads as UTC rather than failing a page. */
 export function usableZone(zone: string | null | undefined): string {

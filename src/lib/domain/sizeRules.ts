@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { number } from './figureRules';
 
 // The ranges a typed size may take, written once for the forms, the endpoints and the calculators.
 // A figure past its limit is read as a slip (a wrong unit, an extra digit), not as a real size.
@@ -26,19 +26,31 @@ export function partSizeProblem(mm: number, max = MAX_DIMENSION_MM): string | nu
 	return null;
 }
 
+/** Why a part size is refused: not a number, not above 0, past `max`. */
+export const partSizeWords = (what: string, max = MAX_DIMENSION_MM) => ({
+	type: `${what} must be a number of millimetres.`,
+	low: `${what} must be more than 0 mm.`,
+	high: `${looksLikeATypo(what, `${max} mm`)}; sizes are in millimetres.`
+});
+
+/** Why a clearance or tight threshold is refused: not a number, below CLEARANCE_MM.min, past its max. */
+export const allowanceWords = (what: string) => ({
+	type: `${what} must be a number of millimetres.`,
+	low: `${what} cannot be negative.`,
+	high: `${looksLikeATypo(what, `${CLEARANCE_MM.max} mm`)}.`
+});
+
 /** A part's size in mm: more than 0, at most `max`. */
-export const partSizeMm = (what: string, max = MAX_DIMENSION_MM) =>
-	z
-		.number({ error: `${what} must be a number of millimetres.` })
-		.positive(`${what} must be more than 0 mm.`)
-		.max(max, `${looksLikeATypo(what, `${max} mm`)}; sizes are in millimetres.`);
+export function partSize(what: string, max = MAX_DIMENSION_MM) {
+	const words = partSizeWords(what, max);
+	return number(words.type, [(n) => n > 0, words.low], [(n) => n <= max, words.high]);
+}
 
 /** A clearance or tight threshold in mm, within CLEARANCE_MM. */
-export const allowanceMm = (what: string) =>
-	z
-		.number({ error: `${what} must be a number of millimetres.` })
-		.min(CLEARANCE_MM.min, `${what} cannot be negative.`)
-		.max(CLEARANCE_MM.max, `${looksLikeATypo(what, `${CLEARANCE_MM.max} mm`)}.`);
+export function allowance(what: string) {
+	const words = allowanceWords(what);
+	return number(words.type, [(n) => n >= CLEARANCE_MM.min, words.low], [(n) => n <= CLEARANCE_MM.max, words.high]);
+}
 
 /** How the clearance range reads beside a form field. */
 export const CLEARANCE_RANGE_TEXT = `Clearance must be a number of mm from ${CLEARANCE_MM.min} to ${CLEARANCE_MM.max}.`;

@@ -1,5 +1,3 @@
-import { z } from 'zod';
-
 // Lengths are stored metric (mm for parts and spaces, m for cable runs) and only
 // converted for display or when a person types imperial.
 
@@ -78,17 +76,6 @@ export function parseLength(input: string, defaultUnit: LengthUnit): number {
 	}
 	return value * MM_PER_UNIT[unit ?? defaultUnit];
 }
-
-/** Form field: a typed length as millimetres, with the same messages as parseLength. */
-export const lengthInputSchema = (defaultUnit: LengthUnit) =>
-	z.string().transform((text, ctx) => {
-		try {
-			return parseLength(text, defaultUnit);
-		} catch (e) {
-			ctx.issues.push({ code: 'custom', message: (e as Error).message, input: text });
-			return z.NEVER;
-		}
-	});
 
 function fraction(numerator: string, denominator: string, input: string): number {
 	const d = Number(denominator);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { unit } from 'mathjs';
-import { fieldTree } from '../../../src/lib/domain/content/fieldTree';
+import { fieldTree } from '../../../src/lib/domain/content/fieldRules';
 import { fieldChanges } from '../../../src/lib/domain/content/fieldDiff';
 import { contentFromForm, formEntries, formFromContent } from '../../../src/lib/domain/content/formCodec';
 import { applyIntent } from '../../../src/lib/domain/content/editIntents';

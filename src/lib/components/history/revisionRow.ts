@@ -1,4 +1,4 @@
-import type { SectionKey } from '../../domain/content/schema';
+import type { SectionKey } from '../../domain/content/vocabulary';
 import type { ChangeTally } from '../../domain/content/changeTally';
 
 export type RevisionRow = {

@@ -1,6 +1,8 @@
 import { formatDay } from '../../domain/shopTime';
 import { formatFieldValue } from '../../domain/content/fieldDiff';
-import { SECTION_KEYS, SECTION_NAMES, VEHICLE_FIELDS, type SectionKey, type VehicleContent } from '../../domain/content/schema';
+import type { VehicleContent } from '../../domain/content/schema';
+import { VEHICLE_FIELDS } from '../../domain/content/vehicleFields';
+import { SECTION_KEYS, SECTION_NAMES, type SectionKey } from '../../domain/content/vocabulary';
 import { fieldName, type FieldTree } from '../../domain/content/fieldTree';
 import { formatLength, formatMetres, type UnitSystem } from '../../domain/units';
 

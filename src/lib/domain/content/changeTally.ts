@@ -1,6 +1,7 @@
 import { fieldChanges, notesChanges, patternOf, valueAtPath } from './fieldDiff';
 import type { FieldTree } from './fieldTree';
-import { VEHICLE_FIELDS, type VehicleContent } from './schema';
+import type { VehicleContent } from './schema';
+import { VEHICLE_FIELDS } from './vehicleFields';
 
 /** What a revision changed, in the terms a shop scans a log by. */
 export type ChangeTally = {

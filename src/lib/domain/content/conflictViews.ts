@@ -2,7 +2,7 @@ import type { UnitSystem } from '../units';
 import type { FieldTree } from './fieldTree';
 import { formatFieldValue, patternOf } from './fieldDiff';
 import type { MergeConflict } from './merge';
-import { VEHICLE_FIELDS } from './schema';
+import { VEHICLE_FIELDS } from './vehicleFields';
 
 // Fields two people changed at once, shown side by side so the writer can pick a value.
 

@@ -1,7 +1,10 @@
 import { lengthText, readLength, type LengthUnit } from '../units';
 import type { FieldNode, FieldTree, GroupNode, ListNode, LeafNode } from './fieldTree';
-import { formRoot, INDEX, isRecord, type ContentDraft, type Raw } from './formCodec';
-import { newItemId, SEATS, VEHICLE_FIELDS } from './schema';
+import type { ContentDraft } from './formCodec';
+import { formRoot, INDEX, isRecord, type Raw } from './formShape';
+import { newItemId } from './itemId';
+import { VEHICLE_FIELDS } from './vehicleFields';
+import { SEATS } from './vocabulary';
 
 // What the editor's buttons do to the form before anything is saved: add, remove and move
 // list entries, and retype lengths in the other unit. The same code runs in the browser and,

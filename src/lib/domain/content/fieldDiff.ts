@@ -1,7 +1,10 @@
 import { diffWordsWithSpace } from 'diff';
 import { formatLength, formatMetres, type UnitSystem } from '../units';
-import type { FieldTree } from './fieldTree';
-import { canonicalJson, FIELD_INFO, SECTION_KEYS, SECTION_NAMES, SEAT_NAMES, VEHICLE_FIELDS, type FieldInfo, type SectionKey, type VehicleContent } from './schema';
+import { canonicalJson } from './canonicalJson';
+import type { FieldInfo, FieldTree } from './fieldTree';
+import type { VehicleContent } from './schema';
+import { FIELD_INFO, VEHICLE_FIELDS } from './vehicleFields';
+import { SEAT_NAMES, SECTION_KEYS, SECTION_NAMES, type SectionKey } from './vocabulary';
 
 // Paths name a field the way a person finds it on the page: list entries by id, not
 // position, so "seats.spaces[k3f9].heightMm" still means the same seat after a reorder.

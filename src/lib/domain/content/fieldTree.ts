@@ -1,8 +1,8 @@
-import { z } from 'zod';
+import type { z } from 'zod';
 
-// The vehicle page's fields, declared once beside their zod rules (schema.ts) and read back
-// as a tree: sections → fields and lists of entries. The form codec, the editor, the field
-// diff and the search document all walk this tree instead of naming fields themselves.
+// The vehicle page's fields as a tree: sections → fields and lists of entries. The form codec,
+// the editor, the field diff and the search document all walk this tree instead of naming fields
+// themselves. Plain data: the browser reads it without the rules it was declared beside (schema.ts).
 
 /** How a stored value is shown, typed and merged. */
 export type FieldKind =
@@ -67,11 +67,6 @@ export interface SectionInfo {
 	hint?: string;
 }
 
-type Registered = FieldInfo | ListInfo | SectionInfo;
-
-/** Field information attached to zod schemas; the walk below finds it. */
-export const fieldRegistry = z.registry<Registered>();
-
 export interface LeafNode {
 	type: 'field';
 	key: string;
@@ -101,69 +96,14 @@ export interface ListNode {
 export type FieldNode = LeafNode | GroupNode | ListNode;
 
 export interface FieldTree {
-	/** The whole page's rule, checked on every save. */
-	schema: z.ZodType;
+	/** Everything at the page's top level, in order: the sections and the photo list. */
+	top: FieldNode[];
 	/** Top-level sections in page order. */
 	sections: GroupNode[];
 	/** Every field by pattern. */
 	info: Readonly<Record<string, FieldInfo>>;
 	/** Every node by pattern (lists by their own pattern, "seats.spaces"). */
 	nodes: ReadonlyMap<string, FieldNode>;
-}
-
-interface ZodDef {
-	type: string;
-	innerType?: z.ZodType;
-	in?: z.ZodType;
-	shape?: Record<string, z.ZodType>;
-	element?: z.ZodType;
-}
-
-const defOf = (schema: z.ZodType) => (schema as unknown as { _zod: { def: ZodDef } })._zod.def;
-
-const WRAPPERS = new Set(['default', 'prefault', 'nullable', 'optional', 'readonly', 'catch', 'pipe']);
-
-/** The schema under defaults, nullables and pipes, with the first field information found on the way. */
-function unwrap(schema: z.ZodType): { core: z.ZodType; info: Registered | undefined; nullable: boolean } {
-	let core = schema;
-	let info = fieldRegistry.get(core);
-	let nullable = false;
-	for (let def = defOf(core); WRAPPERS.has(def.type); def = defOf(core)) {
-		if (def.type === 'nullable') nullable = true;
-		const inner = def.type === 'pipe' ? def.in : def.innerType;
-		if (!inner) break;
-		core = inner;
-		info ??= fieldRegistry.get(core);
-	}
-	return { core, info, nullable };
-}
-
-const join = (a: string, b: string) => (a ? `${a}.${b}` : b);
-
-function node(key: string, pattern: string, schema: z.ZodType): FieldNode | null {
-	const { core, info, nullable } = unwrap(schema);
-	const def = defOf(core);
-	if (info && info.kind !== 'list' && info.kind !== 'page-section') return { type: 'field', key, pattern, info, nullable };
-	if (def.type === 'object' && def.shape) {
-		const group = groupOf(key, pattern, def.shape);
-		if (info?.kind === 'page-section') group.section = info;
-		return group;
-	}
-	if (def.type === 'array' && def.element && info?.kind === 'list') {
-		const entry = node('', `${pattern}[]`, def.element);
-		if (entry?.type !== 'group') return null;
-		return { type: 'list', key, pattern, info, entry };
-	}
-	return null;
-}
-
-function groupOf(key: string, pattern: string, shape: Record<string, z.ZodType>): GroupNode {
-	const children: FieldNode[] = [];
-	for (const [k, child] of Object.entries(shape)) {
-		const n = node(k, pattern.endsWith('[]') ? `${pattern}.${k}` : join(pattern, k), child);
-		if (n) children.push(n);
-	}
-	return { type: 'group', key, pattern, children };
 }
 
 function index(n: FieldNode, info: Record<string, FieldInfo>, nodes: Map<string, FieldNode>): void {
@@ -173,15 +113,18 @@ function index(n: FieldNode, info: Record<string, FieldInfo>, nodes: Map<string,
 	else for (const c of n.children) index(c, info, nodes);
 }
 
-/** Reads the field tree out of a page schema whose fields were registered in `fieldRegistry`. */
-export function fieldTree(schema: z.ZodType): FieldTree {
-	const root = node('', '', schema);
-	if (root?.type !== 'group') throw new Error('A page schema is an object of sections.');
+/** The tree of a page whose top level holds these nodes (its sections, and lists such as photos), indexed by pattern. */
+export function treeOf(top: FieldNode[]): FieldTree {
 	const info: Record<string, FieldInfo> = {};
 	const nodes = new Map<string, FieldNode>();
-	for (const c of root.children) index(c, info, nodes);
-	const sections = root.children.filter((c): c is GroupNode => c.type === 'group' && !!c.section);
-	return { schema, sections, info, nodes };
+	for (const c of top) index(c, info, nodes);
+	const sections = top.filter((c): c is GroupNode => c.type === 'group' && !!c.section);
+	return { top, sections, info, nodes };
+}
+
+/** A page's field tree with the rule the whole page is checked against on every save. */
+export interface PageRules extends FieldTree {
+	schema: z.ZodType;
 }
 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);

@@ -1,6 +1,9 @@
 import { lengthText, readAmps, readLength, readOhms, type LengthUnit } from '../units';
-import { fieldName, type FieldNode, type FieldTree, type GroupNode, type LeafNode } from './fieldTree';
-import { CONTENT_SCHEMA_VERSION, formatZodIssues, newItemId, VEHICLE_FIELDS, type VehicleContent } from './schema';
+import { fieldName, type FieldNode, type FieldTree, type GroupNode, type LeafNode, type PageRules } from './fieldTree';
+import { formRoot, INDEX, isRecord, joinPath, type Raw } from './formShape';
+import { newItemId } from './itemId';
+import { CONTENT_SCHEMA_VERSION, formatZodIssues, VEHICLE_RULES, type VehicleContent } from './schema';
+import { VEHICLE_FIELDS } from './vehicleFields';
 import type { ConflictView } from './conflictViews';
 
 // A vehicle page as an HTML form. Every field is text under a dotted name such as
@@ -18,17 +21,6 @@ type DraftOf<T> = T extends readonly string[]
 /** Everything the editor form holds: the page as typed text, list entries keyed by id. */
 export type ContentDraft = DraftOf<Omit<VehicleContent, 'schemaVersion' | 'photos'>>;
 
-export type Raw = Record<string, unknown>;
-
-export const isRecord = (v: unknown): v is Raw => v !== null && typeof v === 'object' && !Array.isArray(v);
-
-export const joinPath = (a: string, b: string | number) => (a ? `${a}.${b}` : String(b));
-
-/** The part of the tree the form holds: every section, in page order. */
-export const formRoot = (fields: FieldTree): GroupNode => ({ type: 'group', key: '', pattern: '', children: fields.sections });
-
-/** Posted list positions: "0" to "9999". */
-export const INDEX = /^\d{1,4}$/;
 
 const isMeasure = (kind: string): kind is 'mm' | 'm' | 'ohm' | 'amp' => kind === 'mm' || kind === 'm' || kind === 'ohm' || kind === 'amp';
 
@@ -238,7 +230,7 @@ export function contentFromDraft(
 	draft: ContentDraft,
 	unit: LengthUnit,
 	base?: VehicleContent | null,
-	fields: FieldTree = VEHICLE_FIELDS
+	fields: PageRules = VEHICLE_RULES
 ): FormContent {
 	const b: Build = { unit, errors: {}, places: new Map() };
 	const built = fromDraft(formRoot(fields), draft, base ?? null, { form: '', content: '' }, b) as Raw;
@@ -259,7 +251,7 @@ export function contentFromForm(
 	entries: Iterable<readonly [string, string]>,
 	unit: LengthUnit,
 	base?: VehicleContent | null,
-	fields: FieldTree = VEHICLE_FIELDS
+	fields: PageRules = VEHICLE_RULES
 ): FormContent {
 	return contentFromDraft(draftFromEntries(entries, fields), unit, base, fields);
 }

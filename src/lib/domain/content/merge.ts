@@ -1,6 +1,8 @@
 import { diffArrays } from 'diff';
 import { describePath, formatPath, parsePath, type PathSegment } from './fieldDiff';
-import { canonicalJson, FIELD_INFO, type VehicleContent } from './schema';
+import { canonicalJson } from './canonicalJson';
+import type { VehicleContent } from './schema';
+import { FIELD_INFO } from './vehicleFields';
 
 // Two writers opened the same revision (base); "theirs" was saved first, "yours" is
 // being saved now. Whatever only one side touched is taken from that side.

@@ -1,106 +1,37 @@
 import { z } from 'zod';
-import { fieldRegistry, fieldTree, type EditHint, type FieldInfo, type ListInfo, type SearchHint } from './fieldTree';
+import { fieldRegistry } from './fieldRules';
+import type { EditHint, FieldInfo, ListInfo, PageRules, SearchHint } from './fieldTree';
+import { SEARCH_LINES } from './searchLines';
+import { FIELD_INFO, VEHICLE_FIELDS } from './vehicleFields';
 import { MAX_MEASURED_MM, MAX_RUN_M } from '../sizeRules';
+import {
+	BATTERY_LOCATION_NAMES,
+	BATTERY_LOCATIONS,
+	BODY_STYLE_NAMES,
+	BODY_STYLES,
+	DASH_OPENING_NAMES,
+	DASH_OPENINGS,
+	FEED_KIND_NAMES,
+	FEED_KINDS,
+	PASSAGE_KIND_NAMES,
+	PASSAGE_KINDS,
+	PUSH_SIDE_NAMES,
+	PUSH_SIDES,
+	SEAT_NAMES,
+	SEATS,
+	SECTION_KEYS,
+	SECTION_NAMES,
+	type SectionKey
+} from './vocabulary';
 
 // One vehicle page as stored in a revision. Units are metric: mm for spaces and
 // parts, m for cable runs, Ω for resistance and impedance, A for fuses.
 
 export const CONTENT_SCHEMA_VERSION = 1;
 
-export const SECTION_KEYS = [
-	'identity',
-	'power',
-	'firewall',
-	'seats',
-	'dash',
-	'harness',
-	'boot',
-	'speakers',
-	'camera',
-	'removal'
-] as const;
-export type SectionKey = (typeof SECTION_KEYS)[number];
-
-export const SECTION_NAMES: Readonly<Record<SectionKey, string>> = {
-	identity: 'Identity',
-	power: 'Power & ground',
-	firewall: 'Firewall pass-through',
-	seats: 'Seat space',
-	dash: 'Dash & head unit',
-	harness: 'Harness & integration',
-	boot: 'Boot & cargo',
-	speakers: 'Speakers',
-	camera: 'Camera & accessories',
-	removal: 'Removal & surprises'
-};
-
-export const BODY_STYLES = ['sedan', 'hatchback', 'wagon', 'coupe', 'convertible', 'suv', 'pickup', 'van', 'other'] as const;
-export type BodyStyle = (typeof BODY_STYLES)[number];
-export const BODY_STYLE_NAMES: Readonly<Record<BodyStyle, string>> = {
-	sedan: 'Sedan',
-	hatchback: 'Hatchback',
-	wagon: 'Wagon / estate',
-	coupe: 'Coupé',
-	convertible: 'Convertible',
-	suv: 'SUV',
-	pickup: 'Pickup',
-	van: 'Van',
-	other: 'Other body'
-};
-
-export const BATTERY_LOCATIONS = ['engine-bay', 'boot', 'under-seat', 'other'] as const;
-export type BatteryLocation = (typeof BATTERY_LOCATIONS)[number];
-export const BATTERY_LOCATION_NAMES: Readonly<Record<BatteryLocation, string>> = {
-	'engine-bay': 'Engine bay',
-	boot: 'Boot / trunk',
-	'under-seat': 'Under a seat',
-	other: 'Elsewhere'
-};
-
-export const PASSAGE_KINDS = ['factory-grommet', 'added-grommet', 'drilled'] as const;
-export type PassageKind = (typeof PASSAGE_KINDS)[number];
-export const PASSAGE_KIND_NAMES: Readonly<Record<PassageKind, string>> = {
-	'factory-grommet': 'Factory grommet',
-	'added-grommet': 'Added grommet',
-	drilled: 'Drilled hole'
-};
-
-export const PUSH_SIDES = ['cabin', 'engine-bay', 'either'] as const;
-export type PushSide = (typeof PUSH_SIDES)[number];
-export const PUSH_SIDE_NAMES: Readonly<Record<PushSide, string>> = {
-	cabin: 'From the cabin',
-	'engine-bay': 'From the engine bay',
-	either: 'Either side'
-};
-
-export const SEATS = ['driver', 'passenger', 'rear'] as const;
-export type Seat = (typeof SEATS)[number];
-export const SEAT_NAMES: Readonly<Record<Seat, string>> = {
-	driver: 'Driver',
-	passenger: 'Passenger',
-	rear: 'Rear'
-};
-
-export const DASH_OPENINGS = ['single-din', '1.5-din', 'double-din', 'oversize', 'kit', 'integrated'] as const;
-export type DashOpening = (typeof DASH_OPENINGS)[number];
-export const DASH_OPENING_NAMES: Readonly<Record<DashOpening, string>> = {
-	'single-din': 'Single DIN',
-	'1.5-din': '1.5 DIN',
-	'double-din': 'Double DIN',
-	oversize: 'Oversize',
-	kit: 'Kit opening (the dash kit sets the size)',
-	integrated: 'Integrated (no DIN opening)'
-};
-
-export const FEED_KINDS = ['constant', 'switched', 'ignition', 'accessory'] as const;
-export type FeedKind = (typeof FEED_KINDS)[number];
-export const FEED_KIND_NAMES: Readonly<Record<FeedKind, string>> = {
-	constant: 'Constant 12 V',
-	switched: 'Switched 12 V',
-	ignition: 'Ignition',
-	accessory: 'Accessory (ACC)'
-};
-
+export * from './vocabulary';
+export { newItemId } from './itemId';
+export { canonicalJson } from './canonicalJson';
 export type { FieldInfo, FieldKind } from './fieldTree';
 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
@@ -356,7 +287,7 @@ const passage = section('A firewall passage', {
 const firewallSchema = pageSection('firewall', {
 	passages: entries(passage, 'firewall passages', {
 		noun: 'passage',
-		searchLine: (p) => `${PASSAGE_KIND_NAMES[p.kind as PassageKind] ?? ''}: ${p.location}`
+		searchLine: SEARCH_LINES.passage
 	}),
 	notes: notes('firewall notes')
 });
@@ -422,7 +353,7 @@ const harnessSchema = pageSection('harness', {
 	illumination: text('illumination', 300, { search: { label: 'Illumination' } }),
 	connectors: longText('connector notes', 1000),
 	can: longText('CAN notes', 1000, { edit: { row: 'grid gap-4' } }),
-	wires: entries(wire, 'wires', { noun: 'wire', title: 'Wire table', grid: 'grid grid-cols-2 gap-3 sm:grid-cols-3', searchLine: (w) => `${w.function} ${w.colour}` }, 200),
+	wires: entries(wire, 'wires', { noun: 'wire', title: 'Wire table', grid: 'grid grid-cols-2 gap-3 sm:grid-cols-3', searchLine: SEARCH_LINES.wire }, 200),
 	ladder: section('The steering-wheel control ladder', {
 		lines: entries(ladderLine, 'control lines', { noun: 'control line', title: 'Steering-wheel control ladder', grid: 'grid gap-3' }, 8)
 	}).prefault({}),
@@ -471,7 +402,7 @@ const speakersSchema = pageSection('speakers', {
 	locations: entries(speakerLocation, 'speaker locations', {
 		noun: 'speaker location',
 		grid: 'grid grid-cols-2 gap-3 sm:grid-cols-3',
-		searchLine: (s) => `${s.location} ${s.nominalSize}`
+		searchLine: SEARCH_LINES.speakerLocation
 	}),
 	notes: notes('speaker notes')
 });
@@ -496,7 +427,7 @@ const cameraSchema = pageSection('camera', {
 		noun: 'accessory feed',
 		title: 'Hard-wire feeds',
 		grid: 'grid grid-cols-2 gap-3 sm:grid-cols-4',
-		searchLine: (f) => `${f.name} (${(FEED_KIND_NAMES[f.kind as FeedKind] ?? '').toLowerCase()}) ${f.location}`
+		searchLine: SEARCH_LINES.feed
 	}),
 	notes: notes('camera notes')
 });
@@ -553,11 +484,10 @@ export const vehicleContentSchema = pageSchema({
 	removal: removalSchema.prefault({})
 });
 
-/** The vehicle page's field tree: what the form, the editor, the diff and search walk. */
-export const VEHICLE_FIELDS = fieldTree(vehicleContentSchema);
+export { FIELD_INFO, VEHICLE_FIELDS };
 
-/** Every leaf field of a page, keyed by its pattern: "seats.spaces[].heightMm". */
-export const FIELD_INFO: Readonly<Record<string, FieldInfo>> = VEHICLE_FIELDS.info;
+/** The vehicle page's field tree with its rule: what a save is read and checked by. */
+export const VEHICLE_RULES: PageRules = { ...VEHICLE_FIELDS, schema: vehicleContentSchema };
 
 export type VehicleContent = z.output<typeof vehicleContentSchema>;
 export type VehicleContentInput = z.input<typeof vehicleContentSchema>;
@@ -588,15 +518,6 @@ export function emptyContent(identity: IdentityInput): VehicleContent {
 	return vehicleContentSchema.parse({ schemaVersion: CONTENT_SCHEMA_VERSION, identity });
 }
 
-const ID_ALPHABET = 'abcdefghijkmnpqrstuvwxyz23456789';
-
-/** A short id for a new list entry: 10 characters, 50 random bits. */
-export function newItemId(): string {
-	const bytes = globalThis.crypto.getRandomValues(new Uint8Array(10));
-	// 256 is a multiple of the 32-letter alphabet, so every letter is equally likely.
-	return Array.from(bytes, (b) => ID_ALPHABET[b % ID_ALPHABET.length]).join('');
-}
-
 /** Validates stored or posted content; a string is read as JSON first. */
 export function parseContent(json: unknown): z.ZodSafeParseResult<VehicleContent> {
 	let value = json;
@@ -611,24 +532,6 @@ export function parseContent(json: unknown): z.ZodSafeParseResult<VehicleContent
 		}
 	}
 	return vehicleContentSchema.safeParse(value);
-}
-
-/** JSON with object keys sorted at every level: equal content gives equal text, for hashing and "no change". */
-export function canonicalJson(content: unknown): string {
-	return JSON.stringify(sortKeys(content));
-}
-
-function sortKeys(value: unknown): unknown {
-	if (Array.isArray(value)) return value.map((v) => (v === undefined ? null : sortKeys(v)));
-	if (value !== null && typeof value === 'object') {
-		const out: Record<string, unknown> = {};
-		for (const key of Object.keys(value).sort()) {
-			const v = (value as Record<string, unknown>)[key];
-			if (v !== undefined) out[key] = sortKeys(v);
-		}
-		return out;
-	}
-	return value;
 }
 
 /** Issues keyed by form path ("seats.spaces.0.heightMm"; "" for the page itself), first message per field. */

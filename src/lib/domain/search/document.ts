@@ -1,5 +1,7 @@
 import { fieldName, type FieldNode, type FieldTree, type LeafNode } from '../content/fieldTree';
-import { BODY_STYLE_NAMES, VEHICLE_FIELDS, type Identity, type SectionKey, type VehicleContent } from '../content/schema';
+import type { Identity, VehicleContent } from '../content/schema';
+import { VEHICLE_FIELDS } from '../content/vehicleFields';
+import { BODY_STYLE_NAMES, type SectionKey } from '../content/vocabulary';
 import { vehicleTitle } from '../slug';
 import { plainText, searchWords } from './words';
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { BODY_STYLE_NAMES, BODY_STYLES, type BodyStyle } from '../content/schema';
+import { BODY_STYLE_NAMES, BODY_STYLES, type BodyStyle } from '../content/vocabulary';
 import { inToMm, mmToIn } from '../units';
 import { MAX_MEASURED_MM } from '../sizeRules';
 import { COMPARISON_NAMES, MEASUREMENTS, measurementByKey, toMicrometres, type MeasureCondition } from './measurements';

@@ -1,4 +1,5 @@
-import { SEAT_NAMES, SEATS, type Seat, type SectionKey, type VehicleContent } from '../content/schema';
+import type { VehicleContent } from '../content/schema';
+import { SEAT_NAMES, SEATS, type Seat, type SectionKey } from '../content/vocabulary';
 
 // Measurements search can filter on. A page may record several entries of one place (two passenger
 // spaces, three passages); conditions on the same place must all hold on one and the same entry.

@@ -1,4 +1,4 @@
-import type { BodyStyle, SectionKey } from '../content/schema';
+import type { BodyStyle, SectionKey } from '../content/vocabulary';
 import { modelYears } from '../slug';
 import { vehicleHeadline, type SearchSection } from './document';
 

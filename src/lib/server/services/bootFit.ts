@@ -1,4 +1,5 @@
-import { bootSpaceOf, checkedEnclosureFit, enclosureAgainstPageSchema, enclosureBoxSchema, enclosureFit, enclosureFitReason, loadOpeningOf, type EnclosureAgainstPage, type EnclosureBox, type EnclosureFit } from '../../domain/bootFit';
+import { bootSpaceOf, checkedEnclosureFit, enclosureFit, enclosureFitReason, loadOpeningOf, type EnclosureBox, type EnclosureFit } from '../../domain/bootFit';
+import { enclosureAgainstPageSchema, enclosureBoxSchema, type EnclosureAgainstPage } from '../../domain/bootFitRequest';
 import { reverseOptionsSchema, type ReverseOptions } from '../../domain/fitRequest';
 import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM } from '../../domain/sizeRules';
 import type { FitVerdict } from '../../domain/fit';

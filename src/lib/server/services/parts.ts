@@ -6,13 +6,13 @@ import {
 	emptyPartForm,
 	PART_KINDS,
 	partFieldsFromForm,
-	partInputSchema,
-	readPartForm,
 	type Part,
 	type PartData,
 	type PartFormValues,
 	type PartKind
 } from '../../domain/part';
+import { readPartForm } from '../../domain/partForm';
+import { partInputSchema } from '../../domain/partSchema';
 import type { SessionUser } from '../../domain/sessionUser';
 import { roleAtLeast } from '../../domain/roles';
 import { recordAudit } from './audit';

@@ -1,5 +1,6 @@
 import { Setting } from '../db/models';
-import { DEFAULT_TIME_ZONE, timeZoneSchema, usableZone } from '../../domain/shopTime';
+import { DEFAULT_TIME_ZONE, usableZone } from '../../domain/shopTime';
+import { timeZoneSchema } from '../../domain/timeZoneInput';
 import { roleAtLeast } from '../../domain/roles';
 import type { SessionUser } from '../../domain/sessionUser';
 import { db } from '../db';

@@ -2,7 +2,8 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
-import { ampCurrent, ampCurrentInputSchema } from '$lib/domain/power';
+import { ampCurrent } from '$lib/domain/power';
+import { ampCurrentInputSchema } from '$lib/domain/powerInput';
 import { FUSE_CAUTIONS } from '$lib/domain/fuse';
 
 export const POST: RequestHandler = ({ locals, request }) =>

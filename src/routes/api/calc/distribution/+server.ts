@@ -3,7 +3,8 @@ import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
-import { distributionInputSchema, distributionPlan } from '$lib/domain/distribution';
+import { distributionPlan } from '$lib/domain/distribution';
+import { distributionInputSchema } from '$lib/domain/calcSchemas';
 import { FUSE_CAUTIONS } from '$lib/domain/fuse';
 import { gaugeLabel } from '$lib/domain/wire';
 

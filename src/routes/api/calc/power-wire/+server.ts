@@ -3,7 +3,8 @@ import type { RequestHandler } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, readJson } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
-import { powerWire, powerWireInputSchema } from '$lib/domain/power';
+import { powerWire } from '$lib/domain/power';
+import { powerWireInputSchema } from '$lib/domain/powerInput';
 import { FUSE_CAUTIONS } from '$lib/domain/fuse';
 
 export const POST: RequestHandler = ({ locals, request }) =>

@@ -1,5 +1,6 @@
 import type { RequestHandler } from './$types';
 import { calcPost } from '$lib/server/http';
-import { sealedBox, sealedInputSchema } from '$lib/domain/sealedBox';
+import { sealedBox } from '$lib/domain/sealedBox';
+import { sealedInputSchema } from '$lib/domain/calcSchemas';
 
 export const POST: RequestHandler = calcPost(sealedInputSchema, sealedBox);

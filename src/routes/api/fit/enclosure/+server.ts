@@ -4,7 +4,8 @@ import { requireRole } from '$lib/server/auth/guard';
 import { apiCall, peekJson, readJson } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
 import { checkBootFit, vehiclesForBootBox, vehiclesForBootPart } from '$lib/server/services/bootFit';
-import { BOOT_CAUTION, bootReverseSchema, enclosureAgainstPageSchema, enclosureAgainstSpaceSchema, enclosureFit, enclosureFitReason } from '$lib/domain/bootFit';
+import { BOOT_CAUTION, enclosureFit, enclosureFitReason } from '$lib/domain/bootFit';
+import { bootReverseSchema, enclosureAgainstPageSchema, enclosureAgainstSpaceSchema } from '$lib/domain/bootFitRequest';
 
 /** An enclosure through a load opening and into a boot: typed figures, or a part or box against a page. */
 export const POST: RequestHandler = ({ locals, request }) =>

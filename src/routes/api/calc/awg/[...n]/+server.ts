@@ -4,7 +4,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import { apiCall } from '$lib/server/http';
 import { ServiceError } from '$lib/server/errors';
 import { awgWire, gaugeLabel, materialBasis, parseAwg } from '$lib/domain/wire';
-import { materialSchema } from '$lib/domain/power';
+import { materialSchema } from '$lib/domain/powerInput';
 import { wireAmpacityA } from '$lib/domain/fuse';
 import { AWG_TABLE_GAUGES } from '$lib/domain/calcInput';
 
