@@ -18,15 +18,8 @@ import {
 	type PageForReading,
 	type RevisionHead
 } from '../services/renderedPages';
-import { renderBody, type RenderedBody } from './vehicleBody';
-import { packParts, unpackParts, type StoredParts } from './storedParts';
-
-/** What every reader of one content in one unit system is shown alike. */
-export type ReadingParts = RenderedBody & {
-	/** The header's names and years; the identity notes are in the body. */
-	identity: Omit<VehicleContent['identity'], 'notes'>;
-	photos: VehicleContent['photos'];
-};
+import { renderBody } from './vehicleBody';
+import { packParts, unpackParts, type ReadingParts, type StoredParts } from './storedParts';
 
 /**
  * Which build rendered the stored parts: a new build renders every page again on its first view, so a

@@ -2,8 +2,15 @@
 // data (names, photos, outline, and each fragment's name and length in bytes), then the fragments' HTML one
 // after another. A view reads the row as bytes and takes each fragment as a slice of them, so the tens of
 // kilobytes of HTML are neither parsed out of JSON nor encoded again before they are sent.
-import type { ReadingParts } from './readingPage';
-import { bodyFragments } from './vehicleBody';
+import type { VehicleContent } from '../../domain/content/schema';
+import { bodyFragments, type RenderedBody } from './vehicleBody';
+
+/** What every reader of one content in one unit system is shown alike. */
+export type ReadingParts = RenderedBody & {
+	/** The header's names and years; the identity notes are in the body. */
+	identity: Omit<VehicleContent['identity'], 'notes'>;
+	photos: VehicleContent['photos'];
+};
 
 /** The parts as a view uses them: the data as values, each fragment as UTF-8 bytes. */
 export type StoredParts = Omit<ReadingParts, 'body'> & { fragments: Record<string, Uint8Array> };
