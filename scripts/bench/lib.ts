@@ -1,6 +1,6 @@
 // Helpers shared by the benchmarks: a private MariaDB of their own, the built app, timing.
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 
 export function percentile(sorted: number[], p: number): number {
 	if (sorted.length === 0) return NaN;
@@ -26,6 +26,28 @@ export function benchDatabase(name: string, port: number, bufferPool = '512M') {
 			execFileSync('rm', ['-rf', env.DB_DATA_DIR]);
 		}
 	};
+}
+
+/** CPU seconds (user + system) a process has used so far, from /proc. */
+export function cpuSeconds(pid: number): number {
+	const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+	// utime and stime are the 14th and 15th fields of the line, in clock ticks (100 a second on Linux).
+	return (Number(fields[11]) + Number(fields[12])) / 100;
+}
+
+/** The process id of a bench database started by `benchDatabase(name, …)`. */
+export function databasePid(name: string): number {
+	return Number(readFileSync(`.data/bench-${name}-mariadb/mysqld.pid`, 'utf8').trim());
+}
+
+/** Measures how busy the app server and the database were while `run` ran, as a share of one core each. */
+export async function busy<T>(pids: { app: number; database: number }, run: () => Promise<T>): Promise<{ result: T; appCores: number; databaseCores: number }> {
+	const t0 = performance.now();
+	const app0 = cpuSeconds(pids.app);
+	const db0 = cpuSeconds(pids.database);
+	const result = await run();
+	const seconds = (performance.now() - t0) / 1000;
+	return { result, appCores: (cpuSeconds(pids.app) - app0) / seconds, databaseCores: (cpuSeconds(pids.database) - db0) / seconds };
 }
 
 export async function startBuiltApp(port: number, env: NodeJS.ProcessEnv): Promise<ChildProcess> {

@@ -5,7 +5,7 @@ import http from 'node:http';
 import { loadavg } from 'node:os';
 import autocannon from 'autocannon';
 import mariadb from 'mariadb';
-import { benchDatabase, fmt, signInCookie, startBuiltApp, summarize, writeResults } from './lib';
+import { benchDatabase, busy, databasePid, fmt, signInCookie, startBuiltApp, summarize, writeResults } from './lib';
 import { canonicalJson, type VehicleContent } from '../../src/lib/domain/content/schema';
 import { vehicleSlug } from '../../src/lib/domain/slug';
 
@@ -165,14 +165,14 @@ try {
 		// views repeat and most pages are rendered afresh.
 		const order = slugs.map((slug, i) => ({ slug, k: (shift + i * 7_919) % slugs.length })).sort((x, y) => x.k - y.k).map((x) => x.slug);
 		let at = 0;
-		const mixedRun = await autocannon({
+		const { result: mixedRun, appCores, databaseCores } = await busy({ app: app.pid!, database: databasePid('pages') }, () => autocannon({
 			url: base,
 			connections: 50,
 			duration: Number(process.env.BENCH_SECONDS ?? 10),
 			headers: { cookie },
 			requests: [{ method: 'GET', setupRequest: (req: Record<string, unknown>) => ({ ...req, path: `/vehicles/${order[at++ % order.length]}` }) }]
-		});
-		const mixed = { rps: mixedRun.requests.average, p50: mixedRun.latency.p50, p99: mixedRun.latency.p99, non2xx: mixedRun.non2xx, distinctPages: Math.min(at, order.length) };
+		}));
+		const mixed = { appCores, databaseCores, rps: mixedRun.requests.average, p50: mixedRun.latency.p50, p99: mixedRun.latency.p99, non2xx: mixedRun.non2xx, distinctPages: Math.min(at, order.length) };
 		const distinctRatio = mixed.rps / throughput.full.plainRps;
 		const results = {
 			vehicles: VEHICLES,
@@ -207,6 +207,7 @@ ${line('full')}
 ${line('sparse')}
 autocannon, 50 connections, a different page each request (${mixed.distinctPages} pages, each a first view) (target: ≥ 0.15 of plain, p99 ≤ 250 ms)
   ${mixed.rps.toFixed(0)} req/s · ${distinctRatio.toFixed(3)} of plain (${throughput.full.plainRps.toFixed(0)} req/s, full page) · p50 ${mixed.p50} ms · p99 ${mixed.p99} ms · non-2xx ${mixed.non2xx} [${mark(distinctRatio >= 0.15 && mixed.p99 <= 250)}]
+  busy meanwhile: app server ${(mixed.appCores * 100).toFixed(0)} % of a core · database ${(mixed.databaseCores * 100).toFixed(0)} % of a core
 `);
 	}
 } finally {
