@@ -49,7 +49,8 @@ module.exports = {
 		doNotFollow: { path: 'node_modules' },
 		exclude: { path: '^\\.svelte-kit/' },
 		tsPreCompilationDeps: true,
-		tsConfig: { fileName: 'tsconfig.json' },
+		// Resolves $lib from the repository root (SvelteKit's generated tsconfig names it relative to .svelte-kit/).
+		tsConfig: { fileName: 'tsconfig.depcruise.json' },
 		enhancedResolveOptions: {
 			exportsFields: ['exports'],
 			conditionNames: ['import', 'svelte', 'types', 'default'],
