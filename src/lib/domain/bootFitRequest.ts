@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ENCLOSURE_BOX, LOAD_OPENING, measuredSide } from './bootFit';
 import { object, optional } from './figureRules';
+import { catalogueIdSchema, pageSlugSchema } from './fitRequest';
 import { schemaOf } from './ruleSchema';
 import { allowanceMm, partSizeMm } from './sizeInputs';
 
@@ -30,8 +31,8 @@ export type EnclosureAgainstSpace = z.output<typeof enclosureAgainstSpaceSchema>
 /** A catalogue enclosure or a typed box against one vehicle page's boot. */
 export const enclosureAgainstPageSchema = z
 	.object({
-		vehicle: z.string({ error: 'Say which vehicle page (its slug).' }).trim().min(1, 'Say which vehicle page (its slug).').max(160),
-		partId: z.number({ error: 'partId must be the number of a catalogue part.' }).int('partId must be a whole number.').positive('partId must be the number of a catalogue part.').optional(),
+		vehicle: pageSlugSchema,
+		partId: catalogueIdSchema.optional(),
 		box: enclosureBoxSchema.optional(),
 		marginMm: allowanceMm('Clearance').optional(),
 		tightMm: allowanceMm('Tight threshold').optional()

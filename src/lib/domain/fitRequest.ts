@@ -18,11 +18,17 @@ export const reverseOptionsSchema = z.object({
 });
 export type ReverseOptions = z.input<typeof reverseOptionsSchema>;
 
+/** Which vehicle page a request is about, by its slug. */
+export const pageSlugSchema = z.string({ error: 'Say which vehicle page (its slug).' }).trim().min(1, 'Say which vehicle page (its slug).').max(160);
+
+/** A catalogue part by its number. */
+export const catalogueIdSchema = z.number({ error: 'partId must be the number of a catalogue part.' }).int('partId must be a whole number.').positive('partId must be the number of a catalogue part.');
+
 /** A catalogue part or a typed box against one vehicle page. */
 export const vehicleFitSchema = z
 	.object({
-		vehicle: z.string({ error: 'Say which vehicle page (its slug).' }).trim().min(1, 'Say which vehicle page (its slug).').max(160),
-		partId: z.number({ error: 'partId must be the number of a catalogue part.' }).int('partId must be a whole number.').positive('partId must be the number of a catalogue part.').optional(),
+		vehicle: pageSlugSchema,
+		partId: catalogueIdSchema.optional(),
 		box: boxSchema.optional(),
 		seat: z.string({ error: 'seat must be text, e.g. "passenger".' }).trim().max(64).optional(),
 		location: z.string({ error: 'location must be a speaker location id.' }).trim().max(64).optional(),
