@@ -29,70 +29,21 @@ const { migrateToLatest } = await import('../../src/lib/server/db/migrate');
 const { closeDb } = await import('../../src/lib/server/db');
 const { createUser } = await import('../../src/lib/server/services/users');
 await migrateToLatest();
-const viewer = await createUser({ email: 'bench-viewer@kickpanel.test', name: 'Bench Viewer', password: 'bench-viewer-pass', role: 'viewer' }, null);
-const writer = await createUser({ email: 'bench-writer@kickpanel.test', name: 'Bench Writer', password: 'bench-writer-pass', role: 'editor' }, null);
-await closeDb();
-
 const conn = await mariadb.createConnection({ host: '127.0.0.1', port: DB_PORT, user: 'kickpanel', password: 'kickpanel-local', database: 'kickpanel' });
-console.log(`[bench] generating ${VEHICLES} vehicles with ${REVISIONS} revisions…`);
-const t0 = performance.now();
-const makes = Array.from({ length: 40 }, (_, i) => `Benchmake ${String.fromCharCode(65 + (i % 26))}${i}`);
-await conn.batch('INSERT INTO makes (id, name, slug) VALUES (?, ?, ?)', makes.map((m, i) => [i + 1, m, m.toLowerCase().replace(/\s+/g, '-')]));
-const modelRows: [number, number, string, string][] = [];
-for (let i = 0; i < VEHICLES / 5; i++) modelRows.push([i + 1, (i % makes.length) + 1, `Model ${i}`, `model-${i}`]);
-await conn.batch('INSERT INTO models (id, make_id, name, slug) VALUES (?, ?, ?, ?)', modelRows);
-
-const perVehicle = Math.max(1, Math.floor((REVISIONS - LONG_HISTORY) / VEHICLES));
-// The remainder goes one each to the first vehicles, so the total is exactly REVISIONS.
-const extra = Math.max(0, REVISIONS - LONG_HISTORY - perVehicle * (VEHICLES - 1));
-let revisionId = 0;
-let largest: { vehicle: number; ids: number[] } = { vehicle: 1, ids: [] };
-const now = Date.now();
-for (let start = 0; start < VEHICLES; start += 500) {
-	const vehicleRows: unknown[][] = [];
-	const revisionRows: unknown[][] = [];
-	const notesRows: unknown[][] = [];
-	for (let v = start; v < Math.min(VEHICLES, start + 500); v++) {
-		const model = modelRows[v % modelRows.length];
-		const template = structuredClone(templates[v % templates.length]);
-		const yearFrom = 1995 + (v % 25);
-		template.identity = { ...template.identity, make: makes[model[1] - 1], model: model[2], yearFrom, yearTo: yearFrom + (v % 6), notes: template.identity.notes + `\n\nBench page ${v}.` };
-		const slug = vehicleSlug(template.identity) + `-${v}`;
-		const count = v === 0 ? LONG_HISTORY : perVehicle + (v <= extra ? 1 : 0);
-		let parent: number | null = null;
-		let previousSize = 0;
-		const ids: number[] = [];
-		for (let r = 0; r < count; r++) {
-			const content = structuredClone(template);
-			if (content.seats.spaces[0]) content.seats.spaces[0].heightMm = 60 + ((v + r) % 60);
-			content.removal.notes = `${content.removal.notes}\n\nRevision ${r}: re-measured after job ${v * 100 + r}.`.repeat(v === 0 && r % 2 ? 8 : 1);
-			const json = canonicalJson(content);
-			const id = ++revisionId;
-			ids.push(id);
-			const sha256 = createHash('sha256').update(json).digest('hex');
-			// As a save does: the notes are rendered and kept beside the revision.
-			notesRows.push([sha256, NOTES_RENDERER_VERSION, JSON.stringify(renderNotes(content))]);
-			revisionRows.push([id, v + 1, parent, writer.id, `Bench edit ${r}`, json, '', sha256, json.length, json.length - previousSize, 'seats,removal', new Date(now - (count - r) * 60_000)]);
-			previousSize = json.length;
-			parent = id;
-		}
-		if (v === 0) largest = { vehicle: 1, ids };
-		vehicleRows.push([v + 1, slug, model[1], model[0], template.identity.yearFrom, template.identity.yearTo, template.identity.body, parent, new Date(), new Date()]);
-	}
-	await conn.batch('INSERT INTO vehicles (id, slug, make_id, model_id, year_from, year_to, body, latest_revision_id, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, NULL, ?, ?)', vehicleRows.map((r) => [r[0], r[1], r[2], r[3], r[4], r[5], r[6], r[8], r[9]]));
-	for (let k = 0; k < revisionRows.length; k += 1000) {
-		await conn.batch(
-			'INSERT INTO revisions (id, vehicle_id, parent_id, author_id, summary, content, rendered, sha256, size, size_delta, sections, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
-			revisionRows.slice(k, k + 1000)
-		);
-	}
-	for (let k = 0; k < notesRows.length; k += 1000) {
-		await conn.batch('INSERT IGNORE INTO rendered_notes (sha256, renderer_version, notes) VALUES (?, ?, ?)', notesRows.slice(k, k + 1000));
-	}
-	await conn.batch('UPDATE vehicles SET latest_revision_id = ? WHERE id = ?', vehicleRows.map((r) => [r[7], r[0]]));
+const count = async (sql: string) => Number((await conn.query(sql))[0].n);
+// With BENCH_KEEP=1 a database left by an earlier run with as many pages is measured again as it is.
+const kept = db.keep && (await count('SELECT COUNT(*) AS n FROM vehicles')) === VEHICLES;
+if (kept) console.log(`[bench] measuring the ${VEHICLES} pages kept from an earlier run`);
+else {
+	await createUser({ email: 'bench-viewer@kickpanel.test', name: 'Bench Viewer', password: 'bench-viewer-pass', role: 'viewer' }, null);
+	const writer = await createUser({ email: 'bench-writer@kickpanel.test', name: 'Bench Writer', password: 'bench-writer-pass', role: 'editor' }, null);
+	await generate(writer.id);
 }
+await closeDb();
+const revisionCount = await count('SELECT COUNT(*) AS n FROM revisions');
 const slugs: string[] = (await conn.query('SELECT slug FROM vehicles ORDER BY id')).map((r: { slug: string }) => r.slug);
-console.log(`[bench] data ready in ${((performance.now() - t0) / 1000).toFixed(1)} s (${revisionId} revisions)`);
+// The page with the long history is the first one.
+const largest = { vehicle: 1, ids: (await conn.query('SELECT id FROM revisions WHERE vehicle_id = 1 ORDER BY id')).map((r: { id: number }) => Number(r.id)) };
 
 const base = `http://127.0.0.1:${APP_PORT}`;
 const app = await startBuiltApp(APP_PORT, { ...db.env, DB_NAME: 'kickpanel', AUTH_SECRET: 'bench-secret-bench-secret-bench-secret', DB_POOL_MAX: '20' });
@@ -187,7 +138,7 @@ try {
 		const distinctRatio = mixed.rps / throughput.full.plainRps;
 		const results = {
 			vehicles: VEHICLES,
-			revisions: revisionId,
+			revisions: revisionCount,
 			storedPartsSeconds: partsSeconds,
 			renderFirstViewMs: summarize(render),
 			renderSecondViewMs: summarize(cold),
@@ -208,7 +159,7 @@ try {
 		const first = results.renderFirstViewMs;
 		const second = results.renderSecondViewMs;
 		console.log(`
-run ${run} of ${RUNS} · vehicle page, ${VEHICLES} vehicles / ${revisionId} revisions (server time seen by a client on loopback; load average ${loadavg().map((l) => l.toFixed(2)).join(' ')})
+run ${run} of ${RUNS} · vehicle page, ${VEHICLES} vehicles / ${revisionCount} revisions (server time seen by a client on loopback; load average ${loadavg().map((l) => l.toFixed(2)).join(' ')})
   first view of a page, sequential        p50 ${fmt(first.p50)}  p95 ${fmt(first.p95)}  (target p95 ≤ 10 ms) [${mark(first.p95 <= 10)}]
   first view of other pages, sequential   p50 ${fmt(second.p50)}  p95 ${fmt(second.p95)}  (target p95 ≤ 10 ms) [${mark(second.p95 <= 10)}]
   history, ${LONG_HISTORY} revisions                  p50 ${fmt(results.history500Ms.p50)}  p95 ${fmt(results.history500Ms.p95)}
@@ -230,4 +181,62 @@ autocannon, 50 connections, a different page each request (${mixed.distinctPages
 	app.kill('SIGTERM');
 	await new Promise((r) => app.once('exit', r));
 	db.stop();
+}
+
+/** Writes the pages, their revisions and rendered notes straight into the database. */
+async function generate(writerId: number) {
+	console.log(`[bench] generating ${VEHICLES} vehicles with ${REVISIONS} revisions…`);
+	const t0 = performance.now();
+	const makes = Array.from({ length: 40 }, (_, i) => `Benchmake ${String.fromCharCode(65 + (i % 26))}${i}`);
+	await conn.batch('INSERT INTO makes (id, name, slug) VALUES (?, ?, ?)', makes.map((m, i) => [i + 1, m, m.toLowerCase().replace(/\s+/g, '-')]));
+	const modelRows: [number, number, string, string][] = [];
+	for (let i = 0; i < VEHICLES / 5; i++) modelRows.push([i + 1, (i % makes.length) + 1, `Model ${i}`, `model-${i}`]);
+	await conn.batch('INSERT INTO models (id, make_id, name, slug) VALUES (?, ?, ?, ?)', modelRows);
+
+	const perVehicle = Math.max(1, Math.floor((REVISIONS - LONG_HISTORY) / VEHICLES));
+	// The remainder goes one each to the first vehicles, so the total is exactly REVISIONS.
+	const extra = Math.max(0, REVISIONS - LONG_HISTORY - perVehicle * (VEHICLES - 1));
+	let revisionId = 0;
+	const now = Date.now();
+	for (let start = 0; start < VEHICLES; start += 500) {
+		const vehicleRows: unknown[][] = [];
+		const revisionRows: unknown[][] = [];
+		const notesRows: unknown[][] = [];
+		for (let v = start; v < Math.min(VEHICLES, start + 500); v++) {
+			const model = modelRows[v % modelRows.length];
+			const template = structuredClone(templates[v % templates.length]);
+			const yearFrom = 1995 + (v % 25);
+			template.identity = { ...template.identity, make: makes[model[1] - 1], model: model[2], yearFrom, yearTo: yearFrom + (v % 6), notes: template.identity.notes + `\n\nBench page ${v}.` };
+			const slug = vehicleSlug(template.identity) + `-${v}`;
+			const count = v === 0 ? LONG_HISTORY : perVehicle + (v <= extra ? 1 : 0);
+			let parent: number | null = null;
+			let previousSize = 0;
+			for (let r = 0; r < count; r++) {
+				const content = structuredClone(template);
+				if (content.seats.spaces[0]) content.seats.spaces[0].heightMm = 60 + ((v + r) % 60);
+				content.removal.notes = `${content.removal.notes}\n\nRevision ${r}: re-measured after job ${v * 100 + r}.`.repeat(v === 0 && r % 2 ? 8 : 1);
+				const json = canonicalJson(content);
+				const id = ++revisionId;
+				const sha256 = createHash('sha256').update(json).digest('hex');
+				// As a save does: the notes are rendered and kept beside the revision.
+				notesRows.push([sha256, NOTES_RENDERER_VERSION, JSON.stringify(renderNotes(content))]);
+				revisionRows.push([id, v + 1, parent, writerId, `Bench edit ${r}`, json, '', sha256, json.length, json.length - previousSize, 'seats,removal', new Date(now - (count - r) * 60_000)]);
+				previousSize = json.length;
+				parent = id;
+			}
+			vehicleRows.push([v + 1, slug, model[1], model[0], template.identity.yearFrom, template.identity.yearTo, template.identity.body, parent, new Date(), new Date()]);
+		}
+		await conn.batch('INSERT INTO vehicles (id, slug, make_id, model_id, year_from, year_to, body, latest_revision_id, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, NULL, ?, ?)', vehicleRows.map((r) => [r[0], r[1], r[2], r[3], r[4], r[5], r[6], r[8], r[9]]));
+		for (let k = 0; k < revisionRows.length; k += 1000) {
+			await conn.batch(
+				'INSERT INTO revisions (id, vehicle_id, parent_id, author_id, summary, content, rendered, sha256, size, size_delta, sections, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
+				revisionRows.slice(k, k + 1000)
+			);
+		}
+		for (let k = 0; k < notesRows.length; k += 1000) {
+			await conn.batch('INSERT IGNORE INTO rendered_notes (sha256, renderer_version, notes) VALUES (?, ?, ?)', notesRows.slice(k, k + 1000));
+		}
+		await conn.batch('UPDATE vehicles SET latest_revision_id = ? WHERE id = ?', vehicleRows.map((r) => [r[7], r[0]]));
+	}
+	console.log(`[bench] data ready in ${((performance.now() - t0) / 1000).toFixed(1)} s (${revisionId} revisions)`);
 }
