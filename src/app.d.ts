@@ -10,6 +10,8 @@ declare global {
 			units: 'metric' | 'imperial';
 			/** Stored HTML (UTF-8) spliced into the page by the handle hook. */
 			fragments?: Record<string, Uint8Array>;
+			/** Names the stored parts those fragments came from, for the page's ETag. */
+			fragmentsTag?: string;
 			/** What this request's load functions returned, for the page memo. */
 			viewData?: { layout?: unknown; page?: unknown };
 		}

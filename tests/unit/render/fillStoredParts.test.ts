@@ -6,24 +6,38 @@ const encode = (s: string) => new TextEncoder().encode(s);
 const PAGE = '<main><div data-kp-fragment="quick-facts"></div><p>Ω · kept</p></main>';
 
 /** Runs the handle over a stand-in render that answers `chunks` the way SvelteKit hands a page to its hooks. */
-async function run(chunks: string[], opts: { fragments?: Record<string, Uint8Array>; type?: string; status?: number } = {}) {
-	const event = { locals: { user: null, units: 'metric', fragments: opts.fragments } } as unknown as RequestEvent;
+async function run(chunks: string[], opts: { fragments?: Record<string, Uint8Array>; tag?: string; type?: string; status?: number } = {}) {
+	const event = { locals: { user: null, units: 'metric', fragments: opts.fragments, fragmentsTag: opts.tag ?? 't1' } } as unknown as RequestEvent;
+	let handedOver = '';
 	const resolve = async (_e: RequestEvent, options?: ResolveOptions) => {
-		let html = '';
-		for (let i = 0; i < chunks.length; i++) html += (await options?.transformPageChunk?.({ html: chunks[i], done: i === chunks.length - 1 })) ?? chunks[i];
-		return new Response(html, { status: opts.status ?? 200, headers: { 'content-type': opts.type ?? 'text/html', 'content-length': String(encode(html).length), etag: '"e1"' } });
+		for (let i = 0; i < chunks.length; i++) handedOver += (await options?.transformPageChunk?.({ html: chunks[i], done: i === chunks.length - 1 })) ?? chunks[i];
+		return new Response(handedOver, { status: opts.status ?? 200, headers: { 'content-type': opts.type ?? 'text/html', 'content-length': String(encode(handedOver).length), etag: '"e1"' } });
 	};
 	const response = await fillStoredParts({ event, resolve });
-	return { response, text: await response.text() };
+	return { response, text: await response.text(), handedOver };
 }
 
 describe('fillStoredParts', () => {
 	it('fills the placeholders of a page rendered in one piece and keeps its status and headers', async () => {
-		const { response, text } = await run([PAGE], { fragments: { 'quick-facts': encode('<dl>DIN × 2</dl>') } });
+		const { response, text, handedOver } = await run([PAGE], { fragments: { 'quick-facts': encode('<dl>DIN × 2</dl>') } });
 		expect(text).toBe('<main><div data-kp-fragment="quick-facts"><dl>DIN × 2</dl></div><p>Ω · kept</p></main>');
-		expect(response.headers.get('etag')).toBe('"e1"');
+		expect(response.status).toBe(200);
+		expect(response.headers.get('content-type')).toBe('text/html');
 		// The length of the markup alone would cut the filled page short.
 		expect(response.headers.get('content-length')).toBeNull();
+		// SvelteKit was handed nothing to encode or hash again.
+		expect(handedOver).toBe('');
+	});
+
+	it('tags the filled page by its markup and by the stored parts it was filled with', async () => {
+		const fragments = { 'quick-facts': encode('<dl>DIN × 2</dl>') };
+		const etag = async (page: string, tag: string) => (await run([page], { fragments, tag })).response.headers.get('etag');
+		const first = await etag(PAGE, 't1');
+		expect(first).toMatch(/^"[A-Za-z0-9_-]{27}"$/);
+		expect(await etag(PAGE, 't1')).toBe(first);
+		// Other stored parts (another revision, unit system or build) or another reader's markup: another tag.
+		expect(await etag(PAGE, 't2')).not.toBe(first);
+		expect(await etag(PAGE.replace('kept', 'kept!'), 't1')).not.toBe(first);
 	});
 
 	it('fills a page that came in several chunks from the response itself', async () => {

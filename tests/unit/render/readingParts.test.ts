@@ -38,8 +38,9 @@ describe('the stored parts of a reading view', () => {
 
 	it('read back from their stored form exactly as rendered', () => {
 		const rendered = partsOf(sample(), 'imperial');
-		const { fragments, ...data } = unpackParts(new TextEncoder().encode(packParts(rendered)));
+		const { fragments, tag, ...data } = unpackParts(new TextEncoder().encode(packParts(rendered)), 't');
 		const { body, ...renderedData } = rendered;
+		expect(tag).toBe('t');
 		expect(data).toEqual(renderedData);
 		expect(Object.fromEntries(Object.entries(fragments).map(([k, v]) => [k, text(v)]))).toEqual(bodyFragments(body));
 		expect(bodyOf(fragments, data.outline)).toEqual(body);
@@ -51,7 +52,7 @@ describe('the stored parts of a reading view', () => {
 		rendered.body.sections.identity.notes = '<p>Line one\nline “two” — 12 mm × 3 · 🔧</p>\n';
 		rendered.body.quickFacts = '';
 		const stored = new TextEncoder().encode(packParts(rendered));
-		const back = unpackParts(stored);
+		const back = unpackParts(stored, 't');
 		expect(back.identity.model).toBe('Tärn “Ω” 2\n');
 		expect(text(back.fragments['notes-identity'])).toBe('<p>Line one\nline “two” — 12 mm × 3 · 🔧</p>\n');
 		expect(back.fragments['quick-facts'].length).toBe(0);
@@ -61,8 +62,8 @@ describe('the stored parts of a reading view', () => {
 
 	it('refuse a stored form whose lengths do not add up', () => {
 		const packed = packParts(partsOf(sample(), 'metric'));
-		expect(() => unpackParts(new TextEncoder().encode(packed + 'x'))).toThrow(/length/);
-		expect(() => unpackParts(new TextEncoder().encode('no head line'))).toThrow(/head/);
+		expect(() => unpackParts(new TextEncoder().encode(packed + 'x'), 't')).toThrow(/length/);
+		expect(() => unpackParts(new TextEncoder().encode('no head line'), 't')).toThrow(/head/);
 	});
 
 	it('fill every placeholder of a full page view and leave the rest of the page alone', () => {

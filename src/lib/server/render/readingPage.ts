@@ -29,6 +29,9 @@ export const RENDERER = dev ? `dev-${Date.now()}` : version;
 
 const UNIT_SYSTEMS: readonly UnitSystem[] = ['metric', 'imperial'];
 
+/** Names one content's parts in one unit system from this renderer. */
+const partsTag = (sha256: string, units: UnitSystem) => `${sha256.slice(0, 24)}.${units}.${RENDERER}`;
+
 export function partsOf(revision: { content: VehicleContent; rendered: Partial<Record<SectionKey, string>> }, units: UnitSystem): ReadingParts {
 	const { notes: _notes, ...identity } = revision.content.identity;
 	return { ...renderBody(revision, units), identity, photos: revision.content.photos };
@@ -40,13 +43,13 @@ async function renderAndStore(revisionId: number, units: UnitSystem): Promise<St
 	if (!revision) return null;
 	const packed = packParts(partsOf(revision, units));
 	await storeParts(revision.sha256, RENDERER, { [units]: packed });
-	return unpackParts(Buffer.from(packed));
+	return unpackParts(Buffer.from(packed), partsTag(revision.sha256, units));
 }
 
 /** The stored parts of a revision, rendered and stored first when missing. */
 export async function partsFor(revision: RevisionHead, units: UnitSystem): Promise<StoredParts | null> {
 	const stored = await storedParts(revision.sha256, units, RENDERER);
-	return stored ? unpackParts(stored) : renderAndStore(revision.id, units);
+	return stored ? unpackParts(stored, partsTag(revision.sha256, units)) : renderAndStore(revision.id, units);
 }
 
 /** A page as the reading view finds it, with its newest revision's parts in one unit system. */
@@ -65,7 +68,7 @@ export function readingPage(slug: string, units: UnitSystem): Promise<ReadingPag
 	return pages.get(`${units}|${slug}`, async () => {
 		const page = await pageForReading(slug, units, RENDERER);
 		if (!page) return null;
-		if (page.parts !== null) return { ...page, parts: unpackParts(page.parts) };
+		if (page.parts !== null && page.latest) return { ...page, parts: unpackParts(page.parts, partsTag(page.latest.sha256, units)) };
 		return { ...page, parts: page.latest && (await renderAndStore(page.latest.id, units)) };
 	});
 }

@@ -12,8 +12,11 @@ export type ReadingParts = RenderedBody & {
 	photos: VehicleContent['photos'];
 };
 
-/** The parts as a view uses them: the data as values, each fragment as UTF-8 bytes. */
-export type StoredParts = Omit<ReadingParts, 'body'> & { fragments: Record<string, Uint8Array> };
+/**
+ * The parts as a view uses them: the data as values, each fragment as UTF-8 bytes, and a tag naming them among
+ * all stored parts (content, unit system, renderer), which a page's ETag takes instead of hashing the fragments.
+ */
+export type StoredParts = Omit<ReadingParts, 'body'> & { fragments: Record<string, Uint8Array>; tag: string };
 
 type Head = Omit<ReadingParts, 'body'> & { fragments: [name: string, bytes: number][] };
 
@@ -27,7 +30,7 @@ export function packParts({ body, ...data }: ReadingParts): string {
 }
 
 /** Reads the stored form back; the fragments are views into `stored`, not copies. */
-export function unpackParts(stored: Uint8Array): StoredParts {
+export function unpackParts(stored: Uint8Array, tag: string): StoredParts {
 	const bytes = Buffer.from(stored.buffer, stored.byteOffset, stored.byteLength);
 	const headEnd = bytes.indexOf(NEWLINE);
 	if (headEnd === -1) throw new Error('Stored page parts have no head line.');
@@ -39,5 +42,5 @@ export function unpackParts(stored: Uint8Array): StoredParts {
 		at += length;
 	}
 	if (at !== bytes.length) throw new Error('Stored page parts are not the length their head gives.');
-	return { ...data, fragments };
+	return { ...data, fragments, tag };
 }

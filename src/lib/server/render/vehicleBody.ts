@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { Handle } from '@sveltejs/kit';
 import { render } from 'svelte/server';
 import SectionBody from '$lib/components/vehicle/SectionBody.svelte';
@@ -61,9 +62,10 @@ export function bodyOf(fragments: Record<string, Uint8Array>, outline: Outline):
 }
 
 /** Client navigations get the body as data; a full page view gets it spliced into the HTML by `fillStoredParts`. */
-export function deliverBody(locals: App.Locals, { fragments, outline }: { fragments: Record<string, Uint8Array>; outline: Outline }, isDataRequest: boolean) {
+export function deliverBody(locals: App.Locals, { fragments, outline, tag }: { fragments: Record<string, Uint8Array>; outline: Outline; tag: string }, isDataRequest: boolean) {
 	if (isDataRequest) return { outline, body: bodyOf(fragments, outline) };
 	locals.fragments = fragments;
+	locals.fragmentsTag = tag;
 	return { outline, body: null };
 }
 
@@ -96,31 +98,43 @@ export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint
 	return Buffer.concat(parts);
 }
 
+const encoder = new TextEncoder();
+
 /**
  * The handle that fills a full page view's placeholders with the stored parts its load left in `locals.fragments`.
- * The page's markup is taken as SvelteKit hands it over (one chunk for a page that is not streamed) rather than
- * read back out of the response.
+ * A page rendered in one piece is taken as SvelteKit hands it over and SvelteKit is given nothing to encode or
+ * hash: the filled page is encoded once here, and its ETag is the page markup's digest with the stored parts'
+ * tag (the fragments are named by their tag, so their tens of kilobytes are not hashed on every view). A page
+ * streamed in chunks is read back out of its response instead.
  */
 export const fillStoredParts: Handle = async ({ event, resolve }) => {
-	let rendered: string | null = null;
+	let markup: string | null = null;
 	let chunks = 0;
 	const response = await resolve(event, {
 		transformPageChunk: ({ html, done }) => {
 			chunks++;
-			rendered = done && chunks === 1 ? html : null;
+			if (done && chunks === 1 && event.locals.fragments) {
+				markup = html;
+				return '';
+			}
 			return html;
 		}
 	});
 	const fragments = event.locals.fragments;
-	if (!fragments || !response.body || !response.headers.get('content-type')?.startsWith('text/html')) return response;
-	let markup: Uint8Array;
-	if (rendered !== null) {
-		markup = Buffer.from(rendered);
-		void response.body.cancel();
-	} else {
-		markup = new Uint8Array(await response.arrayBuffer());
+	if (!response.headers.get('content-type')?.startsWith('text/html')) {
+		// Only a page's HTML goes through transformPageChunk; anything else taken there is given back whole all the same.
+		return markup === null ? response : new Response(markup, { status: response.status, statusText: response.statusText, headers: response.headers });
 	}
+	if (!fragments || (markup === null && !response.body)) return response;
 	const headers = new Headers(response.headers);
 	headers.delete('content-length');
-	return new Response(spliceFragments(markup, fragments) as Uint8Array<ArrayBuffer>, { status: response.status, statusText: response.statusText, headers });
+	let page: Uint8Array;
+	if (markup !== null) {
+		page = encoder.encode(markup);
+		void response.body?.cancel();
+		if (headers.has('etag')) headers.set('etag', `"${createHash('sha1').update(page).update(event.locals.fragmentsTag ?? '').digest('base64url')}"`);
+	} else {
+		page = new Uint8Array(await response.arrayBuffer());
+	}
+	return new Response(spliceFragments(page, fragments) as Uint8Array<ArrayBuffer>, { status: response.status, statusText: response.statusText, headers });
 };
