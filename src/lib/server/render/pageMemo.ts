@@ -5,7 +5,6 @@
 // instead of being rebuilt. The data is read through the same short-lived caches the loads use, so a
 // reused page is never staler than a freshly rendered one would be: any change — a new revision, a
 // trust mark, a watch, a role, the reader's units — changes the data, and so the key.
-import { createHash } from 'node:crypto';
 import type { Handle, RequestEvent } from '@sveltejs/kit';
 
 type Entry = { body: Uint8Array<ArrayBuffer>; headers: [string, string][] };
@@ -32,15 +31,15 @@ export function isPlainData(value: unknown): boolean {
 }
 
 /**
- * A size-bounded store of rendered pages, least recently used first out. A page is kept from its second
- * render on: most pages a shop opens are read once in a while, and keeping each of those would only
+ * A size-bounded store of rendered pages, least recently used first out. Pages are kept from a reader's second
+ * view of an address on: most pages a shop opens are read once in a while, and keeping each of those would only
  * push out the pages that are read again and leave large garbage behind.
  */
 export class PageMemo {
 	private entries = new Map<string, Entry>();
 	private used = 0;
-	// Digests of keys rendered once lately (oldest first out), so a key's second render is recognised.
-	private renderedOnce = new Set<string>();
+	// Readers' addresses viewed lately (least recently viewed first out), so a second view is recognised.
+	private viewed = new Set<string>();
 	hits = 0;
 	misses = 0;
 
@@ -49,13 +48,12 @@ export class PageMemo {
 		private readonly rememberedKeys = 50_000
 	) {}
 
-	/** Whether a page just rendered under `key` should be kept: true when it was rendered once before lately. */
-	admits(key: string): boolean {
-		const digest = createHash('sha1').update(key).digest('base64');
-		if (this.renderedOnce.delete(digest)) return true;
-		this.renderedOnce.add(digest);
-		if (this.renderedOnce.size > this.rememberedKeys) this.renderedOnce.delete(this.renderedOnce.values().next().value!);
-		return false;
+	/** Whether `view` (a reader and an address) was seen lately; either way it is remembered as seen now. */
+	seenBefore(view: string): boolean {
+		const seen = this.viewed.delete(view);
+		this.viewed.add(view);
+		if (this.viewed.size > this.rememberedKeys) this.viewed.delete(this.viewed.values().next().value!);
+		return seen;
 	}
 
 	get size() {
@@ -131,6 +129,8 @@ export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Pro
 	return async ({ event, resolve }) => {
 		const view = event.route.id ? views[event.route.id] : undefined;
 		if (!view || event.request.method !== 'GET' || event.isDataRequest || !event.locals.user) return resolve(event);
+		// A reader's first view of an address is rendered as usual, with no key built and nothing kept.
+		if (!memo.seenBefore(`${event.locals.user.id}|${event.locals.units}|${event.url.pathname}${event.url.search}`)) return resolve(event);
 		let key: string;
 		let prepared: { layout: unknown; page: unknown };
 		try {
@@ -153,7 +153,6 @@ export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Pro
 			!response.headers.has('etag') || // streamed responses carry no ETag and are not kept
 			response.headers.has('set-cookie') ||
 			!response.headers.get('content-type')?.startsWith('text/html') ||
-			!memo.admits(key) ||
 			!isPlainData(prepared)
 		) {
 			return response;
