@@ -147,23 +147,35 @@ describe('stored parts of a vehicle page', () => {
 });
 
 describe('database work for a page view', () => {
-	it('reads a page nobody opened since its last change, with its trust marks, in one query', async () => {
+	it('reads a page nobody opened since its last change in one query, and its trust marks in a second only when it has any', async () => {
 		const other = await createVehicle(emptyContent({ make: 'Ostrel', model: 'Quarn', yearFrom: 2001, yearTo: 2005, body: 'coupe' }), moderator);
 		// The shop settings and the reader's followed pages are read once per reader, not per page.
 		await view(viewer);
-		const seen: string[] = [];
-		db().addHook('afterQuery', 'countQueries', (_options, query) => {
-			seen.push((query as unknown as { sql: string }).sql);
-		});
-		try {
-			const page = await view(viewer, 'metric', other.slug);
-			expect(page.vehicle.slug).toBe(other.slug);
-		} finally {
-			db().removeHook('afterQuery', 'countQueries');
-		}
-		expect(seen.length).toBe(1);
-		expect(seen[0]).toContain('rendered_pages');
-		expect(seen[0]).toContain('confirmations');
+		const queriesFor = async () => {
+			const seen: string[] = [];
+			db().addHook('afterQuery', 'countQueries', (_options, query) => {
+				seen.push((query as unknown as { sql: string }).sql);
+			});
+			try {
+				const page = await view(viewer, 'metric', other.slug);
+				expect(page.vehicle.slug).toBe(other.slug);
+				return { seen, trust: page.trust, id: page.vehicle.id };
+			} finally {
+				db().removeHook('afterQuery', 'countQueries');
+			}
+		};
+		const unmarked = await queriesFor();
+		expect(unmarked.seen.length).toBe(1);
+		expect(unmarked.seen[0]).toContain('rendered_pages');
+		// It asks whether the page has marks at all.
+		expect(unmarked.seen[0]).toContain('confirmations');
+		expect(unmarked.trust.confirmations.installers).toBe(0);
+
+		await confirmPage(unmarked.id, { note: 'Fitted as described.' }, viewer);
+		const marked = await queriesFor();
+		expect(marked.seen.length).toBe(2);
+		expect(marked.seen[1]).toContain('confirmations');
+		expect(marked.trust.confirmations).toMatchObject({ installers: 1, latest: { by: viewer.name, note: 'Fitted as described.' } });
 	});
 
 	it('shows the same trust marks as the trust service, and a new mark to the next view at once', async () => {

@@ -1,5 +1,5 @@
 // The reading view's parts that do not depend on the reader, stored once per content, unit system and
-// renderer in `rendered_pages`, and the one query a page view reads its page, revision and parts with.
+// renderer in `rendered_pages`, and the one query a page view reads its page, revision and parts with (a second reads its trust marks when it has any).
 import { QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db';
 import { vehicleTitle } from '../../domain/slug';
@@ -9,7 +9,7 @@ import { readingRules } from './readingRules';
 import { pageRevision } from './visibility';
 import type { StoredRevision } from './revisions';
 import type { VehicleSummary } from './vehicles';
-import { marksFromJson, marksJsonSql, type MarkRow } from './trust';
+import { hasMarksSql, pageMarks, type MarkRow } from './trust';
 
 /** What the reading view's header says of the revision it shows; its content is in the stored parts. */
 export type RevisionHead = {
@@ -43,17 +43,17 @@ type Row = {
 	createdAt: Date | null;
 	authorName: string | null;
 	parts: Uint8Array | null;
-	marks: unknown;
+	hasMarks: number | boolean;
 };
 
 // The stored parts come as bytes: the HTML in them is sent as it is, never decoded into text.
 const PARTS_AS_BYTES = 'CAST(rp.parts AS BINARY)';
 
-// Every join is on a primary key, the page on its unique slug; the page's trust marks come along (by page and time).
+// Every join is on a primary key, the page on its unique slug; whether the page has trust marks comes along (by page).
 export const PAGE_SQL = `SELECT v.id, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, v.body, v.latest_revision_id AS latestRevisionId,
 		v.protection, mk.name AS make, mo.name AS model,
 		r.id AS revisionId, r.sha256, r.summary, r.hidden, r.reviewed_at AS reviewedAt, r.created_at AS createdAt, u.name AS authorName,
-		${PARTS_AS_BYTES} AS parts, ${marksJsonSql('v.id')} AS marks
+		${PARTS_AS_BYTES} AS parts, ${hasMarksSql('v.id')} AS hasMarks
 	FROM vehicles v
 	JOIN makes mk ON mk.id = v.make_id
 	JOIN models mo ON mo.id = v.model_id
@@ -88,7 +88,7 @@ export async function pageForReading(slug: string, units: UnitSystem, renderer: 
 					hidden: !!row.hidden,
 					reviewedAt: row.reviewedAt
 				};
-	return { vehicle, latest, parts: row.parts, marks: marksFromJson(row.marks) };
+	return { vehicle, latest, parts: row.parts, marks: row.hasMarks ? await pageMarks(vehicle.id) : [] };
 }
 
 export function revisionHead(revision: StoredRevision): RevisionHead {
