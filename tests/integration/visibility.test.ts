@@ -17,7 +17,7 @@ import {
 	setRevisionHidden
 } from '../../src/lib/server/services/revisions';
 import { markReviewed, setReviewBeforeShow } from '../../src/lib/server/services/review';
-import { catalogue, listVehicles, vehicleById, vehicleBySlug } from '../../src/lib/server/services/vehicles';
+import { catalogue, countOpenVehicles, listVehicles, makesWithPages, vehicleById, vehicleBySlug } from '../../src/lib/server/services/vehicles';
 import { confirmPage, flagField, trustSummary } from '../../src/lib/server/services/trust';
 import { pageRevision, readableRevision, requirePageRevision } from '../../src/lib/server/services/visibility';
 import { photoVisibleTo } from '../../src/lib/server/services/photos';
@@ -134,6 +134,10 @@ describe('lists and comparisons', () => {
 		expect((await listVehicles(editor, {})).items.map((v) => v.id).sort()).toEqual([A.id, B.id].sort());
 		const models = (await catalogue(viewer)).flatMap((m) => m.models.map((mo) => mo.name));
 		expect(models).toEqual(['Vanta']);
+		// The fit screen's count and make picker follow the same rule.
+		expect(await countOpenVehicles(viewer)).toBe(1);
+		expect(await countOpenVehicles(editor)).toBe(2);
+		expect(await makesWithPages(viewer)).toEqual([{ name: 'Ostrel', slug: 'ostrel' }]);
 	});
 
 	it('compares only revisions the person may read', async () => {
@@ -320,3 +324,13 @@ describe('a page renamed by a change nobody has signed off', () => {
 		expect(JSON.stringify(forViewer)).not.toContain('700');
 	});
 });
+
+describe('the fit screen’s make picker', () => {
+	it('lists a make only to those who may open one of its pages', async () => {
+		await createVehicle(emptyContent({ make: 'Quennet', model: 'Sarl', yearFrom: 2012, yearTo: 2016, body: 'wagon' }), editor);
+		expect((await makesWithPages(viewer)).map((m) => m.name)).not.toContain('Quennet');
+		expect((await makesWithPages(editor)).map((m) => m.name)).toEqual(['Ostrel', 'Quennet']);
+		expect(await countOpenVehicles(editor)).toBe((await listVehicles(editor, {})).total);
+	});
+});
+

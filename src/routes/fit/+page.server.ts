@@ -1,7 +1,7 @@
 import type { PageServerLoad } from './$types';
 import { requireRole } from '$lib/server/auth/guard';
 import { ServiceError } from '$lib/server/errors';
-import { catalogue, listVehicles, requireVehicle } from '$lib/server/services/vehicles';
+import { countOpenVehicles, listVehicles, makesWithPages, requireVehicle } from '$lib/server/services/vehicles';
 import { listParts } from '$lib/server/services/parts';
 import { vehicleFitFacts, vehiclesForBox } from '$lib/server/services/fit';
 import { readTypedBox } from '$lib/domain/typedBox';
@@ -53,11 +53,11 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 			? { for: [q.get('l'), q.get('w'), q.get('h'), unit, clearance].join('|'), fits: await vehiclesForBox(typed.box, { clearanceMm: clearance }) }
 			: null;
 
-	const makes = (await catalogue(user)).map((m) => ({ name: m.name, slug: m.slug }));
+	const [makes, total] = await Promise.all([makesWithPages(user), countOpenVehicles(user)]);
 	const makeSlug = q.get('make') || (vehicle ? (makes.find((m) => m.name === vehicle.make)?.slug ?? '') : '');
-	const all = await listVehicles(user, { pageSize: ONE_LIST_LIMIT });
-	const oneList = all.total <= ONE_LIST_LIMIT;
-	const list = oneList ? all.items : makeSlug ? (await listVehicles(user, { make: makeSlug, pageSize: ONE_LIST_LIMIT })).items : [];
+	const oneList = total <= ONE_LIST_LIMIT;
+	// The list is read only when it is shown: all pages when they fit one list, else the chosen make's.
+	const list = oneList || makeSlug ? (await listVehicles(user, { make: oneList ? undefined : makeSlug, pageSize: ONE_LIST_LIMIT })).items : [];
 
 	return {
 		makes,

@@ -1,4 +1,5 @@
-import { Op, fn, col, literal } from 'sequelize';
+import { Op, QueryTypes, fn, col, literal } from 'sequelize';
+import { db } from '../db';
 import type { Reader } from '../../domain/visibility';
 import { pageOpenSql, readingRules } from './readingRules';
 import { Make, Vehicle, VehicleModel, VehicleSlug } from '../db/models';
@@ -104,6 +105,20 @@ export async function catalogue(reader: Reader) {
 			.filter((mo) => mo.pages > 0)
 			.sort((a, b) => a.name.localeCompare(b.name))
 	}));
+}
+
+/** How many pages the reader may open: a count, without reading or building the pages themselves. */
+export async function countOpenVehicles(reader: Reader): Promise<number> {
+	const [row] = await db().query<{ n: number | string }>(`SELECT COUNT(*) AS n FROM vehicles v WHERE ${pageOpenSql('v', reader, await readingRules())}`, { type: QueryTypes.SELECT });
+	return Number(row.n);
+}
+
+/** The makes with at least one page the reader may open, by name: a make picker's list, without the catalogue's models and counts. */
+export async function makesWithPages(reader: Reader): Promise<{ name: string; slug: string }[]> {
+	return db().query<{ name: string; slug: string }>(
+		`SELECT mk.name, mk.slug FROM makes mk WHERE EXISTS (SELECT 1 FROM vehicles v WHERE v.make_id = mk.id AND ${pageOpenSql('v', reader, await readingRules())}) ORDER BY mk.name`,
+		{ type: QueryTypes.SELECT }
+	);
 }
 
 /** The page behind a slug (following a renamed slug), or a 404 a person understands. */
