@@ -331,6 +331,17 @@ describe('the fit screen’s make picker', () => {
 		expect((await makesWithPages(viewer)).map((m) => m.name)).not.toContain('Quennet');
 		expect((await makesWithPages(editor)).map((m) => m.name)).toEqual(['Ostrel', 'Quennet']);
 		expect(await countOpenVehicles(editor)).toBe((await listVehicles(editor, {})).total);
+		// The catalogue for browsing: makes by name, each with its models by name and the pages each reader may open.
+		const forEditor = (await catalogue(editor)).filter((m) => m.models.length > 0);
+		expect(forEditor.find((m) => m.name === 'Quennet')?.models).toEqual([{ name: 'Sarl', slug: 'sarl', pages: 1 }]);
+		const makeNames = forEditor.map((m) => m.name);
+		expect(makeNames).toEqual([...makeNames].sort());
+		for (const make of forEditor) {
+			const modelNames = make.models.map((mo) => mo.name);
+			expect(modelNames).toEqual([...modelNames].sort((x, y) => x.localeCompare(y)));
+			expect(make.models.every((mo) => mo.pages > 0)).toBe(true);
+		}
+		expect((await catalogue(viewer)).find((m) => m.name === 'Quennet')?.models).toEqual([]);
 	});
 });
 

@@ -1,4 +1,4 @@
-import { Op, QueryTypes, fn, col, literal } from 'sequelize';
+import { Op, QueryTypes, literal } from 'sequelize';
 import { db } from '../db';
 import type { Reader } from '../../domain/visibility';
 import { pageOpenSql, readingRules } from './readingRules';
@@ -93,18 +93,24 @@ export async function listVehicles(reader: Reader, filter: { make?: string; mode
 
 /** Makes with their models and how many pages each has, for browsing. */
 export async function catalogue(reader: Reader) {
-	const makes = await Make.findAll({ order: [['name', 'ASC']], include: [{ model: VehicleModel, as: 'models', attributes: ['id', 'name', 'slug'] }] });
-	const open = literal(pageOpenSql('`Vehicle`', reader, await readingRules()));
-	const counts = await Vehicle.findAll({ attributes: ['modelId', [fn('COUNT', col('id')), 'n']], where: { [Op.and]: [open] }, group: ['modelId'], raw: true });
-	const byModel = new Map((counts as unknown as { modelId: number; n: number }[]).map((c) => [c.modelId, Number(c.n)]));
-	return makes.map((m) => ({
-		name: m.name,
-		slug: m.slug,
-		models: ((m as Make & { models: VehicleModel[] }).models ?? [])
-			.map((mo) => ({ name: mo.name, slug: mo.slug, pages: byModel.get(mo.id) ?? 0 }))
-			.filter((mo) => mo.pages > 0)
-			.sort((a, b) => a.name.localeCompare(b.name))
-	}));
+	// One query, read as plain rows: a shop with thousands of models should not have each built as a model instance.
+	const rows = await db().query<{ make: string; makeSlug: string; model: string | null; modelSlug: string | null; pages: number | string | null }>(
+		`SELECT mk.name AS make, mk.slug AS makeSlug, mo.name AS model, mo.slug AS modelSlug, counts.n AS pages
+		FROM makes mk
+		LEFT JOIN models mo ON mo.make_id = mk.id
+		LEFT JOIN (SELECT v.model_id, COUNT(*) AS n FROM vehicles v WHERE ${pageOpenSql('v', reader, await readingRules())} GROUP BY v.model_id) counts ON counts.model_id = mo.id
+		ORDER BY mk.name, mk.id`,
+		{ type: QueryTypes.SELECT }
+	);
+	const makes = new Map<string, { name: string; slug: string; models: { name: string; slug: string; pages: number }[] }>();
+	for (const r of rows) {
+		let make = makes.get(r.makeSlug);
+		if (!make) makes.set(r.makeSlug, (make = { name: r.make, slug: r.makeSlug, models: [] }));
+		const pages = Number(r.pages ?? 0);
+		if (r.model !== null && r.modelSlug !== null && pages > 0) make.models.push({ name: r.model, slug: r.modelSlug, pages });
+	}
+	for (const make of makes.values()) make.models.sort((a, b) => a.name.localeCompare(b.name));
+	return [...makes.values()];
 }
 
 /** How many pages the reader may open: a count, without reading or building the pages themselves. */
