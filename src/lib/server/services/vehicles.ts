@@ -66,11 +66,16 @@ export async function vehicleById(id: number): Promise<VehicleSummary | null> {
 	return v ? summary(v) : null;
 }
 
+/** The SQL condition that the page `alias` names is open to the reader under the shop's reading rules. */
+async function openPageSql(alias: string, reader: Reader): Promise<string> {
+	return pageOpenSql(alias, reader, await readingRules());
+}
+
 /** Pages in title order: only those with a revision the reader may read. */
 export async function listVehicles(reader: Reader, filter: { make?: string; model?: string; year?: number; body?: string; page?: number; pageSize?: number }) {
 	const pageSize = Math.min(Math.max(filter.pageSize ?? 50, 1), 200);
 	const page = Math.max(filter.page ?? 1, 1);
-	const where: Record<string | symbol, unknown> = { [Op.and]: [literal(pageOpenSql('`Vehicle`', reader, await readingRules()))] };
+	const where: Record<string | symbol, unknown> = { [Op.and]: [literal(await openPageSql('`Vehicle`', reader))] };
 	if (filter.year) Object.assign(where, { yearFrom: { [Op.lte]: filter.year }, yearTo: { [Op.gte]: filter.year } });
 	if (filter.body) where.body = filter.body;
 	const include = [
@@ -98,7 +103,7 @@ export async function catalogue(reader: Reader) {
 		`SELECT mk.name AS make, mk.slug AS makeSlug, mo.name AS model, mo.slug AS modelSlug, counts.n AS pages
 		FROM makes mk
 		LEFT JOIN models mo ON mo.make_id = mk.id
-		LEFT JOIN (SELECT v.model_id, COUNT(*) AS n FROM vehicles v WHERE ${pageOpenSql('v', reader, await readingRules())} GROUP BY v.model_id) counts ON counts.model_id = mo.id
+		LEFT JOIN (SELECT v.model_id, COUNT(*) AS n FROM vehicles v WHERE ${await openPageSql('v', reader)} GROUP BY v.model_id) counts ON counts.model_id = mo.id
 		ORDER BY mk.name, mk.id`,
 		{ type: QueryTypes.SELECT }
 	);
@@ -115,14 +120,14 @@ export async function catalogue(reader: Reader) {
 
 /** How many pages the reader may open: a count, without reading or building the pages themselves. */
 export async function countOpenVehicles(reader: Reader): Promise<number> {
-	const [row] = await db().query<{ n: number | string }>(`SELECT COUNT(*) AS n FROM vehicles v WHERE ${pageOpenSql('v', reader, await readingRules())}`, { type: QueryTypes.SELECT });
+	const [row] = await db().query<{ n: number | string }>(`SELECT COUNT(*) AS n FROM vehicles v WHERE ${await openPageSql('v', reader)}`, { type: QueryTypes.SELECT });
 	return Number(row.n);
 }
 
 /** The makes with at least one page the reader may open, by name: a make picker's list, without the catalogue's models and counts. */
 export async function makesWithPages(reader: Reader): Promise<{ name: string; slug: string }[]> {
 	return db().query<{ name: string; slug: string }>(
-		`SELECT mk.name, mk.slug FROM makes mk WHERE EXISTS (SELECT 1 FROM vehicles v WHERE v.make_id = mk.id AND ${pageOpenSql('v', reader, await readingRules())}) ORDER BY mk.name`,
+		`SELECT mk.name, mk.slug FROM makes mk WHERE EXISTS (SELECT 1 FROM vehicles v WHERE v.make_id = mk.id AND ${await openPageSql('v', reader)}) ORDER BY mk.name`,
 		{ type: QueryTypes.SELECT }
 	);
 }
