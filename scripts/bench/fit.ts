@@ -4,7 +4,7 @@
 //   BENCH_VEHICLES  how many vehicles (default 50000)
 //   BENCH_QUERIES   how many random boxes (default 2000)
 import { fmt, summarize, writeResults, seededRandom } from './lib';
-import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, fitVerdict, SEAT_INDEX_SLACK_MM, SeatSpaceIndex, type Box, type SeatSpaceRow } from '../../src/lib/domain/fit';
+import { DEFAULT_CLEARANCE_MM, DEFAULT_TIGHT_MM, fitVerdict, SeatSpaceIndex, verdictForRoom, type Box, type SeatSpaceRow } from '../../src/lib/domain/fit';
 
 const VEHICLES = Number(process.env.BENCH_VEHICLES ?? 50_000);
 const QUERIES = Number(process.env.BENCH_QUERIES ?? 2_000);
@@ -44,9 +44,10 @@ function plainScan(box: Box, c = DEFAULT_CLEARANCE_MM, tightMm = DEFAULT_TIGHT_M
 	for (let i = 0; i < plain.length; i++) {
 		const r = plain[i];
 		const m = Math.min(Math.max(Math.min(r.l - bl, r.w - bw), Math.min(r.l - bw, r.w - bl)), r.h - bh);
-		if (m >= -SEAT_INDEX_SLACK_MM) {
+		const verdict = m === m ? verdictForRoom(m, tightMm) : 'no-fit';
+		if (verdict !== 'no-fit') {
 			hits.push(i);
-			tight.push(m < tightMm ? 1 : 0);
+			tight.push(verdict === 'tight' ? 1 : 0);
 		}
 	}
 	return { rows: hits, tight };

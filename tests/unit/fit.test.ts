@@ -421,6 +421,16 @@ describe('SeatSpaceIndex', () => {
 		);
 	});
 
+	it('decides a room at the tight threshold on whole micrometres, as fitVerdict does', () => {
+		// by hand: 26.9995 mm kept in single precision is 26.99950027… mm; less a 1 mm box and 12 mm clearance
+		// leaves 13.99950027… mm, which is 14.000 mm to the micrometre: at a 14 mm tight threshold that fits.
+		const index = new SeatSpaceIndex([{ vehicleIndex: 0, seat: 'driver', l: 26.9995, w: 26.9995, h: 26.9995 }]);
+		const found = index.query({ l: 1, w: 1, h: 1 }, 12, 14);
+		expect(Array.from(found.rows)).toEqual([0]);
+		expect(Array.from(found.tight)).toEqual([0]);
+		expect(fitVerdict({ l: 1, w: 1, h: 1 }, index.space(0), { clearanceMm: 12, tightMm: 14 }).verdict).toBe('fits');
+	});
+
 	it('finds a seat that an inch-measured part exactly fills', () => {
 		// by hand: 2.1 in − 1.6 in − 0.5 in clearance = 0 (international inch); single precision may store 53.34 a hair low
 		const index = new SeatSpaceIndex([{ vehicleIndex: 0, seat: 'driver', l: 500, w: 500, h: 2.1 * 25.4 }]);

@@ -64,12 +64,16 @@ export const margin = (space: number, part: number, clearance: number): number =
 };
 
 // Seat spaces in the reverse-scan index are kept in single precision (about 3e-4 mm off below
-// 5000 mm); a candidate within this much of fitting is passed on for fitVerdict to decide.
+// 5000 mm); the index is asked for a box this much smaller, so no seat whose own figures take the
+// box is missed, and fitVerdict on the page's figures decides.
 export const SEAT_INDEX_SLACK_MM = FIT_RESOLUTION_MM;
 
 function verdictOf(minMargin: number, tightMm: number): 'fits' | 'tight' | 'no-fit' {
 	return minMargin < 0 ? 'no-fit' : margin(minMargin, tightMm, 0) < 0 ? 'tight' : 'fits';
 }
+
+/** The verdict for the smallest room left before rounding, decided on whole micrometres as fitVerdict decides it. */
+export const verdictForRoom = (room: number, tightMm: number): 'fits' | 'tight' | 'no-fit' => verdictOf(margin(room, 0, 0), tightMm);
 
 /**
  * A part's box against a space: the part may turn on the floor (length and width swap), height
@@ -368,9 +372,11 @@ export class SeatSpaceIndex {
 			const turned = turnedL < turnedW ? turnedL : turnedW;
 			const floor = straight > turned ? straight : turned;
 			const m = floor < H ? floor : H;
+			// Rounding is monotonic, so rounding the smallest room gives fitVerdict's verdict on the stored figures.
+			const verdict = verdictForRoom(m, tightMm);
 			rows[k] = i;
-			tight[k] = m < tightMm ? 1 : 0;
-			k += m >= -SEAT_INDEX_SLACK_MM && L === L && W === W ? 1 : 0;
+			tight[k] = verdict === 'tight' ? 1 : 0;
+			k += verdict !== 'no-fit' && m === m && L === L && W === W ? 1 : 0;
 		}
 		return { rows: rows.slice(0, k), tight: tight.slice(0, k) };
 	}
