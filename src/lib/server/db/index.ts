@@ -2,6 +2,7 @@ import { Sequelize } from 'sequelize';
 import { config } from '../config';
 import { initModels } from './models';
 import { routeReads } from './readRouting';
+import { poolOutsideRequests } from './pool';
 
 let instance: Sequelize | null = null;
 
@@ -21,6 +22,7 @@ export function db(): Sequelize {
 		define: { underscored: true }
 	});
 	initModels(instance);
+	poolOutsideRequests(instance);
 	if (replica) routeReads(instance);
 	return instance;
 }
