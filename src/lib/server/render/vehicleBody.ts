@@ -74,13 +74,13 @@ const QUOTE = 0x22;
 const EMPTY_CLOSE = Buffer.from('"></div>');
 
 /**
- * Fills the empty fragment placeholders of a rendered page with their stored HTML. Works on the encoded bytes:
- * the page's own markup is small, and joining the large stored parts into it as text would copy them twice more
- * (into a string, then out as UTF-8) on every first view.
+ * Fills the empty fragment placeholders of a rendered page with their stored HTML. Works on the encoded bytes and
+ * answers the filled page as pieces in order (slices of the page and the stored fragments themselves): the large
+ * stored parts are neither joined into the page as text nor copied into one buffer on every first view.
  */
-export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint8Array>): Buffer {
+export function fragmentPieces(page: Uint8Array, fragments: Record<string, Uint8Array>): Uint8Array[] {
 	const html = Buffer.from(page.buffer, page.byteOffset, page.byteLength);
-	const parts: Uint8Array[] = [];
+	const pieces: Uint8Array[] = [];
 	let from = 0;
 	for (let at = html.indexOf(MARK); at !== -1; at = html.indexOf(MARK, from)) {
 		const nameEnd = html.indexOf(QUOTE, at + MARK.length);
@@ -89,13 +89,24 @@ export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint
 		const close = nameEnd + 2; // past `">`
 		const empty = html.compare(EMPTY_CLOSE, 0, EMPTY_CLOSE.length, nameEnd, nameEnd + EMPTY_CLOSE.length) === 0;
 		const fill = empty && Object.hasOwn(fragments, name) ? fragments[name] : null;
-		parts.push(html.subarray(from, close));
-		if (fill?.length) parts.push(fill);
+		pieces.push(html.subarray(from, close));
+		if (fill?.length) pieces.push(fill);
 		from = close;
 	}
-	if (parts.length === 0) return html;
-	parts.push(html.subarray(from));
-	return Buffer.concat(parts);
+	pieces.push(html.subarray(from));
+	return pieces;
+}
+
+/** A body that hands the pieces over as they are, with their total length. */
+function piecesBody(pieces: Uint8Array[]): { body: ReadableStream<Uint8Array>; length: number } {
+	const length = pieces.reduce((sum, piece) => sum + piece.byteLength, 0);
+	const body = new ReadableStream<Uint8Array>({
+		start(controller) {
+			for (const piece of pieces) if (piece.byteLength) controller.enqueue(piece);
+			controller.close();
+		}
+	});
+	return { body, length };
 }
 
 const encoder = new TextEncoder();
@@ -127,7 +138,6 @@ export const fillStoredParts: Handle = async ({ event, resolve }) => {
 	}
 	if (!fragments || (markup === null && !response.body)) return response;
 	const headers = new Headers(response.headers);
-	headers.delete('content-length');
 	let page: Uint8Array;
 	if (markup !== null) {
 		page = encoder.encode(markup);
@@ -136,5 +146,8 @@ export const fillStoredParts: Handle = async ({ event, resolve }) => {
 	} else {
 		page = new Uint8Array(await response.arrayBuffer());
 	}
-	return new Response(spliceFragments(page, fragments) as Uint8Array<ArrayBuffer>, { status: response.status, statusText: response.statusText, headers });
+	// With its length known the page goes out in one write, not in chunks.
+	const { body, length } = piecesBody(fragmentPieces(page, fragments));
+	headers.set('content-length', String(length));
+	return new Response(body, { status: response.status, statusText: response.statusText, headers });
 };
