@@ -11,7 +11,7 @@ import { PageMemo, reuseRenders } from '$lib/server/render/pageMemo';
 import { layoutData } from '$lib/server/views/layout';
 import { vehiclePageData } from '$lib/server/views/vehiclePage';
 import { config } from '$lib/server/config';
-import { bodyLimits, securityHeaders } from '$lib/server/perimeter';
+import { bodyLimits, pageSecurityPolicy, securityHeaders } from '$lib/server/perimeter';
 import { movedAddress } from '$lib/server/movedAddresses';
 import { databaseGate, handleServerError } from '$lib/server/databaseGate';
 import { observeRequests } from '$lib/server/observability/requests';
@@ -66,6 +66,6 @@ const moved: Handle = ({ event, resolve }) => {
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised, fillStoredParts);
+export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised, fillStoredParts, pageSecurityPolicy);
 
 export const handleError = handleServerError;

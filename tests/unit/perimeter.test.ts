@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { RequestEvent } from '@sveltejs/kit';
-import { bodyLimitFor, bodyLimits, securityHeaders } from '../../src/lib/server/perimeter';
+import { bodyLimitFor, bodyLimits, inlineScriptHashes, pageSecurityPolicy, pagePolicy, securityHeaders } from '../../src/lib/server/perimeter';
 
 const KB = 1024;
 
@@ -65,5 +65,51 @@ describe('security headers', () => {
 		const secure = await call(securityHeaders({ https: true }), new Request('https://shop.test/'));
 		// RFC 6797 section 6.1: max-age in seconds; one year is the usual floor for preload lists (common practice).
 		expect(secure.response.headers.get('strict-transport-security')).toBe('max-age=31536000; includeSubDomains');
+	});
+});
+
+/** The hash source of `text` by the Web Crypto API, an implementation independent of the one under test. */
+async function webCryptoSource(text: string): Promise<string> {
+	const digest = await crypto.subtle.digest('SHA-256', new TextEncoder().encode(text));
+	return `'sha256-${Buffer.from(digest).toString('base64')}'`;
+}
+
+describe('page security policy', () => {
+	it('hashes an inline script as the CSP specification does', () => {
+		// The Content Security Policy Level 3 specification's hash-source example: <script>alert('Hello, world.');</script>.
+		expect(inlineScriptHashes("<script>alert('Hello, world.');</script>")).toEqual(["'sha256-qznLcsROx4GACP2dm0UCKCzCG+HiZ1guq6ZZDob/Tng='"]);
+	});
+
+	it('hashes every running inline script by its text as written, and nothing else', async () => {
+		const start = '\n\t\t{ const name = "Tamsin · Ω"; start(name); }\n\t';
+		const module = 'import("/_app/x.js")';
+		const html = [
+			'<head><script src="/_app/a.js"></script><script type="application/json" data-sveltekit-fetched>{"a":1}</script></head>',
+			`<body><div><script>${start}</script></div>`,
+			`<script type="module">${module}</script><script type="text/plain">not run</script></body>`
+		].join('');
+		// CSP Level 3 hashes the script element's text content as UTF-8, whitespace and all.
+		expect(inlineScriptHashes(html)).toEqual([await webCryptoSource(start), await webCryptoSource(module)]);
+		expect(inlineScriptHashes('<p>no scripts</p>')).toEqual([]);
+	});
+
+	it('lists the script hashes under script-src only, beside the fixed directives', () => {
+		const policy = pagePolicy(["'sha256-abc='"]);
+		expect(policy).toContain("script-src 'self' 'sha256-abc='");
+		expect(policy).toContain("default-src 'self'");
+		expect(policy).toContain("frame-ancestors 'none'");
+		expect(policy).toContain("object-src 'none'");
+		expect(policy.match(/sha256/g)).toHaveLength(1);
+	});
+
+	it('gives a rendered page its policy and leaves an answer that rendered no page alone', async () => {
+		const page = '<html><script>go()</script></html>';
+		const rendered = await pageSecurityPolicy({
+			event: {} as RequestEvent,
+			resolve: async (_event, options) => new Response(await options!.transformPageChunk!({ html: page, done: true }), { headers: { 'content-type': 'text/html' } })
+		});
+		expect(rendered.headers.get('content-security-policy')).toContain(`script-src 'self' ${await webCryptoSource('go()')}`);
+		const endpoint = await pageSecurityPolicy({ event: {} as RequestEvent, resolve: async () => new Response('{}', { headers: { 'content-type': 'application/json' } }) });
+		expect(endpoint.headers.get('content-security-policy')).toBeNull();
 	});
 });

@@ -1,8 +1,8 @@
+import { createHash } from 'node:crypto';
 import type { Handle } from '@sveltejs/kit';
 
-// What every answer carries and how large a request may be, before any route reads it.
-// The Content-Security-Policy itself is SvelteKit's `csp` setting (svelte.config.js), which
-// hashes the app's own inline scripts.
+// What every answer carries and how large a request may be, before any route reads it, and the
+// Content-Security-Policy of every page.
 
 const KB = 1024;
 const MB = 1024 * KB;
@@ -72,3 +72,74 @@ export function securityHeaders(options: { https: boolean }): Handle {
 		return response;
 	};
 }
+
+/** Where a page may load from and send to. Scripts are the app's own files and the inline scripts it rendered. */
+const POLICY: Record<string, string[]> = {
+	'default-src': ["'self'"],
+	'script-src': ["'self'"],
+	// Svelte's transitions and SVG figures set inline styles.
+	'style-src': ["'self'", "'unsafe-inline'"],
+	// Notes may show only the app's own photos.
+	'img-src': ["'self'", 'data:', 'blob:'],
+	'font-src': ["'self'"],
+	'connect-src': ["'self'"],
+	// The service worker that keeps pages for reading with no signal.
+	'worker-src': ["'self'"],
+	'manifest-src': ["'self'"],
+	'object-src': ["'none'"],
+	'base-uri': ["'self'"],
+	'form-action': ["'self'"],
+	'frame-ancestors': ["'none'"]
+};
+
+const SCRIPT_OPEN = /<script\b([^>]*)>/g;
+const SCRIPT_CLOSE = '</script>';
+// A script element runs when it has no type or a JavaScript one; JSON data blocks are never run.
+const RUNS = /^(?:text\/javascript|application\/javascript|module)$/i;
+
+/** The CSP hash source of every inline script that runs in `html` ('sha256-…' of its text as written). */
+export function inlineScriptHashes(html: string): string[] {
+	const hashes: string[] = [];
+	for (const open of html.matchAll(SCRIPT_OPEN)) {
+		const attributes = open[1];
+		if (/\ssrc\s*=/i.test(attributes)) continue;
+		const type = /\stype\s*=\s*["']?([^"'\s>]+)/i.exec(attributes)?.[1];
+		if (type !== undefined && !RUNS.test(type)) continue;
+		const start = open.index + open[0].length;
+		const end = html.indexOf(SCRIPT_CLOSE, start);
+		if (end === -1) continue;
+		hashes.push(`'sha256-${createHash('sha256').update(html.slice(start, end)).digest('base64')}'`);
+	}
+	return hashes;
+}
+
+/** The Content-Security-Policy header for a page whose inline scripts hash to `scriptHashes`. */
+export function pagePolicy(scriptHashes: string[]): string {
+	return Object.entries(POLICY)
+		.map(([name, sources]) => [name, ...sources, ...(name === 'script-src' ? scriptHashes : [])].join(' '))
+		.join('; ');
+}
+
+/**
+ * Gives every page the policy above with the hashes of the inline scripts it rendered (SvelteKit's start-up
+ * script and data). Runs innermost, so it reads the page as rendered; the hashes are taken with the runtime's
+ * own SHA-256. A page streamed in chunks gets the hashes of what was rendered before its headers went out, as SvelteKit's own hashing did.
+ */
+export const pageSecurityPolicy: Handle = async ({ event, resolve }) => {
+	let rendered = false;
+	const hashes: string[] = [];
+	const response = await resolve(event, {
+		transformPageChunk: ({ html }) => {
+			rendered = true;
+			hashes.push(...inlineScriptHashes(html));
+			return html;
+		}
+	});
+	if (!rendered) return response;
+	try {
+		response.headers.set('content-security-policy', pagePolicy(hashes));
+	} catch {
+		// A response with immutable headers goes out as it is.
+	}
+	return response;
+};
