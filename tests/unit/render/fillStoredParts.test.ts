@@ -1,4 +1,5 @@
 import type { RequestEvent, ResolveOptions } from '@sveltejs/kit';
+import zlib from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { fillStoredParts } from '../../../src/lib/server/render/vehicleBody';
 
@@ -6,15 +7,17 @@ const encode = (s: string) => new TextEncoder().encode(s);
 const PAGE = '<main><div data-kp-fragment="quick-facts"></div><p>Ω · kept</p></main>';
 
 /** Runs the handle over a stand-in render that answers `chunks` the way SvelteKit hands a page to its hooks. */
-async function run(chunks: string[], opts: { fragments?: Record<string, Uint8Array>; tag?: string; type?: string; status?: number } = {}) {
-	const event = { locals: { user: null, units: 'metric', fragments: opts.fragments, fragmentsTag: opts.tag ?? 't1' } } as unknown as RequestEvent;
+async function run(chunks: string[], opts: { fragments?: Record<string, Uint8Array>; tag?: string; type?: string; status?: number; accept?: string } = {}) {
+	const request = new Request('http://shop.test/vehicles/a', { headers: opts.accept ? { 'accept-encoding': opts.accept } : {} });
+	const event = { request, locals: { user: null, units: 'metric', fragments: opts.fragments, fragmentsTag: opts.tag ?? 't1' } } as unknown as RequestEvent;
 	let handedOver = '';
 	const resolve = async (_e: RequestEvent, options?: ResolveOptions) => {
 		for (let i = 0; i < chunks.length; i++) handedOver += (await options?.transformPageChunk?.({ html: chunks[i], done: i === chunks.length - 1 })) ?? chunks[i];
 		return new Response(handedOver, { status: opts.status ?? 200, headers: { 'content-type': opts.type ?? 'text/html', 'content-length': String(encode(handedOver).length), etag: '"e1"' } });
 	};
 	const response = await fillStoredParts({ event, resolve });
-	return { response, text: await response.text(), handedOver };
+	const bytes = Buffer.from(await response.arrayBuffer());
+	return { response, bytes, text: bytes.toString('utf8'), handedOver };
 }
 
 describe('fillStoredParts', () => {
@@ -27,6 +30,22 @@ describe('fillStoredParts', () => {
 		expect(response.headers.get('content-length')).toBe(String(encode(text).length));
 		// SvelteKit was handed nothing to encode or hash again.
 		expect(handedOver).toBe('');
+	});
+
+	it('compresses the filled page in the coding the reader asks for, with the compressed length', async () => {
+		const fragments = { 'quick-facts': encode('<dl>DIN × 2</dl>'.repeat(50)) };
+		const plain = await run([PAGE], { fragments });
+		const brotli = await run([PAGE], { fragments, accept: 'gzip, deflate, br' });
+		expect(brotli.response.headers.get('content-encoding')).toBe('br');
+		expect(brotli.response.headers.get('vary')).toBe('Accept-Encoding');
+		expect(brotli.response.headers.get('content-length')).toBe(String(brotli.bytes.length));
+		expect(zlib.brotliDecompressSync(brotli.bytes).toString('utf8')).toBe(plain.text);
+		const gzip = await run([PAGE], { fragments, accept: 'gzip' });
+		expect(gzip.response.headers.get('content-encoding')).toBe('gzip');
+		expect(zlib.gunzipSync(gzip.bytes).toString('utf8')).toBe(plain.text);
+		expect(plain.response.headers.get('content-encoding')).toBeNull();
+		// The same page in every coding carries the same tag, as the server's own compressor leaves it.
+		expect(brotli.response.headers.get('etag')).toBe(plain.response.headers.get('etag'));
 	});
 
 	it('tags the filled page by its markup and by the stored parts it was filled with', async () => {

@@ -56,13 +56,14 @@ describe('PageMemo', () => {
 
 describe('memoKey', () => {
 	const url = new URL('http://shop.test/vehicles/a');
-	it('differs when the address, the query or any datum differs', () => {
-		const base = memoKey(url, { user: { id: 1 } }, { watching: false });
-		expect(memoKey(url, { user: { id: 1 } }, { watching: false })).toBe(base);
-		expect(memoKey(new URL('http://shop.test/vehicles/b'), { user: { id: 1 } }, { watching: false })).not.toBe(base);
-		expect(memoKey(new URL('http://shop.test/vehicles/a?marked=confirmed'), { user: { id: 1 } }, { watching: false })).not.toBe(base);
-		expect(memoKey(url, { user: { id: 2 } }, { watching: false })).not.toBe(base);
-		expect(memoKey(url, { user: { id: 1 } }, { watching: true })).not.toBe(base);
+	it('differs when the address, the query, the encoding or any datum differs', () => {
+		const base = memoKey(url, 'br', { user: { id: 1 } }, { watching: false });
+		expect(memoKey(url, 'br', { user: { id: 1 } }, { watching: false })).toBe(base);
+		expect(memoKey(new URL('http://shop.test/vehicles/b'), 'br', { user: { id: 1 } }, { watching: false })).not.toBe(base);
+		expect(memoKey(new URL('http://shop.test/vehicles/a?marked=confirmed'), 'br', { user: { id: 1 } }, { watching: false })).not.toBe(base);
+		expect(memoKey(url, 'gzip', { user: { id: 1 } }, { watching: false })).not.toBe(base);
+		expect(memoKey(url, 'br', { user: { id: 2 } }, { watching: false })).not.toBe(base);
+		expect(memoKey(url, 'br', { user: { id: 1 } }, { watching: true })).not.toBe(base);
 	});
 });
 
@@ -128,6 +129,19 @@ describe('reuseRenders', () => {
 		expect(t.renders()).toBe(2);
 		expect(third).toEqual(second);
 		expect(fourth).toEqual(second);
+	});
+
+	it('keeps a render per encoding: a reader asking for another encoding never gets the other one’s bytes', async () => {
+		const t = setup();
+		const asking = (encoding: string) => ({ request: new Request('http://shop.test/vehicles/a', { headers: { 'accept-encoding': encoding } }) });
+		await t.call(asking('br'));
+		const brotli = await t.call(asking('br'));
+		const gzip = await t.call(asking('gzip'));
+		expect(gzip.text).not.toBe(brotli.text);
+		expect(t.renders()).toBe(3);
+		expect(await t.call(asking('gzip, br'))).toEqual(brotli);
+		expect((await t.call(asking('gzip'))).text).not.toBe(brotli.text);
+		expect(t.renders()).toBe(4);
 	});
 
 	it('reads a first view’s data once: the render takes what the memo read for its key', async () => {

@@ -1,12 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { emptyContent, SECTION_KEYS } from '../../../src/lib/domain/content/schema';
 import { renderNotes } from '../../../src/lib/server/services/rendering';
-import { bodyFragments, bodyOf, fragmentPieces } from '../../../src/lib/server/render/vehicleBody';
+import { bodyFragments, bodyOf, spliceFragments } from '../../../src/lib/server/render/vehicleBody';
 import { packParts, unpackParts } from '../../../src/lib/server/render/storedParts';
 import { partsOf } from '../../../src/lib/server/render/readingPage';
 import { seatSpace } from '../../helpers/places';
-
-const spliced = (page: Uint8Array, fragments: Record<string, Uint8Array>) => Buffer.concat(fragmentPieces(page, fragments));
 
 const bytes = (fragments: Record<string, string>) => Object.fromEntries(Object.entries(fragments).map(([k, v]) => [k, new TextEncoder().encode(v)]));
 const text = (b: Uint8Array) => new TextDecoder().decode(b);
@@ -75,7 +73,7 @@ describe('the stored parts of a reading view', () => {
 			['quick-facts', 'quick-facts-columns', ...SECTION_KEYS.flatMap((k) => [`section-${k}`, `notes-${k}`])].sort()
 		);
 		const page = '<main><div data-kp-fragment="notes-identity"></div><p>kept — 12 mm × 3</p><div data-kp-fragment="unknown"></div></main>';
-		const filled = spliced(new TextEncoder().encode(page), bytes(fragments)).toString('utf8');
+		const filled = spliceFragments(new TextEncoder().encode(page), bytes(fragments)).toString('utf8');
 		expect(filled).toBe(
 			`<main><div data-kp-fragment="notes-identity">${fragments['notes-identity']}</div><p>kept — 12 mm × 3</p><div data-kp-fragment="unknown"></div></main>`
 		);
@@ -84,10 +82,10 @@ describe('the stored parts of a reading view', () => {
 	it('leave a placeholder that already holds markup, and a page without placeholders, as they are', () => {
 		const fragments = bytes({ 'quick-facts': '<p>facts</p>' });
 		const held = '<div data-kp-fragment="quick-facts"><p>client</p></div><div data-kp-fragment="quick-facts"></div>';
-		expect(spliced(new TextEncoder().encode(held), fragments).toString('utf8')).toBe(
+		expect(spliceFragments(new TextEncoder().encode(held), fragments).toString('utf8')).toBe(
 			'<div data-kp-fragment="quick-facts"><p>client</p></div><div data-kp-fragment="quick-facts"><p>facts</p></div>'
 		);
 		const plain = new TextEncoder().encode('<p>Ω · no placeholders</p>');
-		expect(spliced(plain, fragments).toString('utf8')).toBe('<p>Ω · no placeholders</p>');
+		expect(spliceFragments(plain, fragments).toString('utf8')).toBe('<p>Ω · no placeholders</p>');
 	});
 });

@@ -6,12 +6,14 @@
 // reused page is never staler than a freshly rendered one would be: any change — a new revision, a
 // trust mark, a watch, a role, the reader's units — changes the data, and so the key.
 import type { Handle, RequestEvent } from '@sveltejs/kit';
+import { pageEncoding } from './pageEncoding';
 
 type Entry = { body: Uint8Array<ArrayBuffer>; headers: [string, string][] };
 export type ViewPart = 'layout' | 'page';
 
-export function memoKey(url: URL, layout: unknown, page: unknown): string {
-	return `${url.pathname}${url.search}\n${JSON.stringify([layout, page])}`;
+/** A render's key: its address, the encoding its bytes were sent in, and its data. */
+export function memoKey(url: URL, encoding: string, layout: unknown, page: unknown): string {
+	return `${url.pathname}${url.search}\n${encoding}\n${JSON.stringify([layout, page])}`;
 }
 
 /**
@@ -130,12 +132,13 @@ export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Pro
 		const view = event.route.id ? views[event.route.id] : undefined;
 		if (!view || event.request.method !== 'GET' || event.isDataRequest || !event.locals.user) return resolve(event);
 		// A reader's first view of an address is rendered as usual, with no key built and nothing kept.
-		if (!memo.seenBefore(`${event.locals.user.id}|${event.locals.units}|${event.url.pathname}${event.url.search}`)) return resolve(event);
+		const encoding = pageEncoding(event.request.headers.get('accept-encoding'));
+		if (!memo.seenBefore(`${event.locals.user.id}|${event.locals.units}|${encoding}|${event.url.pathname}${event.url.search}`)) return resolve(event);
 		let key: string;
 		let prepared: { layout: unknown; page: unknown };
 		try {
 			prepared = { layout: await layout(event.locals), page: await view(event) };
-			key = memoKey(event.url, prepared.layout, prepared.page);
+			key = memoKey(event.url, encoding, prepared.layout, prepared.page);
 		} catch {
 			// A redirect, a 404 or a refusal: the normal render answers it properly.
 			return resolve(event);

@@ -8,6 +8,7 @@ import { sectionIsEmpty } from '$lib/components/vehicle/display';
 import { SECTION_KEYS, type SectionKey } from '$lib/domain/content/schema';
 import type { UnitSystem } from '$lib/domain/units';
 import type { StoredRevision } from '../services/revisions';
+import { encodePage, pageEncoding } from './pageEncoding';
 
 export type VehicleBody = {
 	/** Per section: its figures and tables, its notes, and whether anything is recorded at all. */
@@ -74,11 +75,11 @@ const QUOTE = 0x22;
 const EMPTY_CLOSE = Buffer.from('"></div>');
 
 /**
- * Fills the empty fragment placeholders of a rendered page with their stored HTML. Works on the encoded bytes and
- * answers the filled page as pieces in order (slices of the page and the stored fragments themselves): the large
- * stored parts are neither joined into the page as text nor copied into one buffer on every first view.
+ * Fills the empty fragment placeholders of a rendered page with their stored HTML. Works on the encoded bytes:
+ * the page's own markup is small, and joining the large stored parts into it as text would copy them twice more
+ * (into a string, then out as UTF-8) on every first view.
  */
-export function fragmentPieces(page: Uint8Array, fragments: Record<string, Uint8Array>): Uint8Array[] {
+export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint8Array>): Buffer {
 	const html = Buffer.from(page.buffer, page.byteOffset, page.byteLength);
 	const pieces: Uint8Array[] = [];
 	let from = 0;
@@ -93,20 +94,22 @@ export function fragmentPieces(page: Uint8Array, fragments: Record<string, Uint8
 		if (fill?.length) pieces.push(fill);
 		from = close;
 	}
+	if (pieces.length === 0) return html;
 	pieces.push(html.subarray(from));
-	return pieces;
+	return Buffer.concat(pieces);
 }
 
-/** A body that hands the pieces over as they are, with their total length. */
-function piecesBody(pieces: Uint8Array[]): { body: ReadableStream<Uint8Array>; length: number } {
-	const length = pieces.reduce((sum, piece) => sum + piece.byteLength, 0);
-	const body = new ReadableStream<Uint8Array>({
+/**
+ * The bytes as a response body, handed over as they are: a Response made from bytes copies them first. One
+ * chunk, so a compressing server (which flushes every write) compresses the page as a whole.
+ */
+function bytesBody(bytes: Uint8Array): ReadableStream<Uint8Array> {
+	return new ReadableStream<Uint8Array>({
 		start(controller) {
-			for (const piece of pieces) if (piece.byteLength) controller.enqueue(piece);
+			controller.enqueue(bytes);
 			controller.close();
 		}
 	});
-	return { body, length };
 }
 
 const encoder = new TextEncoder();
@@ -115,8 +118,9 @@ const encoder = new TextEncoder();
  * The handle that fills a full page view's placeholders with the stored parts its load left in `locals.fragments`.
  * A page rendered in one piece is taken as SvelteKit hands it over and SvelteKit is given nothing to encode or
  * hash: the filled page is encoded once here, and its ETag is the page markup's digest with the stored parts'
- * tag (the fragments are named by their tag, so their tens of kilobytes are not hashed on every view). A page
- * streamed in chunks is read back out of its response instead.
+ * tag (the fragments are named by their tag, so their tens of kilobytes are not hashed on every view). The
+ * filled page is compressed here when the reader accepts it (see pageEncoding.ts). A page streamed in chunks is
+ * read back out of its response instead.
  */
 export const fillStoredParts: Handle = async ({ event, resolve }) => {
 	let markup: string | null = null;
@@ -146,8 +150,11 @@ export const fillStoredParts: Handle = async ({ event, resolve }) => {
 	} else {
 		page = new Uint8Array(await response.arrayBuffer());
 	}
-	// With its length known the page goes out in one write, not in chunks.
-	const { body, length } = piecesBody(fragmentPieces(page, fragments));
-	headers.set('content-length', String(length));
-	return new Response(body, { status: response.status, statusText: response.statusText, headers });
+	const encoding = pageEncoding(event.request.headers.get('accept-encoding'));
+	const filled = encodePage(spliceFragments(page, fragments), encoding);
+	if (encoding !== 'identity') headers.set('content-encoding', encoding);
+	headers.set('vary', 'Accept-Encoding');
+	// With its length known the page goes out without chunked framing.
+	headers.set('content-length', String(filled.byteLength));
+	return new Response(bytesBody(filled), { status: response.status, statusText: response.statusText, headers });
 };
