@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { SvelteKitAuth, CredentialsSignin } from '@auth/sveltekit';
+import { getRequestEvent } from '$app/server';
 import Credentials from '@auth/sveltekit/providers/credentials';
 import { authSecret, config } from '$lib/server/config';
 import { authenticate } from '$lib/server/services/users';
@@ -12,9 +13,13 @@ class TooManyAttempts extends CredentialsSignin {
 	code = 'locked';
 }
 
-export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (event) => ({
+// One settings object for every request: Auth.js rebuilds a settings function's answer on each one.
+export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
 	trustHost: config.auth.trustHost,
-	secret: authSecret(),
+	// Read when a request needs it, so a missing secret is reported by start-up checks, not on import.
+	get secret() {
+		return authSecret();
+	},
 	basePath: '/auth',
 	session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_SECONDS },
 	pages: { signIn: '/signin', error: '/signin' },
@@ -25,7 +30,8 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (even
 			name: 'E-mail and password',
 			credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
 			async authorize(credentials) {
-				const result = await authenticate(credentials.email, credentials.password, event.getClientAddress());
+				// The sign-in throttle counts attempts by the address they come from.
+				const result = await authenticate(credentials.email, credentials.password, getRequestEvent().getClientAddress());
 				if (!result.ok) throw result.reason === 'locked' ? new TooManyAttempts() : new WrongCredentials();
 				return { id: String(result.user.id), email: result.user.email, name: result.user.name, sessionVersion: result.user.sessionVersion };
 			}
@@ -42,4 +48,4 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (even
 			return token;
 		}
 	}
-}));
+});

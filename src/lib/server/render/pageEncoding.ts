@@ -1,7 +1,8 @@
 // A page whose bytes are all known when its handle returns (a filled vehicle page) is compressed here in one pass,
 // rather than by the server's streaming compressor, which hands each write to a worker thread and back: a first
-// view is spared those round trips, and a kept render keeps its compressed bytes for every repeat view. The
-// settings are the streaming compressor's own, so the bytes sent are the same size.
+// view is spared those round trips, and a kept render keeps its compressed bytes for every repeat view. Brotli
+// runs at quality 3 rather than the streaming compressor's 4: on the fullest sample page (77 KB) that halves the
+// time (0.35 against 0.73 ms) for 5 % more bytes (14.1 against 13.4 KB).
 import zlib from 'node:zlib';
 import Negotiator from 'negotiator';
 
@@ -22,7 +23,7 @@ export function pageEncoding(acceptEncoding: string | null): PageEncoding {
 }
 
 const BROTLI = {
-	params: { [zlib.constants.BROTLI_PARAM_QUALITY]: 4, [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT }
+	params: { [zlib.constants.BROTLI_PARAM_QUALITY]: 3, [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT }
 };
 
 /** The page's bytes in `encoding`. */
