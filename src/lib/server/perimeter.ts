@@ -123,7 +123,8 @@ export function pagePolicy(scriptHashes: string[]): string {
 /**
  * Gives every page the policy above with the hashes of the inline scripts it rendered (SvelteKit's start-up
  * script and data). Runs innermost, so it reads the page as rendered; the hashes are taken with the runtime's
- * own SHA-256. A page streamed in chunks gets the hashes of what was rendered before its headers went out, as SvelteKit's own hashing did.
+ * own SHA-256. A page streamed in chunks gets the hashes of what was rendered before its headers went out, as
+ * SvelteKit's own hashing did.
  */
 export const pageSecurityPolicy: Handle = async ({ event, resolve }) => {
 	let rendered = false;

@@ -22,13 +22,11 @@ export function pageEncoding(acceptEncoding: string | null): PageEncoding {
 	return (negotiator.encoding(AVAILABLE, PREFERRED) as PageEncoding | undefined) ?? 'identity';
 }
 
-const BROTLI = {
-	params: { [zlib.constants.BROTLI_PARAM_QUALITY]: 3, [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT }
-};
+const BROTLI_PARAMS = { [zlib.constants.BROTLI_PARAM_QUALITY]: 3, [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT };
 
 /** The page's bytes in `encoding`. */
 export function encodePage(bytes: Uint8Array, encoding: PageEncoding): Uint8Array {
-	if (encoding === 'br') return zlib.brotliCompressSync(bytes, { params: { ...BROTLI.params, [zlib.constants.BROTLI_PARAM_SIZE_HINT]: bytes.byteLength } });
+	if (encoding === 'br') return zlib.brotliCompressSync(bytes, { params: { ...BROTLI_PARAMS, [zlib.constants.BROTLI_PARAM_SIZE_HINT]: bytes.byteLength } });
 	if (encoding === 'gzip') return zlib.gzipSync(bytes);
 	return bytes;
 }

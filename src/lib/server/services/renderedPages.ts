@@ -1,5 +1,6 @@
 // The reading view's parts that do not depend on the reader, stored once per content, unit system and
-// renderer in `rendered_pages`, and the one query a page view reads its page, revision and parts with (a second reads its trust marks when it has any).
+// renderer in `rendered_pages`, and the one query a page view reads its page, revision and parts with (a second
+// reads its trust marks when it has any).
 import { QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db';
 import { vehicleTitle } from '../../domain/slug';
