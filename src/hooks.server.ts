@@ -1,5 +1,4 @@
 import { redirect, type Handle, type ServerInit } from '@sveltejs/kit';
-import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from './auth';
 import { sessionClaims } from '$lib/server/auth/session';
 import { activeSessionUser } from '$lib/server/services/users';
@@ -16,6 +15,7 @@ import { movedAddress } from '$lib/server/movedAddresses';
 import { databaseGate, handleServerError } from '$lib/server/databaseGate';
 import { observeRequests } from '$lib/server/observability/requests';
 import { freshReads } from '$lib/server/freshReads';
+import { handleChain } from '$lib/server/handleChain';
 
 export const init: ServerInit = async () => {
 	await startApp();
@@ -66,6 +66,6 @@ const moved: Handle = ({ event, resolve }) => {
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = sequence(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised, fillStoredParts, pageSecurityPolicy);
+export const handle = handleChain(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised, fillStoredParts, pageSecurityPolicy);
 
 export const handleError = handleServerError;
