@@ -123,7 +123,7 @@ start_all() {
 	ensure_build
 	local metrics=($METRICS_PORTS) i=0
 	for p in $APP_PORTS; do
-		PORT="$p" METRICS_PORT="${metrics[$i]:-${metrics[0]}}" node server.js &
+		PORT="$p" METRICS_PORT="${metrics[$i]:-${metrics[0]}}" node $SERVER_NODE_FLAGS server.js &
 		pids+=($!)
 		i=$((i + 1))
 	done

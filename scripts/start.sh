@@ -47,7 +47,7 @@ else
 fi
 ensure_build
 
-node server.js &
+node $SERVER_NODE_FLAGS server.js &
 server_pid=$!
 if wait_for_http "http://127.0.0.1:$PORT/api/health"; then
 	echo

@@ -65,7 +65,7 @@ npx vite build --logLevel error >/dev/null
 bash scripts/check-client.sh >/dev/null
 npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts
-PORT="$TEST_APP_PORT" HOST=127.0.0.1 NODE_ENV=production node server.js >.data/e2e-server.log 2>&1 &
+PORT="$TEST_APP_PORT" HOST=127.0.0.1 NODE_ENV=production node $SERVER_NODE_FLAGS server.js >.data/e2e-server.log 2>&1 &
 server_pid=$!
 if ! wait_for_http "$ORIGIN/api/health"; then
 	log "the app did not start; its log:"

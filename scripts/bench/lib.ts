@@ -57,7 +57,10 @@ export async function busy<T>(pids: { app: number; database: number }, run: () =
 
 export async function startBuiltApp(port: number, env: NodeJS.ProcessEnv): Promise<ChildProcess> {
 	execFileSync('bash', ['-c', 'source scripts/lib.sh && ensure_build'], { stdio: 'inherit' });
-	const child = spawn('node', [...(process.env.BENCH_NODE_ARGS ?? '').split(' ').filter(Boolean), 'server.js'], {
+	// Node runs the app as `npm start` runs it, with any extra flags (a profiler) from BENCH_NODE_ARGS.
+	const serverFlags = execFileSync('bash', ['-c', 'source scripts/lib.sh && echo "$SERVER_NODE_FLAGS"'], { encoding: 'utf8' });
+	const nodeArgs = `${serverFlags} ${process.env.BENCH_NODE_ARGS ?? ''}`.split(/\s+/).filter(Boolean);
+	const child = spawn('node', [...nodeArgs, 'server.js'], {
 		env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}`, NODE_ENV: 'production', ...env },
 		stdio: ['ignore', 'ignore', 'inherit']
 	});
