@@ -30,3 +30,17 @@ export function encodePage(bytes: Uint8Array, encoding: PageEncoding): Uint8Arra
 	if (encoding === 'gzip') return zlib.gzipSync(bytes);
 	return bytes;
 }
+
+/**
+ * A page's finished bytes as a response body, handed over as they are: a Response made from bytes copies them
+ * first, and nothing ever writes to these. One chunk, so a compressing server (which flushes every write)
+ * compresses the page as a whole.
+ */
+export function bytesBody(bytes: Uint8Array): ReadableStream<Uint8Array> {
+	return new ReadableStream<Uint8Array>({
+		start(controller) {
+			controller.enqueue(bytes);
+			controller.close();
+		}
+	});
+}

@@ -6,7 +6,7 @@
 // reused page is never staler than a freshly rendered one would be: any change — a new revision, a
 // trust mark, a watch, a role, the reader's units — changes the data, and so the key.
 import type { Handle, RequestEvent } from '@sveltejs/kit';
-import { pageEncoding } from './pageEncoding';
+import { bytesBody, pageEncoding } from './pageEncoding';
 
 type Entry = { body: Uint8Array<ArrayBuffer>; headers: [string, string][] };
 export type ViewPart = 'layout' | 'page';
@@ -110,15 +110,9 @@ export async function viewData<T>(locals: App.Locals, part: ViewPart, read: () =
 	return data;
 }
 
-/** The kept bytes as a response. Streamed, so the body is not copied for every view; nothing ever writes to it. */
+/** The kept bytes as a response, not copied for every view. */
 function replay(entry: Entry): Response {
-	const body = new ReadableStream<Uint8Array>({
-		start(controller) {
-			controller.enqueue(entry.body);
-			controller.close();
-		}
-	});
-	return new Response(body, { status: 200, headers: entry.headers });
+	return new Response(bytesBody(entry.body), { status: 200, headers: entry.headers });
 }
 
 type ViewData = (event: RequestEvent) => Promise<unknown>;

@@ -8,7 +8,7 @@ import { sectionIsEmpty } from '$lib/components/vehicle/display';
 import { SECTION_KEYS, type SectionKey } from '$lib/domain/content/schema';
 import type { UnitSystem } from '$lib/domain/units';
 import type { StoredRevision } from '../services/revisions';
-import { encodePage, pageEncoding } from './pageEncoding';
+import { bytesBody, encodePage, pageEncoding } from './pageEncoding';
 
 export type VehicleBody = {
 	/** Per section: its figures and tables, its notes, and whether anything is recorded at all. */
@@ -97,19 +97,6 @@ export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint
 	if (pieces.length === 0) return html;
 	pieces.push(html.subarray(from));
 	return Buffer.concat(pieces);
-}
-
-/**
- * The bytes as a response body, handed over as they are: a Response made from bytes copies them first. One
- * chunk, so a compressing server (which flushes every write) compresses the page as a whole.
- */
-function bytesBody(bytes: Uint8Array): ReadableStream<Uint8Array> {
-	return new ReadableStream<Uint8Array>({
-		start(controller) {
-			controller.enqueue(bytes);
-			controller.close();
-		}
-	});
 }
 
 const encoder = new TextEncoder();
