@@ -13,6 +13,9 @@ class TooManyAttempts extends CredentialsSignin {
 	code = 'locked';
 }
 
+/** Where Auth.js answers its own requests (sign-in callbacks, sign-out, its CSRF token). */
+export const AUTH_BASE_PATH = '/auth';
+
 // One settings object for every request: Auth.js rebuilds a settings function's answer on each one.
 export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
 	trustHost: config.auth.trustHost,
@@ -20,7 +23,7 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
 	get secret() {
 		return authSecret();
 	},
-	basePath: '/auth',
+	basePath: AUTH_BASE_PATH,
 	session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_SECONDS },
 	pages: { signIn: '/signin', error: '/signin' },
 	logger: { error: () => {}, warn: () => {} },

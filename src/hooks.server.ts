@@ -1,5 +1,5 @@
 import { redirect, type Handle, type ServerInit } from '@sveltejs/kit';
-import { authHandle } from './auth';
+import { AUTH_BASE_PATH, authHandle } from './auth';
 import { sessionClaims } from '$lib/server/auth/session';
 import { activeSessionUser } from '$lib/server/services/users';
 import { closeDb } from '$lib/server/db';
@@ -61,11 +61,16 @@ const memoised: Handle =
 			})
 		: ({ event, resolve }) => resolve(event);
 
+// Auth.js answers its own endpoints under /auth/; everywhere else the session is read by loadUser, and the
+// sign-in and sign-out actions call Auth.js themselves, so other requests skip its per-request set-up.
+const AUTH_PREFIX = `${AUTH_BASE_PATH}/`;
+const authEndpoints: Handle = ({ event, resolve }) => (event.url.pathname.startsWith(AUTH_PREFIX) ? authHandle({ event, resolve }) : resolve(event));
+
 const moved: Handle = ({ event, resolve }) => {
 	const to = movedAddress(event.url);
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = handleChain(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authHandle, loadUser, memoised, fillStoredParts, pageSecurityPolicy);
+export const handle = handleChain(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authEndpoints, loadUser, memoised, fillStoredParts, pageSecurityPolicy);
 
 export const handleError = handleServerError;

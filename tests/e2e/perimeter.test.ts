@@ -28,6 +28,15 @@ describe('the perimeter', () => {
 		expect(body).toEqual({ status: 'ok', database: 'up' });
 	});
 
+	it('lets Auth.js answer its own endpoints under /auth/ and nothing else', async () => {
+		const providers = await fetch(`${BASE}/auth/providers`);
+		expect(providers.status).toBe(200);
+		expect(Object.keys(await providers.json())).toEqual(['credentials']);
+		// Outside /auth/ the same word is an address the app does not have, behind the sign-in like any other.
+		const elsewhere = await fetch(`${BASE}/api/providers`);
+		expect(elsewhere.status).toBe(401);
+	});
+
 	it('refuses an oversized sign-in post before reading it', async () => {
 		const res = await fetch(`${BASE}/signin`, {
 			method: 'POST',

@@ -34,6 +34,8 @@ describe('the stored parts of a reading view', () => {
 		expect(parts.body.sections.identity.notes).toContain('<strong>brittle</strong>');
 		expect(parts.outline.identity).toEqual({ empty: false, notes: true });
 		expect(parts.outline.power.empty).toBe(true);
+		// The address its names give, as the vehicle list spells it: make, model, years, body.
+		expect(parts.slug).toBe('ostrel-carrow-2011-2016-wagon');
 	});
 
 	it('read back from their stored form exactly as rendered', () => {

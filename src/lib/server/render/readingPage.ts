@@ -5,6 +5,7 @@
 import { dev, version } from '$app/environment';
 import type { SectionKey, VehicleContent } from '../../domain/content/schema';
 import type { UnitSystem } from '../../domain/units';
+import { vehicleSlug } from '../../domain/slug';
 import { SHARED_STATE_TTL_MS, lookupCache } from '../cache';
 import { onMarksChanged, onRevisionWritten, onVehicleChanged } from '../events';
 import { revisionById } from '../services/revisions';
@@ -34,7 +35,7 @@ const partsTag = (sha256: string, units: UnitSystem) => `${sha256.slice(0, 24)}.
 
 export function partsOf(revision: { content: VehicleContent; rendered: Partial<Record<SectionKey, string>> }, units: UnitSystem): ReadingParts {
 	const { notes: _notes, ...identity } = revision.content.identity;
-	return { ...renderBody(revision, units), identity, photos: revision.content.photos };
+	return { ...renderBody(revision, units), identity, photos: revision.content.photos, slug: vehicleSlug(identity) };
 }
 
 /** Renders and stores a revision's parts in `units`; what it stored is what it returns. */

@@ -10,6 +10,8 @@ export type ReadingParts = RenderedBody & {
 	/** The header's names and years; the identity notes are in the body. */
 	identity: Omit<VehicleContent['identity'], 'notes'>;
 	photos: VehicleContent['photos'];
+	/** The address these names give (a rename waiting for sign-off makes it differ from the page's own). */
+	slug: string;
 };
 
 /**

@@ -5,7 +5,6 @@ import { readableHead } from '../services/renderedPages';
 import { isWatching } from '../services/watch';
 import { trustSummaryFromMarks } from '../services/trust';
 import { canEditVehicle } from '../services/revisions';
-import { vehicleSlug } from '../../domain/slug';
 import { deliverBody } from '../render/vehicleBody';
 import { partsFor, readingPage } from '../render/readingPage';
 import { listSuggestions } from '../services/suggestions';
@@ -50,7 +49,7 @@ export async function vehiclePageData({ locals, params, url, isDataRequest }: Ve
 		trust,
 		newerAwaitingReview,
 		// A rename waiting for sign-off: lists, search and the address keep the signed-off name until then.
-		listedAs: vehicleSlug(parts.identity) === vehicle.slug ? null : vehicle.title,
+		listedAs: parts.slug === vehicle.slug ? null : vehicle.title,
 		suggestions,
 		units: locals.units,
 		flash: Number.isInteger(saved) && saved > 0 ? { revisionId: saved, merged: url.searchParams.get('merged') === '1' } : null
