@@ -1,4 +1,4 @@
-// The production server: the built app behind response compression.
+// The production server: the built app behind response compression, with kept pages answered first.
 // `node server.js` after `vite build`; HOST, PORT and SHUTDOWN_TIMEOUT as for the adapter's own entry.
 import http from 'node:http';
 import zlib from 'node:zlib';
@@ -19,7 +19,7 @@ const compress = compression({
 	filter: (req, res) => !String(res.getHeader('content-type') ?? '').startsWith('text/event-stream') && compression.filter(req, res)
 });
 
-const server = http.createServer((req, res) => {
+function serve(req, res) {
 	compress(req, res, (err) => {
 		if (err) {
 			res.statusCode = 500;
@@ -31,6 +31,23 @@ const server = http.createServer((req, res) => {
 			res.end('Not found');
 		});
 	});
+}
+
+// Repeat views of kept pages are answered before SvelteKit once the app has opened that door
+// (src/lib/server/render/keptPages.ts); it answers null for everything else, which SvelteKit serves.
+const KEPT_PAGES = Symbol.for('kickpanel.keptPages');
+
+const server = http.createServer((req, res) => {
+	const keptPages = req.method === 'GET' ? globalThis[KEPT_PAGES] : undefined;
+	if (!keptPages) return serve(req, res);
+	keptPages(req).then(
+		(answer) => {
+			if (!answer) return serve(req, res);
+			res.writeHead(answer.status, answer.headers.flat());
+			res.end(answer.body ?? undefined);
+		},
+		() => serve(req, res)
+	);
 });
 
 server.listen({ host, port }, () => console.log(`Listening on http://${host}:${port}`));

@@ -1,29 +1,33 @@
 import { redirect, type Handle, type ServerInit } from '@sveltejs/kit';
 import { AUTH_BASE_PATH, authHandle } from './auth';
-import { sessionClaims } from '$lib/server/auth/session';
-import { activeSessionUser } from '$lib/server/services/users';
+import { readerOf } from '$lib/server/auth/reader';
 import { closeDb } from '$lib/server/db';
 import { startApp } from '$lib/server/lifecycle';
 import { fillStoredParts } from '$lib/server/render/vehicleBody';
 import { renderMissingParts } from '$lib/server/render/readingPage';
-import { PageMemo, reuseRenders } from '$lib/server/render/pageMemo';
+import { PageMemo, reuseRenders, type MemoisedView } from '$lib/server/render/pageMemo';
+import { KEPT_PAGES, keptPages } from '$lib/server/render/keptPages';
 import { layoutData } from '$lib/server/views/layout';
 import { vehiclePageData } from '$lib/server/views/vehiclePage';
 import { config } from '$lib/server/config';
-import { bodyLimits, pageSecurityPolicy, securityHeaders } from '$lib/server/perimeter';
+import { answerHeaders, bodyLimits, pageSecurityPolicy, securityHeaders } from '$lib/server/perimeter';
+import { databaseDownSince } from '$lib/server/db/availability';
 import { movedAddress } from '$lib/server/movedAddresses';
 import { databaseGate, handleServerError } from '$lib/server/databaseGate';
 import { observeRequests } from '$lib/server/observability/requests';
-import { freshReads } from '$lib/server/freshReads';
+import { awaitsOwnWrite, freshReads } from '$lib/server/freshReads';
 import { handleChain } from '$lib/server/handleChain';
 
 export const init: ServerInit = async () => {
 	await startApp();
+	openKeptPagesDoor();
 	void renderMissingParts().catch((err) => console.error('[kickpanel] stored page parts not rendered at start-up; pages render on first view', err));
 	process.once('sveltekit:shutdown', () => {
 		void closeDb();
 	});
 };
+
+const PERIMETER = { https: config.origin.startsWith('https:') };
 
 // Forms whose refusal, even signed out, comes back with what was typed.
 const KEEPS_TYPED_WORK = /^\/vehicles\/[^/]+\/edit$/;
@@ -32,9 +36,9 @@ const KEEPS_TYPED_WORK = /^\/vehicles\/[^/]+\/edit$/;
 const PUBLIC_PREFIXES = ['/signin', '/auth/', '/api/health', '/guide', '/favicon', '/manifest', '/_app/', '/reset', '/invite', '/setup/'];
 
 const loadUser: Handle = async ({ event, resolve }) => {
-	const claims = await sessionClaims(event.cookies);
-	event.locals.user = claims ? await activeSessionUser(claims.uid, claims.sv, claims.sid) : null;
-	event.locals.units = event.locals.user?.units ?? (event.cookies.get('units') === 'imperial' ? 'imperial' : 'metric');
+	const { user, units } = await readerOf(event.cookies);
+	event.locals.user = user;
+	event.locals.units = units;
 	const path = event.url.pathname;
 	const isPublic = path === '/signin' || PUBLIC_PREFIXES.some((p) => path.startsWith(p));
 	if (!event.locals.user && !isPublic) {
@@ -52,14 +56,30 @@ const loadUser: Handle = async ({ event, resolve }) => {
 };
 
 // Installers reopen the same page all day: a page whose data has not changed since its last render is
-// sent again as it was rendered. Only the reading view of a vehicle page is worth it.
-const memoised: Handle =
-	config.pageMemoBytes > 0
-		? reuseRenders(new PageMemo(config.pageMemoBytes), layoutData, {
-				'/vehicles/[slug]': ({ locals, url, isDataRequest, params }) =>
-					vehiclePageData({ locals, url, isDataRequest, params: { slug: params.slug ?? '' } })
-			})
-		: ({ event, resolve }) => resolve(event);
+// sent again as it was rendered. Only the reading view of a vehicle page is worth it. Such repeat views are
+// answered before SvelteKit when server.js finds the door (render/keptPages.ts); the handle answers the rest.
+const memo = new PageMemo(config.pageMemoBytes);
+const memoisedViews: Record<string, MemoisedView> = {
+	// Slugs are lower-case letters, digits and hyphens (domain/slug.ts).
+	'/vehicles/[slug]': {
+		path: /^\/vehicles\/(?<slug>[a-z0-9-]+)$/,
+		data: ({ locals, url, isDataRequest, params }) => vehiclePageData({ locals, url, isDataRequest, params: { slug: params.slug ?? '' } })
+	}
+};
+const memoised: Handle = config.pageMemoBytes > 0 ? reuseRenders(memo, layoutData, memoisedViews) : ({ event, resolve }) => resolve(event);
+
+function openKeptPagesDoor() {
+	if (config.pageMemoBytes <= 0) return;
+	(globalThis as Record<symbol, unknown>)[KEPT_PAGES] = keptPages({
+		memo,
+		layout: layoutData,
+		views: memoisedViews,
+		reader: readerOf,
+		headers: answerHeaders(PERIMETER),
+		// While the database is marked down the gate answers; a reader waiting for their own write reads the primary.
+		passBy: (cookies) => databaseDownSince() !== null || awaitsOwnWrite(cookies)
+	});
+}
 
 // Auth.js answers its own endpoints under /auth/; everywhere else the session is read by loadUser, and the
 // sign-in and sign-out actions call Auth.js themselves, so other requests skip its per-request set-up.
@@ -71,6 +91,6 @@ const moved: Handle = ({ event, resolve }) => {
 	return to ? new Response(null, { status: 308, headers: { location: to } }) : resolve(event);
 };
 
-export const handle = handleChain(observeRequests, securityHeaders({ https: config.origin.startsWith('https:') }), moved, bodyLimits, databaseGate, freshReads, authEndpoints, loadUser, memoised, fillStoredParts, pageSecurityPolicy);
+export const handle = handleChain(observeRequests, securityHeaders(PERIMETER), moved, bodyLimits, databaseGate, freshReads, authEndpoints, loadUser, memoised, fillStoredParts, pageSecurityPolicy);
 
 export const handleError = handleServerError;

@@ -1,13 +1,18 @@
 // Read-your-writes with a replica: a person who saved gets a cookie with the primary's log position at that
 // moment; while the replica has not applied that far, their requests read from the primary. Nobody sees an
 // older page than the one they saved, whichever app server answers them.
-import type { Handle } from '@sveltejs/kit';
+import type { Cookies, Handle } from '@sveltejs/kit';
 import { config } from './config';
 import { db } from './db';
 import { isGtidPosition, primaryPosition, readingFromPrimary, replicaReached } from './db/readRouting';
 
 export const WRITTEN_COOKIE = 'kp-written';
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** Whether this reader saved lately enough that their reads may have to wait for the replica. */
+export function awaitsOwnWrite(cookies: Pick<Cookies, 'get'>): boolean {
+	return !!config.db.replica && cookies.get(WRITTEN_COOKIE) !== undefined;
+}
 
 export const freshReads: Handle = async ({ event, resolve }) => {
 	if (!config.db.replica) return resolve(event);

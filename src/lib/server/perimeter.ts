@@ -53,19 +53,24 @@ export const bodyLimits: Handle = ({ event, resolve }) => {
 };
 
 /** Headers for every answer: no framing, no referrer sent to other sites, no device features by default. */
+export function answerHeaders(options: { https: boolean }): [name: string, value: string][] {
+	return [
+		['x-content-type-options', 'nosniff'],
+		['x-frame-options', 'DENY'],
+		['referrer-policy', 'same-origin'],
+		['permissions-policy', 'camera=(self), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()'],
+		['cross-origin-opener-policy', 'same-origin'],
+		...(options.https ? ([['strict-transport-security', 'max-age=31536000; includeSubDomains']] as [string, string][]) : [])
+	];
+}
+
+/** Gives every answer the headers above, unless it set its own. */
 export function securityHeaders(options: { https: boolean }): Handle {
+	const headers = answerHeaders(options);
 	return async ({ event, resolve }) => {
 		const response = await resolve(event);
-		const set = (name: string, value: string) => {
-			if (!response.headers.has(name)) response.headers.set(name, value);
-		};
 		try {
-			set('x-content-type-options', 'nosniff');
-			set('x-frame-options', 'DENY');
-			set('referrer-policy', 'same-origin');
-			set('permissions-policy', 'camera=(self), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()');
-			set('cross-origin-opener-policy', 'same-origin');
-			if (options.https) set('strict-transport-security', 'max-age=31536000; includeSubDomains');
+			for (const [name, value] of headers) if (!response.headers.has(name)) response.headers.set(name, value);
 		} catch {
 			// A response with immutable headers (a fetched one passed through) goes out as it is.
 		}

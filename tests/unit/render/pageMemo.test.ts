@@ -91,7 +91,7 @@ describe('reuseRenders', () => {
 			if (state.page === 'missing') throw new Error('404');
 			return state.page;
 		};
-		const handle = reuseRenders(memo, async () => state.layout, { '/vehicles/[slug]': readPage });
+		const handle = reuseRenders(memo, async () => state.layout, { '/vehicles/[slug]': { path: /^\/vehicles\/(?<slug>[a-z0-9-]+)$/, data: readPage } });
 		let renders = 0;
 		const call = async (over: Partial<RequestEvent> = {}) => {
 			const event = {

@@ -31,7 +31,7 @@ async function claimsFor(cookieName: string, token: string): Promise<SessionClai
 }
 
 /** The session cookie this request carries (secure name first), if any. */
-function sessionCookie(cookies: Cookies): { name: string; token: string } | null {
+function sessionCookie(cookies: Pick<Cookies, 'get'>): { name: string; token: string } | null {
 	for (const name of COOKIE_NAMES) {
 		const token = cookies.get(name);
 		if (token) return { name, token };
@@ -40,7 +40,7 @@ function sessionCookie(cookies: Cookies): { name: string; token: string } | null
 }
 
 /** The unexpired claims of this request's session cookie; the person behind them is read by the users service. */
-export async function sessionClaims(cookies: Cookies): Promise<SessionClaims | null> {
+export async function sessionClaims(cookies: Pick<Cookies, 'get'>): Promise<SessionClaims | null> {
 	const cookie = sessionCookie(cookies);
 	if (!cookie) return null;
 	const claims = await claimsFor(cookie.name, cookie.token);

@@ -7,9 +7,21 @@ import { requestSeconds, requestsTotal } from './metrics';
 
 const SANE_ID = /^[A-Za-z0-9._:-]{8,64}$/;
 
+/** The id a request is known by: the one a proxy gave it when that is sane, else a new one. */
+export function requestIdFor(given: string | null | undefined): string {
+	return given && SANE_ID.test(given) ? given : randomUUID();
+}
+
+/** Counts an answered request in the metrics and writes its log line. */
+export function noteAnswer(answer: { method: string; route: string; status: number; seconds: number }): void {
+	const { method, route, status, seconds } = answer;
+	requestsTotal.inc({ route, method, status: String(status) });
+	requestSeconds.observe({ route, method }, seconds);
+	log.info({ method, route, status, ms: Math.round(seconds * 1000) }, 'request');
+}
+
 export const observeRequests: Handle = async ({ event, resolve }) => {
-	const given = event.request.headers.get('x-request-id');
-	const requestId = given && SANE_ID.test(given) ? given : randomUUID();
+	const requestId = requestIdFor(event.request.headers.get('x-request-id'));
 	const started = performance.now();
 	return withRequestId(requestId, async () => {
 		const route = event.route.id ?? (event.url.pathname.startsWith('/_app/') ? '/_app' : 'unmatched');
@@ -28,10 +40,7 @@ export const observeRequests: Handle = async ({ event, resolve }) => {
 			status = typeof (err as { status?: unknown })?.status === 'number' ? (err as { status: number }).status : 500;
 			throw err;
 		} finally {
-			const seconds = (performance.now() - started) / 1000;
-			requestsTotal.inc({ route, method: event.request.method, status: String(status) });
-			requestSeconds.observe({ route, method: event.request.method }, seconds);
-			log.info({ method: event.request.method, route, status, ms: Math.round(seconds * 1000) }, 'request');
+			noteAnswer({ method: event.request.method, route, status, seconds: (performance.now() - started) / 1000 });
 		}
 	});
 };

@@ -50,6 +50,11 @@ export class PageMemo {
 		private readonly rememberedKeys = 50_000
 	) {}
 
+	/** Whether `view` was seen lately, without remembering it as seen now. */
+	viewedLately(view: string): boolean {
+		return this.viewed.has(view);
+	}
+
 	/** Whether `view` (a reader and an address) was seen lately; either way it is remembered as seen now. */
 	seenBefore(view: string): boolean {
 		const seen = this.viewed.delete(view);
@@ -115,23 +120,38 @@ function replay(entry: Entry): Response {
 	return new Response(bytesBody(entry.body), { status: 200, headers: entry.headers });
 }
 
-type ViewData = (event: RequestEvent) => Promise<unknown>;
+/** What a memoised view's data is read from: as much of a request event as its page load uses. */
+export type ViewRequest = Pick<RequestEvent, 'locals' | 'url' | 'isDataRequest'> & { params: Partial<Record<string, string>> };
+
+/**
+ * A memoised route: the addresses it answers (its parameters as named groups, matching exactly what SvelteKit
+ * routes to it) and the function its page load returns.
+ */
+export type MemoisedView = { path: RegExp; data: (request: ViewRequest) => Promise<unknown> };
+
+/** The layout's data for a reader. */
+export type LayoutData = (locals: App.Locals) => Promise<unknown>;
+
+/** Names a reader's view of an address in one encoding, for `seenBefore`. */
+export function viewName(locals: Pick<App.Locals, 'user' | 'units'>, encoding: string, url: URL): string {
+	return `${locals.user?.id}|${locals.units}|${encoding}|${url.pathname}${url.search}`;
+}
 
 /**
  * A handle that answers a GET of a memoised route from an earlier render when its data is unchanged.
- * `views` maps a route id to the function its page load returns; `layout` is the root layout's.
+ * `views` maps a route id to its view; `layout` is the root layout's data.
  */
-export function reuseRenders(memo: PageMemo, layout: (locals: App.Locals) => Promise<unknown>, views: Record<string, ViewData>): Handle {
+export function reuseRenders(memo: PageMemo, layout: LayoutData, views: Record<string, MemoisedView>): Handle {
 	return async ({ event, resolve }) => {
 		const view = event.route.id ? views[event.route.id] : undefined;
 		if (!view || event.request.method !== 'GET' || event.isDataRequest || !event.locals.user) return resolve(event);
 		// A reader's first view of an address is rendered as usual, with no key built and nothing kept.
 		const encoding = pageEncoding(event.request.headers.get('accept-encoding'));
-		if (!memo.seenBefore(`${event.locals.user.id}|${event.locals.units}|${encoding}|${event.url.pathname}${event.url.search}`)) return resolve(event);
+		if (!memo.seenBefore(viewName(event.locals, encoding, event.url))) return resolve(event);
 		let key: string;
 		let prepared: { layout: unknown; page: unknown };
 		try {
-			prepared = { layout: await layout(event.locals), page: await view(event) };
+			prepared = { layout: await layout(event.locals), page: await view.data(event) };
 			key = memoKey(event.url, encoding, prepared.layout, prepared.page);
 		} catch {
 			// A redirect, a 404 or a refusal: the normal render answers it properly.
