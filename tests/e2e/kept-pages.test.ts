@@ -1,25 +1,11 @@
-import http from 'node:http';
 import zlib from 'node:zlib';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { BASE, userFor } from './browser';
+import { rawGet, type Raw } from './rawGet';
 import { signInCookie } from '../../scripts/bench/lib';
 
 // A reader's repeat views of an unchanged vehicle page are answered from the page memo before SvelteKit
 // (src/lib/server/render/keptPages.ts). Whichever path answers, the reader gets the same page and headers.
-
-type Raw = { status: number; headers: http.IncomingHttpHeaders; body: Buffer };
-
-function get(path: string, headers: Record<string, string>): Promise<Raw> {
-	return new Promise((resolve, reject) => {
-		http
-			.get(`${BASE}${path}`, { headers }, (res) => {
-				const chunks: Buffer[] = [];
-				res.on('data', (c: Buffer) => chunks.push(c));
-				res.on('end', () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }));
-			})
-			.on('error', reject);
-	});
-}
 
 // Headers that differ on every answer by their nature.
 const PER_ANSWER = new Set(['date', 'x-request-id', 'connection', 'keep-alive']);
@@ -30,7 +16,7 @@ let slug = '';
 beforeAll(async () => {
 	const viewer = userFor('viewer');
 	const cookie = await signInCookie(BASE, viewer.email, viewer.password);
-	const list = (await get('/vehicles', { cookie, 'accept-encoding': 'identity' })).body.toString('utf8');
+	const list = (await rawGet('/vehicles', { cookie, 'accept-encoding': 'identity' })).body.toString('utf8');
 	slug = /href="\/vehicles\/([a-z0-9-]+)"/.exec(list)![1];
 });
 
@@ -39,10 +25,10 @@ describe('repeat views of a kept page', () => {
 		const viewer = userFor('viewer');
 		const cookie = await signInCookie(BASE, viewer.email, viewer.password);
 		const headers = { cookie, 'accept-encoding': 'br' };
-		const first = await get(`/vehicles/${slug}`, headers);
+		const first = await rawGet(`/vehicles/${slug}`, headers);
 		// The second view is rendered and kept; the later ones are answered from it.
-		const kept = await get(`/vehicles/${slug}`, headers);
-		const repeats = [await get(`/vehicles/${slug}`, headers), await get(`/vehicles/${slug}`, headers)];
+		const kept = await rawGet(`/vehicles/${slug}`, headers);
+		const repeats = [await rawGet(`/vehicles/${slug}`, headers), await rawGet(`/vehicles/${slug}`, headers)];
 		for (const raw of [first, kept, ...repeats]) expect(raw.status).toBe(200);
 		for (const repeat of repeats) {
 			expect(repeat.body.equals(kept.body)).toBe(true);
@@ -56,7 +42,7 @@ describe('repeat views of a kept page', () => {
 			expect(repeats[0].headers[name]).toBeTruthy();
 		}
 		// A reader who holds the page already gets 304 and no body.
-		const again = await get(`/vehicles/${slug}`, { ...headers, 'if-none-match': kept.headers.etag! });
+		const again = await rawGet(`/vehicles/${slug}`, { ...headers, 'if-none-match': kept.headers.etag! });
 		expect(again.status).toBe(304);
 		expect(again.body.length).toBe(0);
 		expect(again.headers.etag).toBe(kept.headers.etag);
@@ -65,7 +51,7 @@ describe('repeat views of a kept page', () => {
 	it('stop the moment the session is signed out: a copy of its cookie is sent to sign in', async () => {
 		const viewer = userFor('viewer');
 		const cookie = await signInCookie(BASE, viewer.email, viewer.password);
-		for (let i = 0; i < 3; i++) expect((await get(`/vehicles/${slug}`, { cookie, 'accept-encoding': 'gzip' })).status).toBe(200);
+		for (let i = 0; i < 3; i++) expect((await rawGet(`/vehicles/${slug}`, { cookie, 'accept-encoding': 'gzip' })).status).toBe(200);
 		const signedOut = await fetch(`${BASE}/signout`, {
 			method: 'POST',
 			redirect: 'manual',
@@ -73,7 +59,7 @@ describe('repeat views of a kept page', () => {
 			body: new URLSearchParams({ redirectTo: '/signin?signedout=1' })
 		});
 		expect(signedOut.status).toBeLessThan(400);
-		const copy = await get(`/vehicles/${slug}`, { cookie, 'accept-encoding': 'gzip' });
+		const copy = await rawGet(`/vehicles/${slug}`, { cookie, 'accept-encoding': 'gzip' });
 		expect(copy.status).toBe(303);
 		expect(copy.headers.location).toMatch(/^\/signin\?next=/);
 	});
