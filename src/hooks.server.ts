@@ -1,6 +1,6 @@
 import { redirect, type Handle, type ServerInit } from '@sveltejs/kit';
 import { AUTH_BASE_PATH, authHandle } from './auth';
-import { readerOf } from '$lib/server/auth/reader';
+import { readerOf } from '$lib/server/services/reader';
 import { closeDb } from '$lib/server/db';
 import { startApp } from '$lib/server/lifecycle';
 import { fillStoredParts } from '$lib/server/render/vehicleBody';

@@ -9,7 +9,7 @@
 import type { IncomingHttpHeaders } from 'node:http';
 import type { Cookies } from '@sveltejs/kit';
 import { parse as parseCookies } from 'cookie';
-import type { Reader } from '../auth/reader';
+import type { Reader } from '../services/reader';
 import { withRequestId } from '../observability/log';
 import { noteAnswer, requestIdFor } from '../observability/requests';
 import { pageEncoding } from './pageEncoding';

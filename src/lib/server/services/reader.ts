@@ -1,7 +1,7 @@
 import type { Cookies } from '@sveltejs/kit';
 import type { SessionUser } from '../../domain/sessionUser';
-import { activeSessionUser } from '../services/users';
-import { sessionClaims } from './session';
+import { activeSessionUser } from './users';
+import { sessionClaims } from '../auth/session';
 
 export type Reader = { user: SessionUser | null; units: 'metric' | 'imperial' };
 
