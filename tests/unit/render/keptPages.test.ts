@@ -90,10 +90,11 @@ describe('kept pages at the door', () => {
 		expect((await t.ask({ headers: { 'if-none-match': '"r1"' } }))?.status).toBe(200);
 	});
 
-	it('leaves a first view to SvelteKit without reading its data', async () => {
+	it('leaves a first view to SvelteKit without reading its reader or its data', async () => {
 		const t = setup();
 		expect(await t.ask()).toBeNull();
 		expect(t.reads()).toBe(0);
+		expect(t.reader).not.toHaveBeenCalled();
 		// Nor does asking count as a view: the framework's render is still the reader's first.
 		await t.render();
 		expect(t.memo.size).toBe(0);

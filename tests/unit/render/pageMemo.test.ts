@@ -47,6 +47,23 @@ describe('PageMemo', () => {
 		expect(memo.seenBefore('c')).toBe(true);
 	});
 
+	it('knows which addresses have a kept render, by the address its keys begin with', () => {
+		// Room for two entries: each costs its body (100 bytes) and its key (16 or 24 characters) at two bytes each.
+		const memo = new PageMemo(300);
+		const key = (path: string, data: string) => `${path}\nbr\n${data}`;
+		memo.set(key('/vehicles/a', '1'), entry('x'.repeat(100)));
+		memo.set(key('/vehicles/a', '2'), entry('x'.repeat(100)));
+		expect(memo.keepsAddress('/vehicles/a')).toBe(true);
+		expect(memo.keepsAddress('/vehicles/b')).toBe(false);
+		// Both of a's renders pushed out: the address is forgotten with its last one.
+		memo.set(key('/vehicles/b?saved=3', '1'), entry('x'.repeat(100)));
+		expect(memo.keepsAddress('/vehicles/a')).toBe(true);
+		memo.set(key('/vehicles/b?saved=3', '2'), entry('x'.repeat(100)));
+		expect(memo.keepsAddress('/vehicles/a')).toBe(false);
+		expect(memo.keepsAddress('/vehicles/b?saved=3')).toBe(true);
+		expect(memo.keepsAddress('/vehicles/b')).toBe(false);
+	});
+
 	it('does not keep a page larger than the whole budget', () => {
 		const memo = new PageMemo(50);
 		memo.set('a', entry('x'.repeat(100)));

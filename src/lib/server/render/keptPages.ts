@@ -56,6 +56,9 @@ export function keptPages(options: {
 	return async (request) => {
 		const started = performance.now();
 		if (request.method !== 'GET' || !request.url?.startsWith('/')) return null;
+		// Most first views stop here: no reader's render of this address is kept. (The address as sent; one
+		// the URL parser would spell otherwise is left to SvelteKit.)
+		if (!memo.keepsAddress(request.url)) return null;
 		const url = new URL(request.url, ANY_ORIGIN);
 		let route: string | null = null;
 		let view: MemoisedView | null = null;

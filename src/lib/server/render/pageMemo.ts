@@ -16,6 +16,9 @@ export function memoKey(url: URL, encoding: string, layout: unknown, page: unkno
 	return `${url.pathname}${url.search}\n${encoding}\n${JSON.stringify([layout, page])}`;
 }
 
+/** The address (path and query) a key names. */
+const addressOf = (key: string) => key.slice(0, key.indexOf('\n'));
+
 /**
  * Whether JSON spells the value out in full. A Map, a Set or a class instance would stringify as `{}`,
  * so two different data could share a key: a render whose data holds one is not kept.
@@ -40,6 +43,8 @@ export function isPlainData(value: unknown): boolean {
 export class PageMemo {
 	private entries = new Map<string, Entry>();
 	private used = 0;
+	// How many kept renders each address has, so a view of an address with none is told so at once.
+	private addresses = new Map<string, number>();
 	// Readers' addresses viewed lately (least recently viewed first out), so a second view is recognised.
 	private viewed = new Set<string>();
 	hits = 0;
@@ -49,6 +54,11 @@ export class PageMemo {
 		private readonly maxBytes: number,
 		private readonly rememberedKeys = 50_000
 	) {}
+
+	/** Whether any reader's render of `address` (path and query, as in `memoKey`) is kept. */
+	keepsAddress(address: string): boolean {
+		return this.addresses.has(address);
+	}
 
 	/** Whether `view` was seen lately, without remembering it as seen now. */
 	viewedLately(view: string): boolean {
@@ -94,11 +104,17 @@ export class PageMemo {
 		}
 		this.entries.set(key, entry);
 		this.used += cost;
+		const address = addressOf(key);
+		this.addresses.set(address, (this.addresses.get(address) ?? 0) + 1);
 	}
 
 	private forget(key: string, entry: Entry) {
 		this.entries.delete(key);
 		this.used -= entry.body.byteLength + key.length * 2;
+		const address = addressOf(key);
+		const left = (this.addresses.get(address) ?? 1) - 1;
+		if (left > 0) this.addresses.set(address, left);
+		else this.addresses.delete(address);
 	}
 }
 
