@@ -58,6 +58,7 @@ const loadUser: Handle = async ({ event, resolve }) => {
 // Installers reopen the same page all day: a page whose data has not changed since its last render is
 // sent again as it was rendered. Only the reading view of a vehicle page is worth it. Such repeat views are
 // answered before SvelteKit when server.js finds the door (render/keptPages.ts); the handle answers the rest.
+const keepsPages = config.pageMemoBytes > 0;
 const memo = new PageMemo(config.pageMemoBytes);
 const memoisedViews: Record<string, MemoisedView> = {
 	// Slugs are lower-case letters, digits and hyphens (domain/slug.ts).
@@ -66,10 +67,10 @@ const memoisedViews: Record<string, MemoisedView> = {
 		data: ({ locals, url, isDataRequest, params }) => vehiclePageData({ locals, url, isDataRequest, params: { slug: params.slug ?? '' } })
 	}
 };
-const memoised: Handle = config.pageMemoBytes > 0 ? reuseRenders(memo, layoutData, memoisedViews) : ({ event, resolve }) => resolve(event);
+const memoised: Handle = keepsPages ? reuseRenders(memo, layoutData, memoisedViews) : ({ event, resolve }) => resolve(event);
 
 function openKeptPagesDoor() {
-	if (config.pageMemoBytes <= 0) return;
+	if (!keepsPages) return;
 	(globalThis as Record<symbol, unknown>)[KEPT_PAGES] = keptPages({
 		memo,
 		layout: layoutData,

@@ -60,17 +60,10 @@ export function keptPages(options: {
 		// the URL parser would spell otherwise is left to SvelteKit.)
 		if (!memo.keepsAddress(request.url)) return null;
 		const url = new URL(request.url, ANY_ORIGIN);
-		let route: string | null = null;
-		let view: MemoisedView | null = null;
-		let params: Record<string, string> = {};
-		for (const [id, candidate] of routes) {
-			const match = candidate.path.exec(url.pathname);
-			if (match) {
-				[route, view, params] = [id, candidate, { ...match.groups }];
-				break;
-			}
-		}
-		if (!route || !view) return null;
+		const found = routes.map(([route, view]) => ({ route, view, match: view.path.exec(url.pathname) })).find((r) => r.match);
+		if (!found) return null;
+		const { route, view } = found;
+		const params = { ...found.match!.groups };
 		try {
 			const jar = parseCookies(one(request.headers.cookie) ?? '');
 			const cookies = { get: (name: string) => jar[name] };
