@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { closeDb, freshDatabase } from '../helpers/database';
+import { statementsDuring } from '../helpers/statements';
 import { makeUser } from '../helpers/users';
 import { seatSpace } from '../helpers/places';
 import { db } from '../../src/lib/server/db';
@@ -152,17 +153,9 @@ describe('database work for a page view', () => {
 		// The shop settings and the reader's followed pages are read once per reader, not per page.
 		await view(viewer);
 		const queriesFor = async () => {
-			const seen: string[] = [];
-			db().addHook('afterQuery', 'countQueries', (_options, query) => {
-				seen.push((query as unknown as { sql: string }).sql);
-			});
-			try {
-				const page = await view(viewer, 'metric', other.slug);
-				expect(page.vehicle.slug).toBe(other.slug);
-				return { seen, trust: page.trust, id: page.vehicle.id };
-			} finally {
-				db().removeHook('afterQuery', 'countQueries');
-			}
+			const { result: page, sql: seen } = await statementsDuring(() => view(viewer, 'metric', other.slug));
+			expect(page.vehicle.slug).toBe(other.slug);
+			return { seen, trust: page.trust, id: page.vehicle.id };
 		};
 		const unmarked = await queriesFor();
 		expect(unmarked.seen.length).toBe(1);
@@ -211,7 +204,7 @@ describe('database work for a page view', () => {
 	it('finds the stored parts by their primary key, joined on the revision digest', async () => {
 		// MariaDB's EXPLAIN: a join between columns of different character sets cannot use the key and scans every stored part
 		const plan = await db().query<{ table: string; type: string; key: string | null }>(`EXPLAIN ${PAGE_SQL}`, {
-			replacements: { slug, units: 'metric', renderer: RENDERER },
+			replacements: ['metric', RENDERER, slug],
 			type: QueryTypes.SELECT
 		});
 		const parts = plan.find((row) => row.table === 'rp');

@@ -7,6 +7,7 @@ import { freePort } from '../helpers/ports';
 import { makeUser } from '../helpers/users';
 import { db } from '../../src/lib/server/db';
 import { config } from '../../src/lib/server/config';
+import { preparedRows } from '../../src/lib/server/db/prepared';
 import { primaryPosition, readingFromPrimary, replicaReached } from '../../src/lib/server/db/readRouting';
 import { freshReads, WRITTEN_COOKIE } from '../../src/lib/server/freshReads';
 import { emptyContent } from '../../src/lib/domain/content/schema';
@@ -42,6 +43,8 @@ function asRoot(server: 'primary' | 'replica', sql: string): string {
 const baseName = config.db.name;
 /** Which server answered: each has its own server_id (1 primary, 2 replica). */
 const answeredBy = async () => (await db().query<{ id: number }>('SELECT @@server_id AS id', { type: QueryTypes.SELECT }))[0].id;
+// The page view's prepared read takes its connection from the same pool, by the same rule.
+const preparedAnsweredBy = async () => (await preparedRows<{ id: number }>('SELECT @@server_id AS id', []))[0].id;
 const latestOf = async (vehicleId: number) =>
 	Number((await db().query<{ id: number }>('SELECT latest_revision_id AS id FROM vehicles WHERE id = ?', { replacements: [vehicleId], type: QueryTypes.SELECT }))[0].id);
 
@@ -69,6 +72,8 @@ describe('a primary and a read replica', () => {
 	it('reads from the replica, writes to the primary, and the replica catches up', async () => {
 		expect(await answeredBy()).toBe(2);
 		expect(await readingFromPrimary(answeredBy)).toBe(1);
+		expect(await preparedAnsweredBy()).toBe(2);
+		expect(await readingFromPrimary(preparedAnsweredBy)).toBe(1);
 		const made = await createVehicle(emptyContent({ make: 'Ostrel', model: 'Twinbay', yearFrom: 2014, yearTo: 2018, body: 'van' }), editor);
 		expect(await replicaReached(db(), await primaryPosition(db()), 5)).toBe(true);
 		expect((await revisionById(made.revisionId))?.id).toBe(made.revisionId);
@@ -138,6 +143,7 @@ describe('a primary and a read replica', () => {
 		await new Promise((r) => setTimeout(r, 1500));
 		await closeDb();
 		expect(await answeredBy()).toBe(1);
+		expect(await preparedAnsweredBy()).toBe(1);
 		const made = await createVehicle(emptyContent({ make: 'Ostrel', model: 'Solo', yearFrom: 2019, yearTo: 2021, body: 'suv' }), editor);
 		expect((await revisionById(made.revisionId))?.id).toBe(made.revisionId);
 	});

@@ -3,6 +3,7 @@
 // reads its trust marks when it has any).
 import { QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db';
+import { preparedRows } from '../db/prepared';
 import { vehicleTitle } from '../../domain/slug';
 import type { UnitSystem } from '../../domain/units';
 import { mayReadRevision, type Reader } from '../../domain/visibility';
@@ -51,6 +52,7 @@ type Row = {
 const PARTS_AS_BYTES = 'CAST(rp.parts AS BINARY)';
 
 // Every join is on a primary key, the page on its unique slug; whether the page has trust marks comes along (by page).
+// Its values go in as units, renderer, slug.
 export const PAGE_SQL = `SELECT v.id, v.slug, v.year_from AS yearFrom, v.year_to AS yearTo, v.body, v.latest_revision_id AS latestRevisionId,
 		v.protection, mk.name AS make, mo.name AS model,
 		r.id AS revisionId, r.sha256, r.summary, r.hidden, r.reviewed_at AS reviewedAt, r.created_at AS createdAt, u.name AS authorName,
@@ -60,12 +62,12 @@ export const PAGE_SQL = `SELECT v.id, v.slug, v.year_from AS yearFrom, v.year_to
 	JOIN models mo ON mo.id = v.model_id
 	LEFT JOIN revisions r ON r.id = v.latest_revision_id
 	LEFT JOIN users u ON u.id = r.author_id
-	LEFT JOIN rendered_pages rp ON rp.sha256 = r.sha256 AND rp.units = :units AND rp.renderer = :renderer
-	WHERE v.slug = :slug`;
+	LEFT JOIN rendered_pages rp ON rp.sha256 = r.sha256 AND rp.units = ? AND rp.renderer = ?
+	WHERE v.slug = ?`;
 
 /** The page at `slug` with its newest revision and the parts `renderer` stored for it in `units`; null when no page has that slug now. */
 export async function pageForReading(slug: string, units: UnitSystem, renderer: string): Promise<PageForReading | null> {
-	const [row] = await db().query<Row>(PAGE_SQL, { replacements: { slug, units, renderer }, type: QueryTypes.SELECT });
+	const [row] = await preparedRows<Row>(PAGE_SQL, [units, renderer, slug]);
 	if (!row) return null;
 	const names = { make: row.make, model: row.model, yearFrom: row.yearFrom, yearTo: row.yearTo };
 	const vehicle: VehicleSummary = {
