@@ -32,6 +32,22 @@ describe('dates and times in the shop’s zone', () => {
 		expect(formatWhen('2026-07-01T12:00:00Z', 'Asia/Kathmandu')).toBe('2026-07-01 17:45 GMT+5:45');
 	});
 
+	it('gives the same text again for the same minute or quarter hour, and the next text past its edge', () => {
+		// Nepal Standard Time is UTC+5:45 (from memory): its midnight is 18:15 UTC
+		expect(formatDay('2026-02-28T18:14:59Z', 'Asia/Kathmandu')).toBe('28 Feb 2026');
+		expect(formatDay('2026-02-28T18:00:00Z', 'Asia/Kathmandu')).toBe('28 Feb 2026');
+		expect(formatDay('2026-02-28T18:15:00Z', 'Asia/Kathmandu')).toBe('1 Mar 2026');
+		expect(formatDay('2026-02-28T18:29:59Z', 'Asia/Kathmandu')).toBe('1 Mar 2026');
+		// The same moments in another zone are not taken from Nepal's (UTC: still 28 February)
+		expect(formatDay('2026-02-28T18:15:00Z', 'UTC')).toBe('28 Feb 2026');
+		// Berlin's summer time starts 29 March 2026 at 01:00 UTC (Directive 2000/84/EC)
+		expect(formatWhen('2026-03-29T00:59:00Z', 'Europe/Berlin')).toBe('2026-03-29 01:59 CET');
+		expect(formatWhen('2026-03-29T00:59:59Z', 'Europe/Berlin')).toBe('2026-03-29 01:59 CET');
+		expect(formatWhen('2026-03-29T01:00:30Z', 'Europe/Berlin')).toBe('2026-03-29 03:00 CEST');
+		// Long before the kept range, dates are formatted every time all the same
+		expect(formatDay('1970-01-01T00:00:00Z', 'UTC')).toBe('1 Jan 1970');
+	});
+
 	it('midnight is 00, never 24', () => {
 		expect(formatWhen('2026-07-01T22:00:00Z', 'Europe/Berlin')).toBe('2026-07-02 00:00 CEST');
 	});

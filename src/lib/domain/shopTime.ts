@@ -58,20 +58,49 @@ function parts(at: Date, zone: string): Record<string, string> {
 	return out;
 }
 
+// Formatting a date is the costly part of every date on a page (tens of microseconds each), and a list shows
+// many dates close together. What a formatter shows changes only at whole quarter hours of UTC: every zone's
+// offset from 1980 on is a whole number of quarter hours, and its clocks change at a whole minute of local time.
+// So the text is kept per zone and quarter hour for a day, per zone and minute for a day and time.
+const QUARTER_HOUR_MS = 15 * 60 * 1000;
+const MINUTE_MS = 60 * 1000;
+/** Before this no kept text is used: older offsets may be odd minutes and seconds (local mean time). */
+const KEPT_FROM_MS = Date.UTC(1980, 0, 1);
+const KEPT_TEXTS = 2000;
+
+function keptText(kept: Map<string, string>, zone: string, at: Date, stepMs: number, format: () => string): string {
+	const t = at.getTime();
+	if (t < KEPT_FROM_MS) return format();
+	const key = `${zone}|${Math.floor(t / stepMs)}`;
+	let text = kept.get(key);
+	if (text === undefined) {
+		if (kept.size >= KEPT_TEXTS) kept.clear();
+		kept.set(key, (text = format()));
+	}
+	return text;
+}
+const keptTimes = new Map<string, string>();
+const keptDays = new Map<string, string>();
+
 /** "2026-07-01 14:00 CEST": the date and time in the shop's zone, with its short name. */
 export function formatWhen(at: string | Date, zone: string = DEFAULT_TIME_ZONE): string {
 	const d = asDate(at);
 	if (Number.isNaN(d.getTime())) return '';
 	const z = usableZone(zone);
-	const p = parts(d, z);
-	return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute} ${zoneShortName(d, z)}`;
+	return keptText(keptTimes, z, d, MINUTE_MS, () => {
+		const p = parts(d, z);
+		return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute} ${zoneShortName(d, z)}`;
+	});
 }
+
+const DAY_OPTIONS: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', year: 'numeric' };
 
 /** "1 Jul 2026": the day in the shop's zone, for lines that need no time. */
 export function formatDay(at: string | Date, zone: string = DEFAULT_TIME_ZONE): string {
 	const d = asDate(at);
 	if (Number.isNaN(d.getTime())) return '';
-	return formatter('en-GB', usableZone(zone), { day: 'numeric', month: 'short', year: 'numeric' }).format(d);
+	const z = usableZone(zone);
+	return keptText(keptDays, z, d, QUARTER_HOUR_MS, () => formatter('en-GB', z, DAY_OPTIONS).format(d));
 }
 
 /** The moment a calendar day ("2026-07-01") starts in the zone: 00:00 there, as an instant. */
