@@ -86,7 +86,7 @@ describe('page security policy', () => {
 		const html = [
 			'<head><script src="/_app/a.js"></script><script type="application/json" data-sveltekit-fetched>{"a":1}</script></head>',
 			`<body><div><script>${start}</script></div>`,
-			`<script type="module">${module}</script><script type="text/plain">not run</script></body>`
+			`<script type="module">${module}</script><script type="text/plain">not run</script><scripted>not a script</scripted></body>`
 		].join('');
 		// CSP Level 3 hashes the script element's text content as UTF-8, whitespace and all.
 		expect(inlineScriptHashes(html)).toEqual([await webCryptoSource(start), await webCryptoSource(module)]);

@@ -1,4 +1,4 @@
-import { createHash } from 'node:crypto';
+import { hash } from 'node:crypto';
 import type { Handle } from '@sveltejs/kit';
 
 // What every answer carries and how large a request may be, before any route reads it, and the
@@ -97,23 +97,32 @@ const POLICY: Record<string, string[]> = {
 	'frame-ancestors': ["'none'"]
 };
 
-const SCRIPT_OPEN = /<script\b([^>]*)>/g;
+const SCRIPT_OPEN = '<script';
 const SCRIPT_CLOSE = '</script>';
+// What may follow the tag name: the tag ends or its attributes begin.
+const AFTER_NAME = /[\s/>]/;
 // A script element runs when it has no type or a JavaScript one; JSON data blocks are never run.
 const RUNS = /^(?:text\/javascript|application\/javascript|module)$/i;
 
-/** The CSP hash source of every inline script that runs in `html` ('sha256-…' of its text as written). */
+/**
+ * The CSP hash source of every inline script that runs in `html` ('sha256-…' of its text as written). A page
+ * is tens of kilobytes with one or two scripts, so the tags are found by plain search, not a pattern.
+ */
 export function inlineScriptHashes(html: string): string[] {
 	const hashes: string[] = [];
-	for (const open of html.matchAll(SCRIPT_OPEN)) {
-		const attributes = open[1];
+	for (let open = html.indexOf(SCRIPT_OPEN); open !== -1; open = html.indexOf(SCRIPT_OPEN, open + SCRIPT_OPEN.length)) {
+		const nameEnd = open + SCRIPT_OPEN.length;
+		if (!AFTER_NAME.test(html.charAt(nameEnd))) continue;
+		const tagEnd = html.indexOf('>', nameEnd);
+		if (tagEnd === -1) break;
+		const attributes = html.slice(nameEnd, tagEnd);
 		if (/\ssrc\s*=/i.test(attributes)) continue;
 		const type = /\stype\s*=\s*["']?([^"'\s>]+)/i.exec(attributes)?.[1];
 		if (type !== undefined && !RUNS.test(type)) continue;
-		const start = open.index + open[0].length;
-		const end = html.indexOf(SCRIPT_CLOSE, start);
-		if (end === -1) continue;
-		hashes.push(`'sha256-${createHash('sha256').update(html.slice(start, end)).digest('base64')}'`);
+		const end = html.indexOf(SCRIPT_CLOSE, tagEnd + 1);
+		if (end === -1) break;
+		hashes.push(`'sha256-${hash('sha256', html.slice(tagEnd + 1, end), 'base64')}'`);
+		open = end;
 	}
 	return hashes;
 }

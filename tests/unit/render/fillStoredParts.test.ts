@@ -6,8 +6,10 @@ import { fillStoredParts } from '../../../src/lib/server/render/vehicleBody';
 const encode = (s: string) => new TextEncoder().encode(s);
 const PAGE = '<main><div data-kp-fragment="quick-facts"></div><p>Ω · kept</p></main>';
 
+type Options = { fragments?: Record<string, Uint8Array>; tag?: string; type?: string; status?: number; accept?: string };
+
 /** Runs the handle over a stand-in render that answers `chunks` the way SvelteKit hands a page to its hooks. */
-async function run(chunks: string[], opts: { fragments?: Record<string, Uint8Array>; tag?: string; type?: string; status?: number; accept?: string } = {}) {
+async function fill(chunks: string[], opts: Options = {}) {
 	const request = new Request('http://shop.test/vehicles/a', { headers: opts.accept ? { 'accept-encoding': opts.accept } : {} });
 	const event = { request, locals: { user: null, units: 'metric', fragments: opts.fragments, fragmentsTag: opts.tag ?? 't1' } } as unknown as RequestEvent;
 	let handedOver = '';
@@ -15,9 +17,13 @@ async function run(chunks: string[], opts: { fragments?: Record<string, Uint8Arr
 		for (let i = 0; i < chunks.length; i++) handedOver += (await options?.transformPageChunk?.({ html: chunks[i], done: i === chunks.length - 1 })) ?? chunks[i];
 		return new Response(handedOver, { status: opts.status ?? 200, headers: { 'content-type': opts.type ?? 'text/html', 'content-length': String(encode(handedOver).length), etag: '"e1"' } });
 	};
-	const response = await fillStoredParts({ event, resolve });
+	return { response: await fillStoredParts({ event, resolve }), handedOver: () => handedOver };
+}
+
+async function run(chunks: string[], opts: Options = {}) {
+	const { response, handedOver } = await fill(chunks, opts);
 	const bytes = Buffer.from(await response.arrayBuffer());
-	return { response, bytes, text: bytes.toString('utf8'), handedOver };
+	return { response, bytes, text: bytes.toString('utf8'), handedOver: handedOver() };
 }
 
 describe('fillStoredParts', () => {
@@ -57,6 +63,16 @@ describe('fillStoredParts', () => {
 		// Other stored parts (another revision, unit system or build) or another reader's markup: another tag.
 		expect(await etag(PAGE, 't2')).not.toBe(first);
 		expect(await etag(PAGE.replace('kept', 'kept!'), 't1')).not.toBe(first);
+	});
+
+	it('gives every page bytes of its own, however many pages are filled before the first is sent', async () => {
+		// The first has no placeholder left to fill (a page whose sections are all empty).
+		const long = `<main><p>Ω ${'kept '.repeat(400)}</p></main>`;
+		const fragments = { 'quick-facts': encode('<dl>DIN × 2</dl>') };
+		const first = await fill([long], { fragments });
+		const second = await fill([PAGE.replace('Ω', 'Ω Ω')], { fragments });
+		expect(Buffer.from(await first.response.arrayBuffer()).toString('utf8')).toBe(long);
+		expect(Buffer.from(await second.response.arrayBuffer()).toString('utf8')).toBe('<main><div data-kp-fragment="quick-facts"><dl>DIN × 2</dl></div><p>Ω Ω · kept</p></main>');
 	});
 
 	it('fills a page that came in several chunks from the response itself', async () => {
