@@ -97,32 +97,28 @@ const POLICY: Record<string, string[]> = {
 	'frame-ancestors': ["'none'"]
 };
 
-const SCRIPT_OPEN = '<script';
+// A script tag's name, then the end of the tag or its attributes. (A pattern finds it several times faster
+// than a plain string search does in a page of HTML.)
+const SCRIPT_OPEN = /<script[\s/>]/g;
 const SCRIPT_CLOSE = '</script>';
-// What may follow the tag name: the tag ends or its attributes begin.
-const AFTER_NAME = /[\s/>]/;
 // A script element runs when it has no type or a JavaScript one; JSON data blocks are never run.
 const RUNS = /^(?:text\/javascript|application\/javascript|module)$/i;
 
-/**
- * The CSP hash source of every inline script that runs in `html` ('sha256-…' of its text as written). A page
- * is tens of kilobytes with one or two scripts, so the tags are found by plain search, not a pattern.
- */
+/** The CSP hash source of every inline script that runs in `html` ('sha256-…' of its text as written). */
 export function inlineScriptHashes(html: string): string[] {
 	const hashes: string[] = [];
-	for (let open = html.indexOf(SCRIPT_OPEN); open !== -1; open = html.indexOf(SCRIPT_OPEN, open + SCRIPT_OPEN.length)) {
-		const nameEnd = open + SCRIPT_OPEN.length;
-		if (!AFTER_NAME.test(html.charAt(nameEnd))) continue;
-		const tagEnd = html.indexOf('>', nameEnd);
+	SCRIPT_OPEN.lastIndex = 0;
+	for (let open = SCRIPT_OPEN.exec(html); open; open = SCRIPT_OPEN.exec(html)) {
+		const tagEnd = html.indexOf('>', open.index);
 		if (tagEnd === -1) break;
-		const attributes = html.slice(nameEnd, tagEnd);
+		const attributes = html.slice(open.index + '<script'.length, tagEnd);
 		if (/\ssrc\s*=/i.test(attributes)) continue;
 		const type = /\stype\s*=\s*["']?([^"'\s>]+)/i.exec(attributes)?.[1];
 		if (type !== undefined && !RUNS.test(type)) continue;
 		const end = html.indexOf(SCRIPT_CLOSE, tagEnd + 1);
 		if (end === -1) break;
 		hashes.push(`'sha256-${hash('sha256', html.slice(tagEnd + 1, end), 'base64')}'`);
-		open = end;
+		SCRIPT_OPEN.lastIndex = end;
 	}
 	return hashes;
 }
