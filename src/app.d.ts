@@ -12,6 +12,8 @@ declare global {
 			fragments?: Record<string, Uint8Array>;
 			/** Names the stored parts those fragments came from, for the page's ETag. */
 			fragmentsTag?: string;
+			/** A full page view's finished bytes, as fillStoredParts sent them (never written to afterwards). */
+			filledPage?: Uint8Array<ArrayBuffer>;
 			/** What this request's load functions returned, for the page memo. */
 			viewData?: { layout?: unknown; page?: unknown };
 		}

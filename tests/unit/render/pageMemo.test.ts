@@ -1,6 +1,6 @@
 import { describe, expect, it, vi } from 'vitest';
 import type { RequestEvent } from '@sveltejs/kit';
-import { isPlainData, memoKey, PageMemo, reuseRenders, viewData } from '../../../src/lib/server/render/pageMemo';
+import { isPlainData, memoKey, PageMemo, reuseRenders, STALE_AFTER_MS, viewData } from '../../../src/lib/server/render/pageMemo';
 
 const encoder = new TextEncoder();
 const entry = (text: string) => ({ body: encoder.encode(text), headers: [['content-type', 'text/html']] as [string, string][] });
@@ -35,16 +35,40 @@ describe('PageMemo', () => {
 		expect(memo.bytes).toBe(102);
 	});
 
-	it('recognises a view seen lately, and remembers only so many views', () => {
+	it('counts the views of a reader’s address lately, and remembers only so many views', () => {
 		const memo = new PageMemo(1_000, 2);
-		expect(memo.seenBefore('a')).toBe(false);
-		expect(memo.seenBefore('a')).toBe(true);
-		expect(memo.seenBefore('a')).toBe(true);
-		expect(memo.seenBefore('b')).toBe(false);
-		expect(memo.seenBefore('c')).toBe(false);
+		expect(memo.noteView('a')).toBe(1);
+		expect(memo.noteView('a')).toBe(2);
+		expect(memo.viewedLately('a')).toBe(true);
+		expect(memo.noteView('a')).toBe(3);
+		expect(memo.noteView('b')).toBe(1);
+		expect(memo.noteView('c')).toBe(1);
 		// a was the least recently seen of three views with room for two: its next view counts as a first.
-		expect(memo.seenBefore('a')).toBe(false);
-		expect(memo.seenBefore('c')).toBe(true);
+		expect(memo.viewedLately('a')).toBe(false);
+		expect(memo.noteView('a')).toBe(1);
+		expect(memo.noteView('c')).toBe(2);
+	});
+
+	it('keeps any render while there is room; once full, only one viewed more often than the oldest, or in place of a stale one', () => {
+		let now = 0;
+		// Room for two entries of 100 bytes with one-character keys.
+		const memo = new PageMemo(2 * 102, 100, () => now);
+		expect(memo.admits(2)).toBe(true);
+		memo.set('a', entry('x'.repeat(100)), 2);
+		memo.set('b', entry('x'.repeat(100)), 2);
+		// Full: a render viewed twice does not push out a twice-viewed one, a thrice-viewed one does.
+		expect(memo.admits(2)).toBe(false);
+		expect(memo.admits(3)).toBe(true);
+		// Each hit is a use: a, used three times now, is no longer the oldest; b (two uses) is.
+		memo.get('a');
+		expect(memo.admits(3)).toBe(true);
+		memo.get('b');
+		memo.get('b');
+		expect(memo.admits(3)).toBe(false);
+		expect(memo.admits(4)).toBe(true);
+		// The oldest unused for longer than the stale limit gives way to any page viewed twice.
+		now += STALE_AFTER_MS + 1;
+		expect(memo.admits(2)).toBe(true);
 	});
 
 	it('knows which addresses have a kept render, by the address its keys begin with', () => {
@@ -99,9 +123,9 @@ describe('isPlainData', () => {
 
 describe('reuseRenders', () => {
 	type Fake = { layout: unknown; page: unknown };
-	function setup(opts: { headers?: Record<string, string>; status?: number; streamed?: boolean } = {}) {
+	function setup(opts: { headers?: Record<string, string>; status?: number; streamed?: boolean; memoBytes?: number } = {}) {
 		const state: Fake = { layout: { user: { id: 1 } }, page: { watching: false } };
-		const memo = new PageMemo(1_000_000);
+		const memo = new PageMemo(opts.memoBytes ?? 1_000_000);
 		let reads = 0;
 		const readPage = async () => {
 			reads++;
@@ -182,6 +206,31 @@ describe('reuseRenders', () => {
 		// The first view, the second (kept), the changed data (kept at once: the address was seen): three renders.
 		expect(t.renders()).toBe(3);
 		expect(t.memo.size).toBe(2);
+	});
+
+	it('once full, keeps a page viewed more often than the oldest kept, and renders a twice-viewed one without building its key', async () => {
+		// Room for one render (about 150 bytes with its key).
+		const t = setup({ memoBytes: 200 });
+		const at = (slug: string) => ({ request: new Request(`http://shop.test/vehicles/${slug}`), url: new URL(`http://shop.test/vehicles/${slug}`) });
+		await t.call(at('a'));
+		await t.call(at('a'));
+		expect(t.memo.size).toBe(1);
+		// b's second view: the memo is full of a page viewed as often, so b is rendered as a first view, its data read once.
+		await t.call(at('b'));
+		const [reads, misses] = [t.reads(), t.memo.misses];
+		await t.call(at('b'));
+		expect(t.reads()).toBe(reads + 1);
+		// No key was built for it, so nothing was looked up.
+		expect(t.memo.misses).toBe(misses);
+		expect(t.memo.keepsAddress('/vehicles/a')).toBe(true);
+		expect(t.memo.keepsAddress('/vehicles/b')).toBe(false);
+		// Its third view outweighs a's two: b takes a's place, and its next view is answered from the memo.
+		await t.call(at('b'));
+		expect(t.memo.keepsAddress('/vehicles/b')).toBe(true);
+		expect(t.memo.keepsAddress('/vehicles/a')).toBe(false);
+		const renders = t.renders();
+		await t.call(at('b'));
+		expect(t.renders()).toBe(renders);
 	});
 
 	it('keys by reader: another user gets a render of their own', async () => {

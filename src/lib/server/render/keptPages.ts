@@ -77,7 +77,7 @@ export function keptPages(options: {
 			const key = memoKey(url, encoding, await layout(locals), await view.data({ locals, url, params, isDataRequest: false }));
 			const entry = memo.get(key);
 			if (!entry) return null;
-			memo.seenBefore(seen);
+			memo.noteView(seen);
 			const requestId = requestIdFor(one(request.headers['x-request-id']));
 			const answer = notModified(entry.headers, one(request.headers['if-none-match'])) ?? {
 				status: 200,

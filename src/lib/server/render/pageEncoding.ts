@@ -24,10 +24,10 @@ export function pageEncoding(acceptEncoding: string | null): PageEncoding {
 
 const BROTLI_PARAMS = { [zlib.constants.BROTLI_PARAM_QUALITY]: 3, [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT };
 
-/** The page's bytes in `encoding`. */
-export function encodePage(bytes: Uint8Array, encoding: PageEncoding): Uint8Array {
-	if (encoding === 'br') return zlib.brotliCompressSync(bytes, { params: { ...BROTLI_PARAMS, [zlib.constants.BROTLI_PARAM_SIZE_HINT]: bytes.byteLength } });
-	if (encoding === 'gzip') return zlib.gzipSync(bytes);
+/** The page's bytes in `encoding` (Node allocates every result in an ArrayBuffer of its own, never a shared one). */
+export function encodePage(bytes: Uint8Array<ArrayBuffer>, encoding: PageEncoding): Uint8Array<ArrayBuffer> {
+	if (encoding === 'br') return zlib.brotliCompressSync(bytes, { params: { ...BROTLI_PARAMS, [zlib.constants.BROTLI_PARAM_SIZE_HINT]: bytes.byteLength } }) as Buffer<ArrayBuffer>;
+	if (encoding === 'gzip') return zlib.gzipSync(bytes) as Buffer<ArrayBuffer>;
 	return bytes;
 }
 

@@ -35,24 +35,34 @@ export function isPlainData(value: unknown): boolean {
 	return Object.values(value as object).every(isPlainData);
 }
 
+/** A kept render with how often it was viewed and when last. */
+type Kept = Entry & { uses: number; lastUsed: number };
+
+/** A kept render unused this long may be pushed out by any page viewed twice, however often it was used before. */
+export const STALE_AFTER_MS = 10 * 60 * 1000;
+
 /**
  * A size-bounded store of rendered pages, least recently used first out. Pages are kept from a reader's second
  * view of an address on: most pages a shop opens are read once in a while, and keeping each of those would only
- * push out the pages that are read again and leave large garbage behind.
+ * push out the pages that are read again and leave large garbage behind. Once the store is full, a render takes
+ * the place of the least recently used one only if it was viewed more often, or that one went unused a while:
+ * a counter opening one car after another then leaves the pages installers keep reopening where they are,
+ * instead of replacing every kept render with one nobody opens again.
  */
 export class PageMemo {
-	private entries = new Map<string, Entry>();
+	private entries = new Map<string, Kept>();
 	private used = 0;
 	// How many kept renders each address has, so a view of an address with none is told so at once.
 	private addresses = new Map<string, number>();
-	// Readers' addresses viewed lately (least recently viewed first out), so a second view is recognised.
-	private viewed = new Set<string>();
+	// Readers' addresses viewed lately and how often (least recently viewed first out).
+	private viewed = new Map<string, number>();
 	hits = 0;
 	misses = 0;
 
 	constructor(
 		private readonly maxBytes: number,
-		private readonly rememberedKeys = 50_000
+		private readonly rememberedKeys = 50_000,
+		private readonly now: () => number = Date.now
 	) {}
 
 	/** Whether any reader's render of `address` (path and query, as in `memoKey`) is kept. */
@@ -65,12 +75,21 @@ export class PageMemo {
 		return this.viewed.has(view);
 	}
 
-	/** Whether `view` (a reader and an address) was seen lately; either way it is remembered as seen now. */
-	seenBefore(view: string): boolean {
-		const seen = this.viewed.delete(view);
-		this.viewed.add(view);
-		if (this.viewed.size > this.rememberedKeys) this.viewed.delete(this.viewed.values().next().value!);
-		return seen;
+	/** Remembers a view of `view` (a reader and an address); how many times it was viewed lately, this one included. */
+	noteView(view: string): number {
+		const times = (this.viewed.get(view) ?? 0) + 1;
+		this.viewed.delete(view);
+		this.viewed.set(view, times);
+		if (this.viewed.size > this.rememberedKeys) this.viewed.delete(this.viewed.keys().next().value!);
+		return times;
+	}
+
+	/** Whether a render viewed `times` times would be kept now: while there is room, or in place of one viewed less or gone stale. */
+	admits(times: number): boolean {
+		const average = this.entries.size ? this.used / this.entries.size : 0;
+		if (this.used + average <= this.maxBytes) return true;
+		const oldest = this.entries.values().next().value;
+		return !oldest || oldest.uses < times || this.now() - oldest.lastUsed > STALE_AFTER_MS;
 	}
 
 	get size() {
@@ -88,12 +107,15 @@ export class PageMemo {
 			return undefined;
 		}
 		this.hits++;
+		entry.uses++;
+		entry.lastUsed = this.now();
 		this.entries.delete(key);
 		this.entries.set(key, entry);
 		return entry;
 	}
 
-	set(key: string, entry: Entry): void {
+	/** Keeps a render viewed `times` times. */
+	set(key: string, entry: Entry, times = 1): void {
 		const cost = entry.body.byteLength + key.length * 2;
 		if (cost > this.maxBytes) return;
 		const previous = this.entries.get(key);
@@ -102,7 +124,7 @@ export class PageMemo {
 			const [oldestKey, oldest] = this.entries.entries().next().value!;
 			this.forget(oldestKey, oldest);
 		}
-		this.entries.set(key, entry);
+		this.entries.set(key, { ...entry, uses: times, lastUsed: this.now() });
 		this.used += cost;
 		const address = addressOf(key);
 		this.addresses.set(address, (this.addresses.get(address) ?? 0) + 1);
@@ -148,7 +170,7 @@ export type MemoisedView = { path: RegExp; data: (request: ViewRequest) => Promi
 /** The layout's data for a reader. */
 export type LayoutData = (locals: App.Locals) => Promise<unknown>;
 
-/** Names a reader's view of an address in one encoding, for `seenBefore`. */
+/** Names a reader's view of an address in one encoding, for `noteView`. */
 export function viewName(locals: Pick<App.Locals, 'user' | 'units'>, encoding: string, url: URL): string {
 	return `${locals.user?.id}|${locals.units}|${encoding}|${url.pathname}${url.search}`;
 }
@@ -161,9 +183,11 @@ export function reuseRenders(memo: PageMemo, layout: LayoutData, views: Record<s
 	return async ({ event, resolve }) => {
 		const view = event.route.id ? views[event.route.id] : undefined;
 		if (!view || event.request.method !== 'GET' || event.isDataRequest || !event.locals.user) return resolve(event);
-		// A reader's first view of an address is rendered as usual, with no key built and nothing kept.
+		// A reader's first view of an address is rendered as usual, with no key built and nothing kept; so is a
+		// later one when no render of the address is kept and the memo would not keep this one.
 		const encoding = pageEncoding(event.request.headers.get('accept-encoding'));
-		if (!memo.seenBefore(viewName(event.locals, encoding, event.url))) return resolve(event);
+		const times = memo.noteView(viewName(event.locals, encoding, event.url));
+		if (times === 1 || (!memo.keepsAddress(`${event.url.pathname}${event.url.search}`) && !memo.admits(times))) return resolve(event);
 		let key: string;
 		let prepared: { layout: unknown; page: unknown };
 		try {
@@ -186,13 +210,20 @@ export function reuseRenders(memo: PageMemo, layout: LayoutData, views: Record<s
 			!response.headers.has('etag') || // streamed responses carry no ETag and are not kept
 			response.headers.has('set-cookie') ||
 			!response.headers.get('content-type')?.startsWith('text/html') ||
-			!isPlainData(prepared)
+			!isPlainData(prepared) ||
+			!memo.admits(times)
 		) {
 			return response;
 		}
-		const body = new Uint8Array(await response.arrayBuffer());
 		const headers = [...response.headers];
-		memo.set(key, { body, headers });
+		// A filled page's bytes are at hand, so its response goes out as it is; any other is read to be kept.
+		const filled = event.locals.filledPage;
+		if (filled) {
+			memo.set(key, { body: filled, headers }, times);
+			return response;
+		}
+		const body = new Uint8Array(await response.arrayBuffer());
+		memo.set(key, { body, headers }, times);
 		return new Response(body, { status: 200, headers });
 	};
 }

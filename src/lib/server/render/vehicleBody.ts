@@ -79,7 +79,7 @@ const EMPTY_CLOSE = Buffer.from('"></div>');
  * the page's own markup is small, and joining the large stored parts into it as text would copy them twice more
  * (into a string, then out as UTF-8) on every first view.
  */
-export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint8Array>): Buffer {
+export function spliceFragments(page: Uint8Array, fragments: Record<string, Uint8Array>): Buffer<ArrayBuffer> {
 	const html = Buffer.from(page.buffer, page.byteOffset, page.byteLength);
 	const pieces: Uint8Array[] = [];
 	let from = 0;
@@ -153,5 +153,6 @@ export const fillStoredParts: Handle = async ({ event, resolve }) => {
 	headers.set('vary', 'Accept-Encoding');
 	// With its length known the page goes out without chunked framing.
 	headers.set('content-length', String(filled.byteLength));
+	event.locals.filledPage = filled;
 	return new Response(bytesBody(filled), { status: response.status, statusText: response.statusText, headers });
 };
