@@ -6,27 +6,43 @@ import { config } from '../config';
 
 const requestContext = new AsyncLocalStorage<{ requestId: string }>();
 
-/** The app's logger; tests pass their own destination to read the lines back. */
-export function createLog(destination?: DestinationStream, level: string = config.logLevel): Logger {
+/**
+ * A logger writing JSON lines to `destination`; tests pass their own to read the lines back. Secrets are removed
+ * unless `redact` is false, which only a logger of fixed fields that cannot hold one may ask for.
+ */
+export function createLog(destination?: DestinationStream, level: string = config.logLevel, { redact = true }: { redact?: boolean } = {}): Logger {
 	return pino(
 		{
 			level,
 			base: { app: 'kickpanel' },
 			// Any field by these names, at the top or one level down, never reaches the log.
-			redact: {
-				paths: ['password', 'token', 'secret', 'cookie', 'authorization', '*.password', '*.token', '*.secret', '*.cookie', '*.authorization'],
-				censor: '[removed]'
-			},
+			...(redact
+				? {
+						redact: {
+							paths: ['password', 'token', 'secret', 'cookie', 'authorization', '*.password', '*.token', '*.secret', '*.cookie', '*.authorization'],
+							censor: '[removed]'
+						}
+					}
+				: {}),
 			mixin: () => {
 				const store = requestContext.getStore();
 				return store ? { requestId: store.requestId } : {};
 			}
 		},
-		destination ?? pino.destination(1)
+		destination ?? standardOut
 	);
 }
 
+const standardOut = pino.destination(1);
+
 export const log = createLog();
+
+/**
+ * The line written for every answered request. Its fields are fixed (method, route id, status, milliseconds)
+ * and none can hold a secret, so it skips the redaction above: with paths one level down, that pass cost a
+ * page view several times what the rest of its line does.
+ */
+export const answerLog = createLog(standardOut, config.logLevel, { redact: false });
 
 /** Runs `work` with every log line inside it tagged with the request's id. */
 export function withRequestId<T>(requestId: string, work: () => T): T {

@@ -2,7 +2,7 @@
 // carried by every log line written while it is served, and counted in the metrics.
 import { randomUUID } from 'node:crypto';
 import type { Handle } from '@sveltejs/kit';
-import { log, withRequestId } from './log';
+import { answerLog, withRequestId } from './log';
 import { requestSeconds, requestsTotal } from './metrics';
 
 const SANE_ID = /^[A-Za-z0-9._:-]{8,64}$/;
@@ -17,7 +17,7 @@ export function noteAnswer(answer: { method: string; route: string; status: numb
 	const { method, route, status, seconds } = answer;
 	requestsTotal.inc({ route, method, status: String(status) });
 	requestSeconds.observe({ route, method }, seconds);
-	log.info({ method, route, status, ms: Math.round(seconds * 1000) }, 'request');
+	answerLog.info({ method, route, status, ms: Math.round(seconds * 1000) }, 'request');
 }
 
 export const observeRequests: Handle = async ({ event, resolve }) => {
