@@ -5,6 +5,13 @@ import pino, { type DestinationStream, type Logger } from 'pino';
 import { config } from '../config';
 
 const requestContext = new AsyncLocalStorage<{ requestId: string }>();
+const standardOut = pino.destination(1);
+
+// Any field by these names, at the top or one level down, never reaches the log.
+const SECRETS = {
+	paths: ['password', 'token', 'secret', 'cookie', 'authorization', '*.password', '*.token', '*.secret', '*.cookie', '*.authorization'],
+	censor: '[removed]'
+};
 
 /**
  * A logger writing JSON lines to `destination`; tests pass their own to read the lines back. Secrets are removed
@@ -15,15 +22,7 @@ export function createLog(destination?: DestinationStream, level: string = confi
 		{
 			level,
 			base: { app: 'kickpanel' },
-			// Any field by these names, at the top or one level down, never reaches the log.
-			...(redact
-				? {
-						redact: {
-							paths: ['password', 'token', 'secret', 'cookie', 'authorization', '*.password', '*.token', '*.secret', '*.cookie', '*.authorization'],
-							censor: '[removed]'
-						}
-					}
-				: {}),
+			...(redact ? { redact: SECRETS } : {}),
 			mixin: () => {
 				const store = requestContext.getStore();
 				return store ? { requestId: store.requestId } : {};
@@ -32,8 +31,6 @@ export function createLog(destination?: DestinationStream, level: string = confi
 		destination ?? standardOut
 	);
 }
-
-const standardOut = pino.destination(1);
 
 export const log = createLog();
 

@@ -13,11 +13,14 @@ export type ViewPart = 'layout' | 'page';
 
 /** A render's key: its address, the encoding its bytes were sent in, and its data. */
 export function memoKey(url: URL, encoding: string, layout: unknown, page: unknown): string {
-	return `${url.pathname}${url.search}\n${encoding}\n${JSON.stringify([layout, page])}`;
+	return `${addressOfUrl(url)}\n${encoding}\n${JSON.stringify([layout, page])}`;
 }
 
 /** The address (path and query) a key names. */
 const addressOf = (key: string) => key.slice(0, key.indexOf('\n'));
+
+/** The address a key, a view name and `keepsAddress` speak of: path and query. */
+const addressOfUrl = (url: URL) => `${url.pathname}${url.search}`;
 
 /**
  * Whether JSON spells the value out in full. A Map, a Set or a class instance would stringify as `{}`,
@@ -88,8 +91,9 @@ export class PageMemo {
 	admits(times: number): boolean {
 		const average = this.entries.size ? this.used / this.entries.size : 0;
 		if (this.used + average <= this.maxBytes) return true;
-		const oldest = this.entries.values().next().value;
-		return !oldest || oldest.uses < times || this.now() - oldest.lastUsed > STALE_AFTER_MS;
+		// Full, so there is an oldest.
+		const oldest = this.entries.values().next().value!;
+		return oldest.uses < times || this.now() - oldest.lastUsed > STALE_AFTER_MS;
 	}
 
 	get size() {
@@ -172,7 +176,7 @@ export type LayoutData = (locals: App.Locals) => Promise<unknown>;
 
 /** Names a reader's view of an address in one encoding, for `noteView`. */
 export function viewName(locals: Pick<App.Locals, 'user' | 'units'>, encoding: string, url: URL): string {
-	return `${locals.user?.id}|${locals.units}|${encoding}|${url.pathname}${url.search}`;
+	return `${locals.user?.id}|${locals.units}|${encoding}|${addressOfUrl(url)}`;
 }
 
 /**
@@ -187,7 +191,7 @@ export function reuseRenders(memo: PageMemo, layout: LayoutData, views: Record<s
 		// later one when no render of the address is kept and the memo would not keep this one.
 		const encoding = pageEncoding(event.request.headers.get('accept-encoding'));
 		const times = memo.noteView(viewName(event.locals, encoding, event.url));
-		if (times === 1 || (!memo.keepsAddress(`${event.url.pathname}${event.url.search}`) && !memo.admits(times))) return resolve(event);
+		if (times === 1 || (!memo.keepsAddress(addressOfUrl(event.url)) && !memo.admits(times))) return resolve(event);
 		let key: string;
 		let prepared: { layout: unknown; page: unknown };
 		try {
